@@ -1,0 +1,4 @@
+export * from './roles';
+export * from './errors';
+export * from './auth';
+export * from './people';
