@@ -13,6 +13,7 @@ export default defineConfig({
       'packages/plan-model',
       'apps/api',
       'apps/planner',
+      'apps/mail-catcher',
       'tests',
     ],
   },
