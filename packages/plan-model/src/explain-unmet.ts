@@ -1,0 +1,127 @@
+import type { PlanningData } from './planning-data';
+import type { MaterialWeekLine, ProductWeekLine, ShortageCause, UnmetOrder, WorkCenterWeekLine } from './plan';
+import { bomDescendants } from './bom-graph';
+import { money, qty, weekRanges } from './format';
+import { TOLERANCES } from './tolerances';
+
+/**
+ * Every firm order not shipped complete in its week, with its causes in words.
+ *
+ * Backlog is assigned to orders first-in-first-out by due week, ordinary orders first: in the
+ * model must-ship orders are served before all others, so they carry only backlog beyond the
+ * ordinary orders' (none in a feasible model plan). Causes are
+ * the binding rows on the order's product and everything below it in the bill of materials
+ * (multi-level), in the weeks up to the due week: work centers whose capacity binds, materials
+ * limited by their supply cap or by lead time, materials scarce beyond their purchase cost. If
+ * none binds, the shortfall is economic: delivering on time would cost more than the late
+ * penalty it avoids.
+ */
+export function explainUnmetOrders(
+  data: PlanningData,
+  horizonWeeks: number,
+  lines: { products: ProductWeekLine[]; workCenters: WorkCenterWeekLine[]; materials: MaterialWeekLine[] },
+): UnmetOrder[] {
+  const out: UnmetOrder[] = [];
+  for (const p of data.products) {
+    const all = data.demand
+      .filter((d) => d.product === p.code && d.kind === 'firm' && d.week <= horizonWeeks && d.qty > 0)
+      .map((d, k) => ({ ...d, ref: d.orderRef ?? `${p.code}/week ${d.week}#${k + 1}` }))
+      .sort((a, b) => a.week - b.week || a.ref.localeCompare(b.ref));
+    if (all.length === 0) continue;
+    const lateBy = new Map(lines.products.filter((l) => l.product === p.code).map((l) => [l.week, l.late]));
+    const cum = (list: typeof all, t: number) => list.filter((o) => o.week <= t).reduce((a, o) => a + o.qty, 0);
+    const others = all.filter((o) => !o.mustShip);
+    const must = all.filter((o) => o.mustShip);
+    // the backlog belongs to ordinary orders first; must-ship orders carry only what exceeds them
+    const backlogOf = (list: typeof all, t: number) => {
+      const late = lateBy.get(t) ?? 0;
+      const ordinary = Math.min(late, cum(others, t));
+      return list === others ? ordinary : late - ordinary;
+    };
+    for (const list of [must, others]) {
+      const shippedBy = (t: number) => cum(list, t) - backlogOf(list, t);
+      let start = 0;
+      for (const o of list) {
+        const end = start + o.qty;
+        const short = Math.min(o.qty, Math.max(0, end - Math.max(start, shippedBy(o.week))));
+        if (short > TOLERANCES.quantity * 10) {
+          let completeWeek: number | null = null;
+          for (let t = o.week; t <= horizonWeeks; t++)
+            if (shippedBy(t) >= end - TOLERANCES.quantity * 10) {
+              completeWeek = t;
+              break;
+            }
+          const causes = shortageCauses(data, p.code, o.week, lines);
+          const when = completeWeek === null ? 'not complete within the horizon' : `complete in week ${completeWeek}`;
+          out.push({
+            orderRef: o.ref,
+            product: p.code,
+            week: o.week,
+            qty: o.qty,
+            shortQty: short,
+            completeWeek,
+            causes,
+            text: `Order ${o.ref}: ${qty(short)} short in week ${o.week} (${when}) — ${causes.map((c) => c.text).join('; ')}`,
+          });
+        }
+        start = end;
+      }
+    }
+  }
+  return out;
+}
+
+function shortageCauses(
+  data: PlanningData,
+  product: string,
+  dueWeek: number,
+  lines: { workCenters: WorkCenterWeekLine[]; materials: MaterialWeekLine[] },
+): ShortageCause[] {
+  const below = bomDescendants(data.bom, product);
+  const made = new Set([product, ...below.products]);
+  const wcs = new Set(data.routings.filter((r) => made.has(r.product)).map((r) => r.workCenter));
+  const causes: ShortageCause[] = [];
+  for (const w of data.workCenters) {
+    if (!wcs.has(w.code)) continue;
+    const binding = lines.workCenters.filter((l) => l.workCenter === w.code && l.week <= dueWeek && l.binding);
+    if (binding.length === 0) continue;
+    const weeks = binding.map((l) => l.week);
+    const value = Math.max(...binding.map((l) => l.bottleneckValue));
+    const atCap = binding.some((l) => l.overtimeCapHours !== null && l.overtimeHours >= l.overtimeCapHours - TOLERANCES.quantity);
+    causes.push({
+      kind: 'capacity',
+      item: w.code,
+      weeks,
+      value,
+      text: `${w.name} over-loaded ${weekRanges(weeks)} (bottleneck value ${money(value)}/h${atCap ? ', overtime at its cap' : ''})`,
+    });
+  }
+  for (const m of data.materials) {
+    if (!below.materials.has(m.code)) continue;
+    const ml = lines.materials.filter((l) => l.material === m.code && l.week <= dueWeek);
+    const capped = ml.filter((l) => l.supplyCapValue > TOLERANCES.value);
+    if (capped.length > 0) {
+      causes.push({ kind: 'supply_cap', item: m.code, weeks: capped.map((l) => l.week), text: `${m.name} limited by supply cap (${weekRanges(capped.map((l) => l.week))})` });
+      continue;
+    }
+    const scarce = ml.filter((l) => l.bottleneckValue > m.unitCost + TOLERANCES.value && l.stock <= TOLERANCES.quantity);
+    const early = scarce.filter((l) => l.week <= m.leadTimeWeeks);
+    if (early.length > 0)
+      causes.push({
+        kind: 'lead_time',
+        item: m.code,
+        weeks: early.map((l) => l.week),
+        text: `${m.name} short in ${weekRanges(early.map((l) => l.week))}: a purchase takes ${m.leadTimeWeeks} weeks to arrive`,
+      });
+    else if (scarce.length > 0)
+      causes.push({ kind: 'material', item: m.code, weeks: scarce.map((l) => l.week), text: `${m.name} short in ${weekRanges(scarce.map((l) => l.week))}` });
+  }
+  if (causes.length === 0)
+    causes.push({
+      kind: 'economics',
+      item: product,
+      weeks: [dueWeek],
+      text: 'no resource limit binds: delivering on time would cost more than the late penalty it avoids',
+    });
+  return causes;
+}

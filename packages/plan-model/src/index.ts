@@ -1,0 +1,16 @@
+export * from './planning-data';
+export * from './validate-planning-data';
+export * from './bom-graph';
+export * from './capacity';
+export * from './routing-load';
+export * from './standard-cost';
+export * from './demand';
+export * from './model/model-index';
+export { LpBuilder } from './model/lp-builder';
+export * from './build-model';
+export * from './plan';
+export * from './plan-margin';
+export * from './map-solution';
+export * from './explain-unmet';
+export * from './explain-infeasibility';
+export { TOLERANCES } from './tolerances';
