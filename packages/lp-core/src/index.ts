@@ -1,0 +1,13 @@
+export type { Problem, CscMatrix } from './problem/problem';
+export type { SolveResult, SolveStatus, Certificate, IterationInfo, InfeasibilityRay } from './solution/result';
+export { measureCertificate } from './solution/measure-certificate';
+export type { MeasuredPoint } from './solution/measure-certificate';
+export { readMps } from './mps/read-mps';
+export type { ReadMpsOptions } from './mps/read-mps';
+export { writeMps } from './mps/write-mps';
+export { MpsParseError } from './mps/mps-error';
+export { solveWithHighs } from './adapters/solve-with-highs';
+export type { HighsSettings } from './adapters/solve-with-highs';
+export { solveWithLpSolver } from './adapters/solve-with-lp-solver';
+export type { LpSolverSettings, LpSolverResult } from './adapters/solve-with-lp-solver';
+export type { ReferenceResult, ReferenceSolverName } from './adapters/reference-result';
