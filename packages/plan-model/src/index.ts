@@ -14,3 +14,5 @@ export * from './map-solution';
 export * from './explain-unmet';
 export * from './explain-infeasibility';
 export { TOLERANCES } from './tolerances';
+export * from './mrp';
+export * from './material-calls';
