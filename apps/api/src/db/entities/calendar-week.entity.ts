@@ -1,0 +1,28 @@
+import { EntitySchema } from 'typeorm';
+import { decimalAsNumber } from './column-types';
+
+/** One exceptional week in a work center's calendar. Table `work_center_week`. */
+export interface CalendarWeekRow {
+  id: number;
+  workCenterId: number;
+  /** YYYY-MM-DD, a plant week start */
+  weekStart: string;
+  holidayDays: number;
+  downtimeHours: number;
+  extraShifts: number;
+  note: string | null;
+}
+
+export const CalendarWeekEntity = new EntitySchema<CalendarWeekRow>({
+  name: 'CalendarWeek',
+  tableName: 'work_center_week',
+  columns: {
+    id: { type: 'int', primary: true, generated: 'increment' },
+    workCenterId: { name: 'work_center_id', type: 'int' },
+    weekStart: { name: 'week_start', type: 'date', utc: true },
+    holidayDays: { name: 'holiday_days', type: 'tinyint' },
+    downtimeHours: { name: 'downtime_hours', type: 'decimal', precision: 12, scale: 4, transformer: decimalAsNumber },
+    extraShifts: { name: 'extra_shifts', type: 'tinyint' },
+    note: { type: 'varchar', length: 200, nullable: true },
+  },
+});

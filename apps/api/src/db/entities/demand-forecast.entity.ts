@@ -1,0 +1,27 @@
+import { EntitySchema } from 'typeorm';
+import { decimalAsNumber } from './column-types';
+
+/** The forecast quantity of a product in a week (one per product-week). Table `demand_forecast`. */
+export interface DemandForecastRow {
+  id: number;
+  productId: number;
+  weekStart: string;
+  qty: number;
+  version: number;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+export const DemandForecastEntity = new EntitySchema<DemandForecastRow>({
+  name: 'DemandForecast',
+  tableName: 'demand_forecast',
+  columns: {
+    id: { type: 'int', primary: true, generated: 'increment' },
+    productId: { name: 'product_id', type: 'int' },
+    weekStart: { name: 'week_start', type: 'date', utc: true },
+    qty: { type: 'decimal', precision: 14, scale: 4, transformer: decimalAsNumber },
+    version: { type: 'int', default: 1 },
+    createdAt: { name: 'created_at', type: 'datetime', precision: 3 },
+    updatedAt: { name: 'updated_at', type: 'datetime', precision: 3 },
+  },
+});

@@ -1,0 +1,29 @@
+import { EntitySchema } from 'typeorm';
+import { decimalAsNumber } from './column-types';
+
+/** A firm customer order line: product, week, quantity, customer order reference. Table `firm_order`. */
+export interface FirmOrderRow {
+  id: number;
+  productId: number;
+  weekStart: string;
+  orderRef: string;
+  qty: number;
+  version: number;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+export const FirmOrderEntity = new EntitySchema<FirmOrderRow>({
+  name: 'FirmOrder',
+  tableName: 'firm_order',
+  columns: {
+    id: { type: 'int', primary: true, generated: 'increment' },
+    productId: { name: 'product_id', type: 'int' },
+    weekStart: { name: 'week_start', type: 'date', utc: true },
+    orderRef: { name: 'order_ref', type: 'varchar', length: 60 },
+    qty: { type: 'decimal', precision: 14, scale: 4, transformer: decimalAsNumber },
+    version: { type: 'int', default: 1 },
+    createdAt: { name: 'created_at', type: 'datetime', precision: 3 },
+    updatedAt: { name: 'updated_at', type: 'datetime', precision: 3 },
+  },
+});

@@ -1,0 +1,23 @@
+import { EntitySchema } from 'typeorm';
+import { decimalAsNumber } from './column-types';
+
+/** A purchase already on order: material arriving in a week. Table `scheduled_receipt`. */
+export interface ScheduledReceiptRow {
+  id: number;
+  materialId: number;
+  weekStart: string;
+  qty: number;
+  reference: string | null;
+}
+
+export const ScheduledReceiptEntity = new EntitySchema<ScheduledReceiptRow>({
+  name: 'ScheduledReceipt',
+  tableName: 'scheduled_receipt',
+  columns: {
+    id: { type: 'int', primary: true, generated: 'increment' },
+    materialId: { name: 'material_id', type: 'int' },
+    weekStart: { name: 'week_start', type: 'date', utc: true },
+    qty: { type: 'decimal', precision: 14, scale: 4, transformer: decimalAsNumber },
+    reference: { type: 'varchar', length: 60, nullable: true },
+  },
+});
