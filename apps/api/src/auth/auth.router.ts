@@ -1,0 +1,39 @@
+import { Router } from 'express';
+import { signInSchema, type Me } from '@millrace/contracts';
+import type { ApiContext } from '../app-context';
+import { validate } from '../http/validate-request';
+import { currentPerson } from './current-person';
+import { allow, everyRole, open } from './guard';
+import { setCookie } from './load-session';
+import { signIn } from './sign-in.use-case';
+
+/** POST /api/auth/sign-in, POST /api/auth/sign-out, GET /api/me. */
+export function authRouter({ dataSource, lucia }: ApiContext): Router {
+  const router = Router();
+
+  const signInInput = validate({ body: signInSchema });
+  router.post('/api/auth/sign-in', open(), signInInput, async (req, res) => {
+    const { body } = signInInput.from(res);
+    const result = await signIn(
+      { dataSource, lucia },
+      { ...body, ip: req.ip ?? req.socket.remoteAddress ?? 'unknown', previousSessionId: res.locals.auth?.sessionId ?? null },
+    );
+    setCookie(res, result.sessionCookie);
+    res.json(result.me satisfies Me);
+  });
+
+  // Open so that signing out with an expired session still clears the cookie.
+  router.post('/api/auth/sign-out', open(), async (_req, res) => {
+    const sessionId = res.locals.auth?.sessionId;
+    if (sessionId) await lucia.invalidateSession(sessionId);
+    setCookie(res, lucia.createBlankSessionCookie().serialize());
+    res.status(204).end();
+  });
+
+  router.get('/api/me', allow(...everyRole), (_req, res) => {
+    const { email, name, role } = currentPerson(res);
+    res.json({ email, name, role } satisfies Me);
+  });
+
+  return router;
+}

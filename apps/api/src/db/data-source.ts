@@ -1,0 +1,50 @@
+import 'reflect-metadata';
+import { DataSource, type MixedList, type EntitySchema } from 'typeorm';
+import type { DbConfig } from '../config';
+import { PersonEntity } from './entities/person.entity';
+import { SessionEntity } from './entities/session.entity';
+import { SignInAttemptEntity } from './entities/sign-in-attempt.entity';
+import { PeopleAndSessions1764633600000 } from './migrations/1764633600000-people-and-sessions';
+
+/** Every entity (EntitySchema objects, no decorators). Areas append theirs here. */
+export const entities: EntitySchema<any>[] = [PersonEntity, SessionEntity, SignInAttemptEntity];
+
+/** Every migration, in order. Areas append theirs here (timestamps keep the order). */
+export const migrations: MixedList<Function> = [PeopleAndSessions1764633600000];
+
+/** How long a query may wait for a free pooled connection or a new connection (ms). */
+const connectTimeoutMs = 5_000;
+/** Connections per API process. */
+const poolSize = 10;
+
+/**
+ * The one DataSource factory. MariaDB through mysql2 (explicit `connectorPackage`), UTC on the
+ * wire (`timezone: 'Z'`), utf8mb4, never `synchronize`. The mysql2 pool drops broken
+ * connections and opens new ones on demand, so the API recovers by itself when the DB returns.
+ */
+export function createDataSource(db: DbConfig): DataSource {
+  return new DataSource({
+    type: 'mariadb',
+    connectorPackage: 'mysql2',
+    host: db.host,
+    port: db.port,
+    database: db.name,
+    username: db.user,
+    password: db.password,
+    charset: 'utf8mb4_unicode_ci',
+    timezone: 'Z',
+    synchronize: false,
+    migrationsRun: false,
+    migrationsTransactionMode: 'each',
+    entities,
+    migrations,
+    logging: ['error', 'migration'],
+    connectTimeout: connectTimeoutMs,
+    extra: {
+      connectionLimit: poolSize,
+      enableKeepAlive: true,
+      keepAliveInitialDelay: 10_000,
+      dateStrings: false,
+    },
+  });
+}
