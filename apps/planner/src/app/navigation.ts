@@ -1,0 +1,16 @@
+import type { Role } from '@millrace/contracts';
+import { paths } from '@/config/paths';
+
+/**
+ * The navigation, per role. A new feature adds one entry here and one route in router.tsx; the
+ * route's `handle.roles` and these roles must agree (the API decides; this only mirrors it).
+ */
+export type NavItem = { label: string; href: string; roles: readonly Role[] };
+
+export const navItems: readonly NavItem[] = [
+  { label: 'Home', href: paths.home.getHref(), roles: ['admin', 'planner', 'supervisor', 'floor_lead'] },
+];
+
+export function navItemsFor(role: Role): NavItem[] {
+  return navItems.filter((item) => item.roles.includes(role));
+}

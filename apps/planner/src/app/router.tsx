@@ -1,0 +1,85 @@
+import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useEffect, useMemo } from 'react';
+import { createBrowserRouter, redirect, RouterProvider, type LoaderFunctionArgs, type RouteObject } from 'react-router-dom';
+import type { Role } from '@millrace/contracts';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { meQueryOptions } from '@/lib/auth';
+import { rolesWith } from '@/lib/authorization';
+import { onSessionLost } from '@/lib/session-events';
+import { RouteError } from './routes/route-error';
+
+/** What a route module exports: the page, and optionally a loader factory fed the query client. */
+type RouteModule = {
+  default: React.ComponentType;
+  clientLoader?: (queryClient: QueryClient) => (args: LoaderFunctionArgs) => unknown;
+};
+
+/** Roles allowed on a route, read by the app layout (the API enforces them again). */
+export type RouteHandle = { roles: readonly Role[]; title: string };
+
+const lazyRoute = (queryClient: QueryClient, load: () => Promise<RouteModule>) => async () => {
+  const module = await load();
+  return { Component: module.default, loader: module.clientLoader?.(queryClient) };
+};
+
+const allRoles: readonly Role[] = ['admin', 'planner', 'supervisor', 'floor_lead'];
+
+/**
+ * Every page of the planner. Each is its own lazily loaded module, so the sign-in page and the
+ * shell download only what they need. Adding a feature: one entry here, one in navigation.ts.
+ */
+export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
+  const page = (path: string | undefined, roles: readonly Role[], title: string, load: () => Promise<RouteModule>): RouteObject =>
+    path === undefined
+      ? { index: true, handle: { roles, title } satisfies RouteHandle, lazy: lazyRoute(queryClient, load) }
+      : { path, handle: { roles, title } satisfies RouteHandle, lazy: lazyRoute(queryClient, load) };
+
+  return [
+    {
+      path: paths.signIn.path,
+      errorElement: <RouteError />,
+      lazy: lazyRoute(queryClient, () => import('./routes/sign-in')),
+    },
+    {
+      path: paths.home.path,
+      errorElement: <RouteError />,
+      loader: async ({ request }) => {
+        try {
+          return await queryClient.ensureQueryData(meQueryOptions());
+        } catch (error) {
+          if (isApiError(error) && error.status === 401) {
+            const url = new URL(request.url);
+            throw redirect(paths.signIn.getHref(url.pathname + url.search));
+          }
+          throw error;
+        }
+      },
+      lazy: lazyRoute(queryClient, () => import('./routes/app/layout')),
+      children: [
+        page(undefined, allRoles, 'Home', () => import('./routes/app/home')),
+        page('*', allRoles, 'Not found', () => import('./routes/app/not-found')),
+      ],
+    },
+  ];
+}
+
+type RouterFactory = (routes: RouteObject[]) => ReturnType<typeof createBrowserRouter>;
+
+/** The router, and the rule that any 401 ends the session in the UI too. */
+export function AppRouter({ createRouter = createBrowserRouter }: { createRouter?: RouterFactory }) {
+  const queryClient = useQueryClient();
+  const router = useMemo(() => createRouter(createAppRoutes(queryClient)), [queryClient, createRouter]);
+
+  useEffect(
+    () =>
+      onSessionLost(() => {
+        queryClient.clear();
+        const { pathname, search } = router.state.location;
+        if (pathname !== paths.signIn.path) void router.navigate(paths.signIn.getHref(pathname + search), { replace: true });
+      }),
+    [queryClient, router],
+  );
+
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,25 @@
+/**
+ * Every route of the planner in one place. Screens link with `paths.x.getHref(...)`, the router
+ * registers `paths.x.path`; no route string is written anywhere else.
+ */
+export const paths = {
+  signIn: {
+    path: '/sign-in',
+    getHref: (next?: string) => (next && next !== '/' ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'),
+  },
+  home: { path: '/', getHref: () => '/' },
+  products: { path: '/products', getHref: () => '/products' },
+  productNew: { path: '/products/new', getHref: () => '/products/new' },
+  product: { path: '/products/:productId', getHref: (id: number | string) => `/products/${id}` },
+  workCenters: { path: '/work-centers', getHref: () => '/work-centers' },
+  workCenterNew: { path: '/work-centers/new', getHref: () => '/work-centers/new' },
+  workCenter: { path: '/work-centers/:workCenterId', getHref: (id: number | string) => `/work-centers/${id}` },
+  materials: { path: '/materials', getHref: () => '/materials' },
+  materialNew: { path: '/materials/new', getHref: () => '/materials/new' },
+  material: { path: '/materials/:materialId', getHref: (id: number | string) => `/materials/${id}` },
+  demand: { path: '/demand', getHref: () => '/demand' },
+  settings: { path: '/settings', getHref: () => '/settings' },
+  people: { path: '/people', getHref: () => '/people' },
+} as const;
+
+export type PathId = keyof typeof paths;

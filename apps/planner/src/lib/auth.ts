@@ -1,0 +1,44 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { Me, SignIn } from '@millrace/contracts';
+import { api } from './api-client';
+
+/** The signed-in person (GET /api/me). Shared by the shell and every feature that mirrors roles. */
+export const getMe = (): Promise<Me> => api.get<Me>('/api/me');
+
+export const meQueryOptions = () =>
+  queryOptions({
+    queryKey: ['me'],
+    queryFn: getMe,
+    staleTime: 5 * 60_000,
+    // The shell's loader handles a 401 itself by redirecting to sign-in.
+    meta: { expectUnauthenticated: true },
+  });
+
+export const useMe = () => useQuery(meQueryOptions());
+
+export const signIn = (body: SignIn): Promise<Me> => api.post<Me>('/api/auth/sign-in', body);
+
+export function useSignIn() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: signIn,
+    meta: { expectUnauthenticated: true },
+    onSuccess: async (me) => {
+      queryClient.clear();
+      // The sign-in answer may be empty on some servers; ask /api/me when it is.
+      if (me && typeof me === 'object' && 'role' in me) queryClient.setQueryData(meQueryOptions().queryKey, me);
+      else await queryClient.fetchQuery(meQueryOptions());
+    },
+  });
+}
+
+export const signOut = (): Promise<void> => api.post<void>('/api/auth/sign-out');
+
+export function useSignOut() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: signOut,
+    meta: { expectUnauthenticated: true },
+    onSettled: () => queryClient.clear(),
+  });
+}

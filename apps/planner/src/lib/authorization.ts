@@ -1,0 +1,40 @@
+import type { Role } from '@millrace/contracts';
+
+/**
+ * What each role may do, mirrored from the API's guards (the API decides; the UI only hides
+ * what would be refused). API.md "Roles".
+ */
+export type Permission =
+  | 'read:master-data'
+  | 'write:master-data'
+  | 'read:settings'
+  | 'write:settings'
+  | 'manage:people'
+  | 'read:demand'
+  | 'write:demand';
+
+const policy: Record<Permission, readonly Role[]> = {
+  'read:master-data': ['admin', 'planner', 'supervisor'],
+  'write:master-data': ['planner'],
+  'read:settings': ['admin', 'planner', 'supervisor'],
+  'write:settings': ['admin', 'planner'],
+  'manage:people': ['admin'],
+  'read:demand': ['admin', 'planner', 'supervisor'],
+  'write:demand': ['planner'],
+};
+
+export function can(role: Role | undefined, permission: Permission): boolean {
+  return role !== undefined && policy[permission].includes(role);
+}
+
+export function rolesWith(permission: Permission): readonly Role[] {
+  return policy[permission];
+}
+
+/** Words shown for each role. */
+export const roleLabels: Record<Role, string> = {
+  admin: 'Admin',
+  planner: 'Planner',
+  supervisor: 'Supervisor',
+  floor_lead: 'Floor lead',
+};
