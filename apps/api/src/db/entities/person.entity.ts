@@ -20,13 +20,14 @@ export const PersonEntity = new EntitySchema<PersonRow>({
   tableName: 'person',
   columns: {
     id: { type: 'int', primary: true, generated: 'increment' },
-    email: { type: 'varchar', length: 254, unique: true },
+    email: { type: 'varchar', length: 254 },
     name: { type: 'varchar', length: 120 },
     role: { type: 'varchar', length: 20 },
     passwordHash: { name: 'password_hash', type: 'varchar', length: 255, nullable: true },
-    active: { type: 'boolean', default: true },
+    active: { type: 'boolean', width: 1, default: true },
     version: { type: 'int', default: 1 },
     createdAt: { name: 'created_at', type: 'datetime', precision: 3 },
     updatedAt: { name: 'updated_at', type: 'datetime', precision: 3 },
   },
+  indices: [{ name: 'uq_person_email', columns: ['email'], unique: true }],
 });

@@ -5,6 +5,7 @@ export interface SessionRow {
   id: string;
   userId: number;
   expiresAt: Date;
+  person?: unknown;
 }
 
 export const SessionEntity = new EntitySchema<SessionRow>({
@@ -15,4 +16,14 @@ export const SessionEntity = new EntitySchema<SessionRow>({
     userId: { name: 'user_id', type: 'int' },
     expiresAt: { name: 'expires_at', type: 'datetime' },
   },
+  relations: {
+    person: {
+      type: 'many-to-one',
+      target: 'Person',
+      joinColumn: { name: 'user_id', foreignKeyConstraintName: 'fk_session_person' },
+      onDelete: 'CASCADE',
+      onUpdate: 'RESTRICT',
+    },
+  },
+  indices: [{ name: 'ix_session_user', columns: ['userId'] }],
 });
