@@ -23,6 +23,8 @@ import { demandByWeek } from './demand';
  *  cap[w,t]   Σ_p hours[p,w]·make[p,t] − efficiency·overtime[w,t] ≤ available[w,t]
  *  mat[m,t]   mstock[t] − mstock[t−1] − buy[t − lead] + Σ_p use[p,m]·make[p,t] = receipts[t] (+ on hand in week 1)
  *  sup[m,t]   buy[t] ≤ weekly supply cap
+ *  bkl[p,t]   late[t] − late[t−1] ≤ firm[t]  (firm shipments are never negative: backlog grows
+ *             only by new firm orders, so a forecast cannot be served with a firm order's goods)
  *  ss[p,t]    stock[t] + short[t] ≥ safety stock                         (soft floor)
  *  must[p,t]  late[t] ≤ firm demand through t that is not must-ship       (must-ship orders ship first)
  *  chg[p,t]   make[t] − make[t−1] − change[t] = 0                        (smoothing only)
@@ -73,7 +75,7 @@ export function buildModel(data: PlanningData, options: BuildOptions): BuiltMode
   for (const k of ['make', 'stock', 'late', 'sell', 'short', 'change'] as const) col[k] = products.map(none);
   col.overtime = workCenters.map(none);
   for (const k of ['buy', 'mstock'] as const) col[k] = materials.map(none);
-  for (const k of ['balance', 'safety_stock', 'must_ship', 'smoothing'] as const) row[k] = products.map(none);
+  for (const k of ['balance', 'backlog', 'safety_stock', 'must_ship', 'smoothing'] as const) row[k] = products.map(none);
   row.capacity = workCenters.map(none);
   for (const k of ['material', 'supply'] as const) row[k] = materials.map(none);
 
@@ -189,6 +191,11 @@ export function buildModel(data: PlanningData, options: BuildOptions): BuiltMode
     let mustShipSeen = false;
     let cumulativeOther = 0;
     for (const t of weeks) {
+      if (col.late[i][t - 1] >= 0) {
+        const terms: [number, number][] = [[col.late[i][t - 1], 1]];
+        if (t > 1 && col.late[i][t - 2] >= 0) terms.push([col.late[i][t - 2], -1]);
+        row.backlog[i][t - 1] = addRow('backlog', 'bkl', p.code, t, -Infinity, d.firm[t - 1], terms);
+      }
       if (col.short[i][t - 1] >= 0)
         row.safety_stock[i][t - 1] = addRow('safety_stock', 'ss', p.code, t, p.safetyStock, Infinity, [
           [col.stock[i][t - 1], 1],

@@ -69,6 +69,9 @@ function rowSentence(data: PlanningData, T: number, r: RowInfo): { order: number
         order: 4,
         text: `${product.name} in week ${r.week}: stock and production must cover what ships and what parent products use.`,
       };
+    case 'backlog':
+      if (!product) return undefined;
+      return { order: 5, text: `${product.name} in week ${r.week}: the backlog can grow only by that week's firm orders.` };
     case 'safety_stock':
     case 'smoothing':
       return undefined;

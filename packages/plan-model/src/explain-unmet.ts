@@ -111,7 +111,7 @@ function shortageCauses(
         kind: 'lead_time',
         item: m.code,
         weeks: early.map((l) => l.week),
-        text: `${m.name} short in ${weekRanges(early.map((l) => l.week))}: a purchase takes ${m.leadTimeWeeks} weeks to arrive`,
+        text: `${m.name} short in ${weekRanges(early.map((l) => l.week))}: a purchase takes ${m.leadTimeWeeks} week${m.leadTimeWeeks === 1 ? '' : 's'} to arrive`,
       });
     else if (scarce.length > 0)
       causes.push({ kind: 'material', item: m.code, weeks: scarce.map((l) => l.week), text: `${m.name} short in ${weekRanges(scarce.map((l) => l.week))}` });

@@ -208,7 +208,12 @@ function productMarginals(data: PlanningData, built: BuiltModel, result: SolveRe
   const { index } = built;
   return data.products.map((p, i) => {
     const made = products.filter((l) => l.product === p.code).reduce((a, l) => a + l.make, 0);
-    const reducedCostByWeek = index.col.make[i].map((c) => snap(result.reducedCosts[c]));
+    // make one more unit in week t and sell it to that week's forecast when there is one: the
+    // balance row's dual cancels, so the value is unique even when stock and sales sit at bounds
+    const reducedCostByWeek = index.col.make[i].map((c, k) => {
+      const sell = index.col.sell[i][k];
+      return snap(result.reducedCosts[c] + (sell >= 0 ? result.reducedCosts[sell] : 0));
+    });
     const worst = Math.min(...reducedCostByWeek);
     if (made > TOLERANCES.quantity)
       return { product: p.code, made, reducedCostByWeek, outcome: 'made' as const, text: `${p.name}: ${qty(made)} ${p.unit} made` };

@@ -84,7 +84,10 @@ export type ProductMarginalOutcome = 'made' | 'not_worth_making' | 'not_needed';
 export interface ProductMarginal {
   product: string;
   made: number;
-  /** reduced cost of make per week: how much margin one more unit made would lose */
+  /**
+   * per week, how much margin one more unit made would lose: the reduced cost of make plus,
+   * where the week has forecast demand, that of selling it (positive = loses money)
+   */
   reducedCostByWeek: number[];
   outcome: ProductMarginalOutcome;
   text: string;

@@ -6,7 +6,7 @@
  * (e.g. no `late` column before a product's first firm order, no `buy` column whose delivery
  * would fall after the horizon).
  */
-export type RowKind = 'balance' | 'capacity' | 'material' | 'supply' | 'safety_stock' | 'must_ship' | 'smoothing';
+export type RowKind = 'balance' | 'backlog' | 'capacity' | 'material' | 'supply' | 'safety_stock' | 'must_ship' | 'smoothing';
 export type ColKind = 'make' | 'stock' | 'late' | 'sell' | 'short' | 'overtime' | 'buy' | 'mstock' | 'change';
 
 export interface RowInfo {

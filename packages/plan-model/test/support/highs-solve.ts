@@ -66,3 +66,16 @@ export async function solveWithHighsRef(problem: Problem): Promise<SolveResult> 
     model.dispose();
   }
 }
+
+/** Objective HiGHS finds for a model given as MPS text (HiGHS's own MPS reader). */
+export async function highsObjectiveFromMps(mps: string): Promise<{ status: number; objective: number }> {
+  const highs = await getHighs();
+  const model = highs.createModel({ format: 'mps', data: new TextEncoder().encode(mps) } as never);
+  try {
+    model.options.set({ output_flag: false } as never);
+    model.run();
+    return { status: model.getModelStatus(), objective: model.getObjectiveValue() };
+  } finally {
+    model.dispose();
+  }
+}
