@@ -1,5 +1,6 @@
 import type { Role } from '@millrace/contracts';
 import { paths } from '@/config/paths';
+import { rolesWith } from '@/lib/authorization';
 
 /**
  * The navigation, per role. A new feature adds one entry here and one route in router.tsx; the
@@ -9,6 +10,8 @@ export type NavItem = { label: string; href: string; roles: readonly Role[] };
 
 export const navItems: readonly NavItem[] = [
   { label: 'Home', href: paths.home.getHref(), roles: ['admin', 'planner', 'supervisor', 'floor_lead'] },
+  { label: 'Products', href: paths.products.getHref(), roles: rolesWith('read:master-data') },
+  { label: 'Work centers', href: paths.workCenters.getHref(), roles: rolesWith('read:master-data') },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

@@ -58,6 +58,12 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
       lazy: lazyRoute(queryClient, () => import('./routes/app/layout')),
       children: [
         page(undefined, allRoles, 'Home', () => import('./routes/app/home')),
+        page(paths.products.path, rolesWith('read:master-data'), 'Products', () => import('./routes/app/products')),
+        page(paths.productNew.path, rolesWith('write:master-data'), 'New product', () => import('./routes/app/product-new')),
+        page(paths.product.path, rolesWith('read:master-data'), 'Product', () => import('./routes/app/product')),
+        page(paths.workCenters.path, rolesWith('read:master-data'), 'Work centers', () => import('./routes/app/work-centers')),
+        page(paths.workCenterNew.path, rolesWith('write:master-data'), 'New work center', () => import('./routes/app/work-center-new')),
+        page(paths.workCenter.path, rolesWith('read:master-data'), 'Work center', () => import('./routes/app/work-center')),
         page('*', allRoles, 'Not found', () => import('./routes/app/not-found')),
       ],
     },

@@ -79,7 +79,7 @@ type SelectProps = SelectHTMLAttributes<HTMLSelectElement> & {
   fieldClassName?: string;
 };
 
-export function Select({ label, hideLabel, hint, error, options, placeholder, fieldClassName, className = '', ...rest }: SelectProps) {
+export function Select({ label, hideLabel, hint, error, options, placeholder, fieldClassName, className = '', children, ...rest }: SelectProps) {
   return (
     <Field label={label} hideLabel={hideLabel} hint={hint} error={error} className={fieldClassName}>
       {({ id, describedBy, invalid }) => (
@@ -96,6 +96,7 @@ export function Select({ label, hideLabel, hint, error, options, placeholder, fi
               {o.label}
             </option>
           ))}
+          {children}
         </select>
       )}
     </Field>

@@ -25,7 +25,7 @@ const formErrorMap = (issue: { code: string; expected?: unknown; input?: unknown
 /** Names of the fields drawn on screen, so server errors can tell "on a field" from "elsewhere". */
 const FieldRegistry = createContext<Set<string> | null>(null);
 
-function useRegisteredName(name: string) {
+export function useRegisteredName(name: string) {
   const registry = useContext(FieldRegistry);
   useEffect(() => {
     registry?.add(name);
@@ -207,7 +207,7 @@ export function Form<S extends z.ZodType<FieldValues, FieldValues>>({
   );
 }
 
-function useFieldError(name: string): string | undefined {
+export function useFieldError(name: string): string | undefined {
   const { formState } = useFormContext();
   const error = get(formState.errors, name) as { message?: string } | undefined;
   return error?.message;
@@ -223,6 +223,7 @@ export function FormInput({
   hint,
   type = 'text',
   number,
+  nullable,
   className,
   fieldClassName,
   ...rest
@@ -234,6 +235,8 @@ export function FormInput({
   type?: string;
   /** Parse the text as a number ('optional-number': empty means null). */
   number?: NumberMode;
+  /** Empty text means null (optional text such as a note). */
+  nullable?: boolean;
   className?: string;
   fieldClassName?: string;
   step?: string;
@@ -253,7 +256,9 @@ export function FormInput({
           const n = Number(String(v).replace(',', '.'));
           return Number.isNaN(n) ? v : n;
         }
-      : undefined,
+      : nullable
+        ? (v: unknown) => (v === '' || v === undefined ? null : v)
+        : undefined,
   });
   return (
     <Input

@@ -1,0 +1,5 @@
+import { ProductNewPage } from '@/features/products';
+
+export default function ProductNewRoute() {
+  return <ProductNewPage />;
+}

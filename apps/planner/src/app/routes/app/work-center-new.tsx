@@ -1,0 +1,5 @@
+import { WorkCenterNewPage } from '@/features/work-centers';
+
+export default function WorkCenterNewRoute() {
+  return <WorkCenterNewPage />;
+}
