@@ -1,26 +1,8 @@
 import type { Server } from 'node:http';
-import type { DataSource } from 'typeorm';
 import { createApp } from './app';
 import { ConfigError, loadConfig } from './config';
+import { connectWithRetry } from './db/connect-with-retry';
 import { createDataSource } from './db/data-source';
-
-/** Back-off between connection attempts while the database is not up yet (ms). */
-const retryDelaysMs = [500, 1_000, 2_000, 4_000, 8_000, 15_000];
-
-/** Connects in the background, retrying for ever with back-off; requests get 503 meanwhile. */
-async function connectWithRetry(dataSource: DataSource, stopped: () => boolean): Promise<void> {
-  for (let attempt = 0; !stopped(); attempt++) {
-    try {
-      await dataSource.initialize();
-      console.log('millrace api: database connected');
-      return;
-    } catch (err) {
-      const delay = retryDelaysMs[Math.min(attempt, retryDelaysMs.length - 1)];
-      console.warn(`millrace api: database not reachable (${(err as Error).message}); retrying in ${delay} ms`);
-      await new Promise((r) => setTimeout(r, delay));
-    }
-  }
-}
 
 function main(): void {
   let config;
@@ -40,7 +22,9 @@ function main(): void {
     console.error(`millrace api: cannot listen on ${config.http.host}:${config.http.port}: ${err.message}`);
     process.exit(1);
   });
-  void connectWithRetry(dataSource, () => stopping);
+  void connectWithRetry(dataSource, { stopped: () => stopping }).then((outcome) => {
+    if (outcome === 'connected') console.log('millrace api: database connected');
+  });
 
   const stop = (signal: string) => {
     if (stopping) return;
