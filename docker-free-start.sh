@@ -83,13 +83,13 @@ random_secret() {
   od -An -N24 -tx1 /dev/urandom | tr -d ' \n'
 }
 
-# Waits until URL answers with any HTTP status below 500, while PID is alive.
+# Waits until URL answers 200 (for the API: the database is connected), while PID is alive.
 wait_for_http() {
   local url="$1" pid="$2" name="$3" seconds="$4" i
   for ((i = 0; i < seconds * 5; i++)); do
     if node -e '
       fetch(process.argv[1], { signal: AbortSignal.timeout(1000) })
-        .then((r) => process.exit(r.status < 500 ? 0 : 1), () => process.exit(1));' "$url" 2>/dev/null; then
+        .then((r) => process.exit(r.status === 200 ? 0 : 1), () => process.exit(1));' "$url" 2>/dev/null; then
       return 0
     fi
     kill -0 "$pid" 2>/dev/null || return 1
@@ -132,13 +132,16 @@ stop_product() {
 }
 
 START_CLEANED=0
+START_LAUNCHED=0
 start_cleanup() {
   [ "$START_CLEANED" = 1 ] && return 0
   START_CLEANED=1
   trap - INT TERM EXIT
   stop_product
   rm -f "$RUN/start.pid"
-  log "stopped; the data stays in .millrace/ (run ./docker-free-start.sh again to continue)"
+  if [ "$START_LAUNCHED" = 1 ]; then
+    log "stopped; the data stays in .millrace/ (run ./docker-free-start.sh again to continue)"
+  fi
 }
 
 cmd_start() {
@@ -175,6 +178,7 @@ cmd_start() {
   db_password="$(env_file_value "$STATE/env" DB_PASSWORD)"
   [[ "$db_password" =~ ^[0-9a-f]{32,}$ ]] || db_password="$(random_secret)"
 
+  START_LAUNCHED=1
   mr_db_init "$DB_BASE"
   mr_db_start "$DB_BASE" "$db_port" "$DB_PIDFILE"
   mr_db_sql "$DB_BASE" "
