@@ -29,8 +29,11 @@ export function findBomCycles(bom: BomLine[]): string[][] {
     for (const c of children.get(p) ?? []) {
       const s = state.get(c);
       if (s === 'open') {
-        const cycle = [...stack.slice(stack.indexOf(c)), c];
-        const key = [...cycle.slice(0, -1)].sort().join('|');
+        const ring = stack.slice(stack.indexOf(c));
+        // start the path at its smallest code so the same cycle always reads the same way
+        const first = ring.indexOf([...ring].sort()[0]);
+        const cycle = [...ring.slice(first), ...ring.slice(0, first), ring[first]];
+        const key = [...ring].sort().join('|');
         if (!seenCycle.has(key)) {
           seenCycle.add(key);
           cycles.push(cycle);
