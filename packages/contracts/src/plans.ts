@@ -149,7 +149,8 @@ export type Rounding = z.infer<typeof roundingSchema>;
 /** Why a plan with a must-ship requirement has no feasible plan, in words. */
 export const infeasibilitySchema = z.object({
   summary: z.string(),
-  conflicts: z.array(z.object({ row: z.string(), message: z.string() })),
+  /** one sentence per conflicting requirement (rows of the infeasibility certificate), must-ship orders first */
+  conflicts: z.array(z.string()),
 });
 export type Infeasibility = z.infer<typeof infeasibilitySchema>;
 
@@ -241,26 +242,26 @@ export const materialCallSchema = z.object({
 });
 export type MaterialCall = z.infer<typeof materialCallSchema>;
 
-/** Value of one more unit of a limited resource (dual of a capacity or material row). */
+/** Value of one more unit of a limited resource (dual of a capacity, material or supply-cap row), in the weeks it binds. */
 export const bottleneckSchema = z.object({
-  kind: z.enum(['capacity', 'material', 'supply']),
+  kind: z.enum(['capacity', 'material', 'supply_cap']),
   item: z.string(),
   itemName: z.string(),
-  week: z.number().int(),
-  weekStart: z.string(),
-  /** currency per hour (capacity) or per unit (material) */
-  value: z.number(),
-  unit: z.string(),
+  /** currency per hour (capacity) or per unit (material, supply cap) */
+  unit: z.enum(['per_hour', 'per_unit']),
+  weeks: z.array(z.object({ week: z.number().int(), weekStart: z.string(), value: z.number() })),
   message: z.string(),
 });
 export type Bottleneck = z.infer<typeof bottleneckSchema>;
 
-/** Reduced cost of making a product: negative margin at the margin means not worth making. */
+/** Reduced costs of making a product: which products lose money at the margin. */
 export const reducedCostSchema = z.object({
   product: z.string(),
   productName: z.string(),
-  week: z.number().int(),
-  value: z.number(),
+  made: z.number(),
+  outcome: z.enum(['made', 'not_worth_making', 'not_needed']),
+  /** margin lost by one more unit made, per week of the horizon */
+  reducedCostByWeek: z.array(z.number()),
   message: z.string(),
 });
 export type ReducedCost = z.infer<typeof reducedCostSchema>;
@@ -268,10 +269,14 @@ export type ReducedCost = z.infer<typeof reducedCostSchema>;
 /** A firm order the plan does not ship in full on time, and why. */
 export const unmetOrderSchema = z.object({
   product: z.string(),
-  orderRef: z.string().nullable(),
+  orderRef: z.string(),
   week: z.number().int(),
+  weekStart: z.string(),
+  qty: z.number(),
   qtyShort: z.number(),
-  causes: z.array(z.string()),
+  /** week the order is complete, or null when not within the horizon */
+  completeWeek: z.number().int().nullable(),
+  causes: z.array(z.object({ kind: z.enum(['capacity', 'supply_cap', 'lead_time', 'material', 'economics']), item: z.string(), message: z.string() })),
   message: z.string(),
 });
 export type UnmetOrder = z.infer<typeof unmetOrderSchema>;
@@ -287,12 +292,19 @@ export const planResultsSchema = z.object({
   bottlenecks: z.array(bottleneckSchema),
   reducedCosts: z.array(reducedCostSchema),
   unmet: z.array(unmetOrderSchema),
+  /** contribution margin of the plan as shown (rounded when whole units were asked), from the data */
   totals: z.object({
     margin: z.number(),
     revenue: z.number(),
     materialSpend: z.number(),
-    overtimeHours: z.number(),
+    extraUnitCost: z.number(),
     overtimeCost: z.number(),
+    holdingCost: z.number(),
+    latePenalty: z.number(),
+    endBackorderPenalty: z.number(),
+    safetyShortfallPenalty: z.number(),
+    smoothingCost: z.number(),
+    overtimeHours: z.number(),
     unmetQty: z.number(),
   }),
 });

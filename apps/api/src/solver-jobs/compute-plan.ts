@@ -1,0 +1,117 @@
+import type { CheckViolation, Rounding, SolveStatus } from '@millrace/contracts';
+import { solve, writeMps, type SolveResult } from '@millrace/lp-core';
+import { buildModel, checkPlan, mapSolution, materialCalls, roundPlan, type Plan, type PlanningData } from '@millrace/plan-model';
+import { hashOf } from '../plans/canonical-hash';
+import type { SolveOutcomeRecord } from '../plans/plans.repository';
+import { planResultsFromPlan } from './plan-results-from-plan';
+
+/** What the worker is asked to solve. */
+export interface ComputeRequest {
+  planId: number;
+  data: PlanningData;
+  horizonWeeks: number;
+  smoothing: { enabled: boolean; weight: number };
+  wholeUnits: boolean;
+}
+
+export interface ComputeProgress {
+  iteration: number;
+  relativeGap: number;
+  primalObjective: number;
+  elapsedSeconds: number;
+}
+
+export interface ComputeHooks {
+  onProgress(progress: ComputeProgress): void;
+  shouldStop(): boolean;
+}
+
+export type ComputeOutcome = { kind: 'cancelled'; seconds: number } | { kind: 'finished'; record: Omit<SolveOutcomeRecord, 'crossCheck'> };
+
+/**
+ * The whole solve of one plan version, as a story: build the LP from the snapshot, keep its exact
+ * MPS, solve it with lp-core's interior-point method, map the solution back to a plan, round to
+ * whole units when asked, re-verify it with plan-model's independent checker, and shape the
+ * results. Pure computation (no database): it runs inside a worker thread.
+ */
+export function computePlan(request: ComputeRequest, hooks: ComputeHooks): ComputeOutcome {
+  const built = buildModel(request.data, {
+    horizonWeeks: request.horizonWeeks,
+    smoothing: request.smoothing,
+    wholeUnits: request.wholeUnits,
+  });
+  const { problem } = built;
+  const mps = writeMps(problem);
+  const modelSize = { rows: problem.A.m, columns: problem.A.n, nonzeros: problem.A.colPtr[problem.A.n] };
+
+  const result = solve(problem, {
+    onIteration: (info) =>
+      hooks.onProgress({ iteration: info.iteration, relativeGap: info.relativeGap, primalObjective: -info.primalObjective, elapsedSeconds: info.seconds }),
+    shouldStop: hooks.shouldStop,
+  });
+  if (result.status === 'cancelled') return { kind: 'cancelled', seconds: result.seconds };
+
+  const certificate = { ...result.certificate, iterations: result.iterations, seconds: result.seconds };
+  const base = { certificate, modelSize, mps, checkViolations: [] as CheckViolation[], rounding: null, results: null, resultsHash: null };
+  const lpPlan = mapSolution(request.data, built, result);
+
+  if (result.status !== 'optimal') {
+    const status = statusOf(result);
+    const sentences = lpPlan.infeasibility;
+    return {
+      kind: 'finished',
+      record: {
+        ...base,
+        solveStatus: status,
+        objective: null,
+        infeasibility: status === 'infeasible' ? { summary: sentences[0] ?? 'No plan meets every must-ship order.', conflicts: sentences.slice(1) } : null,
+        message: status === 'infeasible' ? (sentences[0] ?? null) : (result.message ?? `The solver stopped early (${result.status}); no plan.`),
+      },
+    };
+  }
+
+  const objective = -result.objective;
+  const shown: Plan = request.wholeUnits ? roundPlan(request.data, built, lpPlan) : lpPlan;
+  const rounding = request.wholeUnits ? roundingOf(shown, lpPlan) : null;
+  const violations = checkPlan(request.data, shown).map((v) => ({ kind: v.kind, item: v.item, week: v.week, message: v.message }));
+  const results = planResultsFromPlan(request.planId, request.data, shown, materialCalls(request.data, request.horizonWeeks, shown.products));
+  results.objective = objective;
+  return {
+    kind: 'finished',
+    record: {
+      ...base,
+      solveStatus: violations.length > 0 ? 'check_failed' : 'solved',
+      objective,
+      checkViolations: violations,
+      rounding,
+      infeasibility: null,
+      results,
+      resultsHash: hashOf(results),
+      message:
+        violations.length > 0
+          ? `The independent check found ${violations.length} violation(s) against the planning data; the plan is not valid.`
+          : null,
+    },
+  };
+}
+
+function statusOf(result: SolveResult): SolveStatus {
+  switch (result.status) {
+    case 'infeasible':
+      return 'infeasible';
+    case 'unbounded':
+      return 'unbounded';
+    case 'cancelled':
+      return 'cancelled';
+    default:
+      return 'stopped_early';
+  }
+}
+
+/** The rounded plan's margin against the LP plan's margin (the bound whole units cannot beat). */
+function roundingOf(rounded: Plan, lp: Plan): Rounding {
+  const lpBound = lp.margin.margin;
+  const margin = rounded.margin.margin;
+  const gap = lpBound - margin;
+  return { margin, lpBound, gap, relativeGap: gap / Math.max(1, Math.abs(lpBound)) };
+}

@@ -1,0 +1,220 @@
+import { hostname } from 'node:os';
+import type { DataSource } from 'typeorm';
+import type { CrossCheck } from '@millrace/contracts';
+import { findPlan, loadPlanInputs, loadPlanMps, setSolveStatus, storeCrossCheck, storeSolveOutcome } from '../plans/plans.repository';
+import type { ComputeProgress } from './compute-plan';
+import { chooseCrossCheckSolver, defaultCrossCheckSettings, type CrossCheckSettings } from './cross-check-plan';
+import { runInWorker, type RunningWorker } from './run-in-worker';
+import { cancelRequested, claimNextJob, enqueueJob, finishJob, writeProgress, type ClaimedJob } from './solve-jobs.repository';
+import { readMps } from '@millrace/lp-core';
+
+export interface SolverJobRunnerSettings {
+  /** how often an idle runner looks for queued jobs (ms) */
+  pollMs: number;
+  /** progress is written to the job row at most this often (ms) */
+  progressWriteMs: number;
+  /** a running job whose heartbeat is older than this is taken over (ms) */
+  staleMs: number;
+  crossCheck: CrossCheckSettings;
+}
+
+export const defaultSolverJobRunnerSettings: SolverJobRunnerSettings = {
+  pollMs: 500,
+  progressWriteMs: 250,
+  staleMs: 120_000,
+  crossCheck: defaultCrossCheckSettings,
+};
+
+/**
+ * Claims solver jobs from the `solve_job` table and runs each in a worker thread: the plan solve
+ * (progress written at a throttled rate, cancellable) and, after it, the background cross-check.
+ * One job at a time per process; several API processes share the queue.
+ */
+export class SolverJobRunner {
+  private readonly settings: SolverJobRunnerSettings;
+  private readonly workerId = `${hostname()}:${process.pid}:${Math.random().toString(36).slice(2, 8)}`;
+  private timer: NodeJS.Timeout | null = null;
+  private current: Promise<void> | null = null;
+  private stopped = true;
+
+  constructor(
+    private readonly ds: DataSource,
+    settings: Partial<SolverJobRunnerSettings> = {},
+  ) {
+    this.settings = { ...defaultSolverJobRunnerSettings, ...settings };
+  }
+
+  start(): void {
+    if (!this.stopped) return;
+    this.stopped = false;
+    this.schedule(0);
+  }
+
+  /** Stops claiming; waits for the job in hand to end. */
+  async stop(): Promise<void> {
+    this.stopped = true;
+    if (this.timer) clearTimeout(this.timer);
+    this.timer = null;
+    await this.current;
+  }
+
+  private schedule(delay: number): void {
+    if (this.stopped) return;
+    this.timer = setTimeout(() => {
+      this.current = this.claimAndRun()
+        .then((ran) => ran)
+        .catch((err: unknown) => {
+          console.error('solver jobs: a round failed:', err instanceof Error ? err.message : err);
+          return false;
+        })
+        .then((ran) => {
+          this.current = null;
+          this.schedule(ran ? 0 : this.settings.pollMs);
+        });
+    }, delay);
+  }
+
+  /** Claims and runs one job; false when the queue was empty. */
+  async claimAndRun(): Promise<boolean> {
+    const job = await claimNextJob(this.ds, this.workerId, this.settings.staleMs);
+    if (!job) return false;
+    try {
+      if (job.kind === 'solve') await this.runSolve(job);
+      else await this.runCrossCheck(job);
+    } catch (err) {
+      const message = err instanceof Error ? err.message : String(err);
+      console.error(`solver jobs: job ${job.id} (${job.kind}, plan ${job.planId}) failed:`, message);
+      await this.ds.transaction(async (db) => {
+        await finishJob(db, job.id, 'failed', message);
+        if (job.kind === 'solve') await setSolveStatus(db, job.planId, 'failed', `The solve failed: ${message}`);
+        else await storeCrossCheck(db, job.planId, notFinished(job, message));
+      });
+    }
+    return true;
+  }
+
+  private async runSolve(job: ClaimedJob): Promise<void> {
+    const plan = await findPlan(this.ds.manager, job.planId);
+    const data = await loadPlanInputs(this.ds.manager, job.planId);
+    if (!plan || !data) return finishJob(this.ds.manager, job.id, 'failed', 'The plan version no longer exists.');
+    await setSolveStatus(this.ds.manager, job.planId, 'solving');
+    const started = performance.now();
+    const worker = runInWorker(
+      {
+        kind: 'solve',
+        request: { planId: plan.id, data, horizonWeeks: plan.horizonWeeks, smoothing: plan.smoothing, wholeUnits: plan.wholeUnits },
+      },
+      this.progressWriter(job, () => worker, started),
+    );
+    const watch = this.watchCancel(job, worker);
+    try {
+      const reply = await worker.done;
+      if (reply.type === 'error') throw new Error(reply.message);
+      if (reply.type !== 'solved') throw new Error('The solver thread answered with the wrong kind of result.');
+      const outcome = reply.outcome;
+      if (outcome.kind === 'cancelled') {
+        await this.ds.transaction(async (db) => {
+          await finishJob(db, job.id, 'cancelled', 'Cancelled on request.');
+          await setSolveStatus(db, job.planId, 'cancelled', 'The solve was cancelled before it finished.');
+        });
+        return;
+      }
+      const record = outcome.record;
+      const checkable = record.solveStatus === 'solved' || record.solveStatus === 'check_failed';
+      const crossCheck: CrossCheck | null =
+        checkable && record.mps
+          ? {
+              solver: chooseCrossCheckSolver(readMps(record.mps)),
+              status: 'running',
+              objective: null,
+              planObjective: record.objective,
+              relativeDifference: null,
+              seconds: null,
+              message: 'The cross-check is waiting for a worker.',
+            }
+          : null;
+      await this.ds.transaction(async (db) => {
+        await storeSolveOutcome(db, job.planId, { ...record, crossCheck });
+        await finishJob(db, job.id, 'finished', record.message);
+        await db.query('UPDATE solve_job SET elapsed_seconds = ? WHERE id = ?', [(performance.now() - started) / 1000, job.id]);
+        if (crossCheck) await enqueueJob(db, job.planId, 'cross_check');
+      });
+    } finally {
+      clearInterval(watch);
+    }
+  }
+
+  private async runCrossCheck(job: ClaimedJob): Promise<void> {
+    const plan = await findPlan(this.ds.manager, job.planId);
+    const mps = await loadPlanMps(this.ds.manager, job.planId);
+    if (!plan || !mps || plan.objective === null) {
+      return finishJob(this.ds.manager, job.id, 'failed', 'The plan has no solved model to check.');
+    }
+    const worker = runInWorker({ kind: 'cross_check', request: { mps, planObjective: plan.objective }, settings: this.settings.crossCheck }, () => {});
+    const heartbeat = setInterval(() => {
+      void writeProgress(this.ds, job.id, { iteration: 0, relativeGap: null, primalObjective: null, elapsedSeconds: 0 }).catch(() => {});
+    }, Math.min(30_000, this.settings.staleMs / 4));
+    try {
+      const reply = await worker.done;
+      if (reply.type === 'error') throw new Error(reply.message);
+      if (reply.type !== 'cross_checked') throw new Error('The cross-check thread answered with the wrong kind of result.');
+      await this.ds.transaction(async (db) => {
+        // A newer solve may have replaced the plan's results meanwhile: only record a check of the current model.
+        const current = await findPlan(db, job.planId, 'lock');
+        if (current && current.objective === plan.objective) await storeCrossCheck(db, job.planId, reply.crossCheck);
+        await finishJob(db, job.id, 'finished', reply.crossCheck.message);
+      });
+    } finally {
+      clearInterval(heartbeat);
+    }
+  }
+
+  /** Writes progress to the job row at most every `progressWriteMs`; stops the worker when a cancel was asked. */
+  private progressWriter(job: ClaimedJob, worker: () => RunningWorker, started: number): (p: ComputeProgress) => void {
+    let lastWrite = 0;
+    let writing = false;
+    return (p) => {
+      const now = performance.now();
+      if (writing || now - lastWrite < this.settings.progressWriteMs) return;
+      lastWrite = now;
+      writing = true;
+      writeProgress(this.ds, job.id, {
+        iteration: p.iteration,
+        relativeGap: p.relativeGap,
+        primalObjective: p.primalObjective,
+        elapsedSeconds: (now - started) / 1000,
+      })
+        .then((answer) => {
+          if (answer === 'cancel_requested') worker().stop();
+        })
+        .catch((err: unknown) => console.error('solver jobs: progress not written:', err instanceof Error ? err.message : err))
+        .finally(() => {
+          writing = false;
+        });
+    };
+  }
+
+  /** Polls the cancel flag while the worker runs (also between progress reports) and keeps the heartbeat. */
+  private watchCancel(job: ClaimedJob, worker: RunningWorker): NodeJS.Timeout {
+    return setInterval(() => {
+      cancelRequested(this.ds, job.id)
+        .then((asked) => {
+          if (asked) worker.stop();
+          return this.ds.query('UPDATE solve_job SET heartbeat_at = ? WHERE id = ?', [new Date(), job.id]);
+        })
+        .catch(() => {});
+    }, Math.max(200, this.settings.progressWriteMs));
+  }
+}
+
+function notFinished(job: ClaimedJob, message: string): CrossCheck {
+  return {
+    solver: 'highs',
+    status: 'not_finished',
+    objective: null,
+    planObjective: null,
+    relativeDifference: null,
+    seconds: null,
+    message: `The cross-check could not finish: ${message}`,
+  };
+}
