@@ -1,0 +1,20 @@
+/**
+ * The Newton system of every interior-point iteration, behind one small interface so the
+ * linear algebra can be swapped:
+ *
+ *   ⎡ Q + D   −Âᵀ ⎤ ⎡dv⎤   ⎡ r̂ ⎤
+ *   ⎣   Â      0  ⎦ ⎣dy⎦ = ⎣ rp ⎦ ,     Â = [A  −I],
+ *
+ * D the barrier diagonal (plus primal regularisation); D_j = +Infinity marks a fixed variable
+ * (dv_j = 0).
+ */
+export type KktStatus = 'factorised' | 'numerical_trouble';
+
+export interface KktSolver {
+  /** nonzeros of the factor L */
+  readonly nnzL: number;
+  /** pivots replaced by dynamic regularisation in the last factorisation */
+  readonly replacedPivots: number;
+  factorise(D: Float64Array): KktStatus;
+  solve(rhat: Float64Array, rp: Float64Array, dv: Float64Array, dy: Float64Array): void;
+}
