@@ -1,5 +1,6 @@
 import type { Server } from 'node:http';
 import { createApp } from './app';
+import { deleteExpiredSessions, sweepIntervalMs } from './auth/delete-expired-sessions';
 import { ConfigError, loadConfig } from './config';
 import { connectWithRetry } from './db/connect-with-retry';
 import { createDataSource } from './db/data-source';
@@ -25,6 +26,11 @@ function main(): void {
   void connectWithRetry(dataSource, { stopped: () => stopping }).then((outcome) => {
     if (outcome === 'connected') console.log('millrace api: database connected');
   });
+  const sweep = setInterval(() => {
+    if (!dataSource.isInitialized) return;
+    deleteExpiredSessions(dataSource).catch((err: Error) => console.warn(`millrace api: session sweep failed: ${err.message}`));
+  }, sweepIntervalMs);
+  sweep.unref();
 
   const stop = (signal: string) => {
     if (stopping) return;

@@ -181,3 +181,23 @@ describe('cross-site request protection', () => {
     expect(res.status).toBe(200);
   });
 });
+
+describe('expired sessions', () => {
+  it('when a session is past its expiry, then it no longer signs anyone in and the sweep removes it', async () => {
+    const { deleteExpiredSessions } = await import('../src/auth/delete-expired-sessions');
+    const agent = await ctx.agentFor('planner');
+    const [{ id }] = await ctx.dataSource.query(
+      'SELECT s.id FROM session s JOIN person p ON p.id = s.user_id WHERE p.email = ? ORDER BY s.expires_at DESC LIMIT 1',
+      [testPeople.planner.email],
+    );
+    await ctx.dataSource.query('UPDATE session SET expires_at = UTC_TIMESTAMP() - INTERVAL 1 MINUTE WHERE id = ?', [id]);
+    expect((await agent.get('/api/me')).status).toBe(401);
+    // lucia already deleted it on that read; an expired row written directly is swept.
+    await ctx.dataSource.query('INSERT INTO session (id, user_id, expires_at) SELECT ?, id, UTC_TIMESTAMP() - INTERVAL 1 HOUR FROM person WHERE email = ?', [
+      'expired-session-row',
+      testPeople.planner.email,
+    ]);
+    expect(await deleteExpiredSessions(ctx.dataSource)).toBeGreaterThanOrEqual(1);
+    expect(await ctx.dataSource.query('SELECT id FROM session WHERE id = ?', ['expired-session-row'])).toEqual([]);
+  });
+});
