@@ -11,6 +11,12 @@ import { errorHandler } from './http/error-handler';
 import { requireDatabase } from './http/require-database';
 import { servePlanner } from './http/serve-planner';
 import { peopleRouter } from './people/people.router';
+import { settingsRouter } from './settings/settings.router';
+import { productsRouter } from './products/products.router';
+import { workCentersRouter } from './work-centers/work-centers.router';
+import { materialsRouter } from './materials/materials.router';
+import { demandRouter } from './demand/demand.router';
+import { homeRouter } from './home/home.router';
 
 /** Largest JSON body accepted (bigger → 413 payload_too_large). */
 export const jsonBodyLimit = '1mb';
@@ -20,7 +26,7 @@ export const jsonBodyLimit = '1mb';
  * `allow(...)` or `open()` first on each route (the route-matrix test enforces it).
  * Areas append their router factory here.
  */
-const areaRouters: Array<(ctx: ApiContext) => Router> = [authRouter, peopleRouter];
+const areaRouters: Array<(ctx: ApiContext) => Router> = [authRouter, peopleRouter, settingsRouter, productsRouter, workCentersRouter, materialsRouter, demandRouter, homeRouter];
 
 /** Builds the Express app (no listen): health, DB gate, CSRF, JSON, sessions, areas, 404, errors. */
 export function createApp(ctx: AppContext): Express {

@@ -5,12 +5,14 @@ import { PersonEntity } from './entities/person.entity';
 import { SessionEntity } from './entities/session.entity';
 import { SignInAttemptEntity } from './entities/sign-in-attempt.entity';
 import { PeopleAndSessions1764633600000 } from './migrations/1764633600000-people-and-sessions';
+import { masterDataEntities } from './entities/master-data-entities';
+import { MasterData1764637200000 } from './migrations/1764637200000-master-data';
 
 /** Every entity (EntitySchema objects, no decorators). Areas append theirs here. */
-export const entities: EntitySchema<any>[] = [PersonEntity, SessionEntity, SignInAttemptEntity];
+export const entities: EntitySchema<any>[] = [PersonEntity, SessionEntity, SignInAttemptEntity, ...masterDataEntities];
 
 /** Every migration, in order. Areas append theirs here (timestamps keep the order). */
-export const migrations: MixedList<Function> = [PeopleAndSessions1764633600000];
+export const migrations: MixedList<Function> = [PeopleAndSessions1764633600000, MasterData1764637200000];
 
 /** How long a query may wait for a free pooled connection or a new connection (ms). */
 const connectTimeoutMs = 5_000;

@@ -19,7 +19,7 @@ export const CalendarWeekEntity = new EntitySchema<CalendarWeekRow>({
   columns: {
     id: { type: 'int', primary: true, generated: 'increment' },
     workCenterId: { name: 'work_center_id', type: 'int' },
-    weekStart: { name: 'week_start', type: 'date', utc: true },
+    weekStart: { name: 'week_start', type: 'date' },
     holidayDays: { name: 'holiday_days', type: 'tinyint' },
     downtimeHours: { name: 'downtime_hours', type: 'decimal', precision: 12, scale: 4, transformer: decimalAsNumber },
     extraShifts: { name: 'extra_shifts', type: 'tinyint' },

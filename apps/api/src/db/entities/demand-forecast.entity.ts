@@ -18,7 +18,7 @@ export const DemandForecastEntity = new EntitySchema<DemandForecastRow>({
   columns: {
     id: { type: 'int', primary: true, generated: 'increment' },
     productId: { name: 'product_id', type: 'int' },
-    weekStart: { name: 'week_start', type: 'date', utc: true },
+    weekStart: { name: 'week_start', type: 'date' },
     qty: { type: 'decimal', precision: 14, scale: 4, transformer: decimalAsNumber },
     version: { type: 'int', default: 1 },
     createdAt: { name: 'created_at', type: 'datetime', precision: 3 },

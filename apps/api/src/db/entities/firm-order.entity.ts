@@ -19,7 +19,7 @@ export const FirmOrderEntity = new EntitySchema<FirmOrderRow>({
   columns: {
     id: { type: 'int', primary: true, generated: 'increment' },
     productId: { name: 'product_id', type: 'int' },
-    weekStart: { name: 'week_start', type: 'date', utc: true },
+    weekStart: { name: 'week_start', type: 'date' },
     orderRef: { name: 'order_ref', type: 'varchar', length: 60 },
     qty: { type: 'decimal', precision: 14, scale: 4, transformer: decimalAsNumber },
     version: { type: 'int', default: 1 },

@@ -16,7 +16,7 @@ export const ScheduledReceiptEntity = new EntitySchema<ScheduledReceiptRow>({
   columns: {
     id: { type: 'int', primary: true, generated: 'increment' },
     materialId: { name: 'material_id', type: 'int' },
-    weekStart: { name: 'week_start', type: 'date', utc: true },
+    weekStart: { name: 'week_start', type: 'date' },
     qty: { type: 'decimal', precision: 14, scale: 4, transformer: decimalAsNumber },
     reference: { type: 'varchar', length: 60, nullable: true },
   },

@@ -1,0 +1,12 @@
+import type { DataSource } from 'typeorm';
+import type { Material, MaterialCreate } from '@millrace/contracts';
+import { codeTaken } from '../master-data/conflict-messages';
+import { findMaterialByCode, insertMaterial } from './materials.repository';
+
+/** A planner adds a material: its code must be free. */
+export async function createMaterial(dataSource: DataSource, input: MaterialCreate): Promise<Material> {
+  return dataSource.transaction(async (db) => {
+    if (await findMaterialByCode(db, input.code)) throw codeTaken('material', input.code);
+    return insertMaterial(db, input);
+  });
+}

@@ -1,0 +1,106 @@
+import type { EntityManager } from 'typeorm';
+import type { Material, MaterialCreate, MaterialListQuery, MaterialUpdate, Page, ScheduledReceipt, ScheduledReceiptInput } from '@millrace/contracts';
+import { MaterialEntity, type MaterialRow } from '../db/entities/material.entity';
+import { ScheduledReceiptEntity } from '../db/entities/scheduled-receipt.entity';
+import { pageFrom } from '../master-data/list-query';
+import { definedOnly, updateIfVersion, type VersionedWrite } from '../master-data/versioned-update';
+
+export function toMaterial(row: MaterialRow): Material {
+  return {
+    id: row.id,
+    code: row.code,
+    name: row.name,
+    unit: row.unit,
+    unitCost: row.unitCost,
+    onHand: row.onHand,
+    leadTimeWeeks: row.leadTimeWeeks,
+    weeklySupplyCap: row.weeklySupplyCap,
+    lotRule: row.lotRule,
+    lotSize: row.lotSize,
+    version: row.version,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+const sortColumns = {
+  code: 't.code',
+  name: 't.name',
+  unitCost: 't.unitCost',
+  onHand: 't.onHand',
+  leadTimeWeeks: 't.leadTimeWeeks',
+  updatedAt: 't.updatedAt',
+} as const;
+
+export async function listMaterials(db: EntityManager, query: MaterialListQuery): Promise<Page<Material>> {
+  const qb = db.getRepository(MaterialEntity).createQueryBuilder('t');
+  if (query.lotRule) qb.andWhere('t.lotRule = :lotRule', { lotRule: query.lotRule });
+  return pageFrom(qb, query, sortColumns, toMaterial);
+}
+
+export async function listAllMaterials(db: EntityManager): Promise<Material[]> {
+  return (await db.getRepository(MaterialEntity).find({ order: { code: 'ASC' } })).map(toMaterial);
+}
+
+export async function findMaterialById(db: EntityManager, id: number): Promise<Material | null> {
+  const row = await db.getRepository(MaterialEntity).findOneBy({ id });
+  return row ? toMaterial(row) : null;
+}
+
+export async function findMaterialByCode(db: EntityManager, code: string): Promise<Material | null> {
+  const row = await db.getRepository(MaterialEntity).findOneBy({ code });
+  return row ? toMaterial(row) : null;
+}
+
+export async function findMaterialsByIds(db: EntityManager, ids: number[]): Promise<Map<number, Material>> {
+  if (ids.length === 0) return new Map();
+  const rows = await db.getRepository(MaterialEntity).createQueryBuilder('t').where('t.id IN (:...ids)', { ids }).getMany();
+  return new Map(rows.map((r) => [r.id, toMaterial(r)]));
+}
+
+export async function insertMaterial(db: EntityManager, input: MaterialCreate): Promise<Material> {
+  const now = new Date();
+  const repo = db.getRepository(MaterialEntity);
+  const saved = await repo.save(repo.create({ ...input, version: 1, createdAt: now, updatedAt: now }));
+  return toMaterial(await repo.findOneByOrFail({ id: saved.id }));
+}
+
+export async function updateMaterialIfVersion(db: EntityManager, id: number, input: MaterialUpdate): Promise<VersionedWrite> {
+  const { version, ...changes } = input;
+  return updateIfVersion(db, MaterialEntity, id, version, definedOnly(changes));
+}
+
+export async function touchMaterialIfVersion(db: EntityManager, id: number, version: number): Promise<VersionedWrite> {
+  return updateIfVersion(db, MaterialEntity, id, version, {});
+}
+
+export async function deleteMaterialRow(db: EntityManager, id: number): Promise<void> {
+  await db.getRepository(MaterialEntity).delete({ id });
+}
+
+/** Codes of the products whose bill of materials uses the material. */
+export async function materialReferrers(db: EntityManager, id: number): Promise<string[]> {
+  const rows = (await db.query(
+    `SELECT DISTINCT p.code FROM bom_line b JOIN product p ON p.id = b.parent_product_id WHERE b.material_id = ? ORDER BY p.code`,
+    [id],
+  )) as Array<{ code: string }>;
+  return rows.map((r) => r.code);
+}
+
+export async function listReceipts(db: EntityManager, materialId: number): Promise<ScheduledReceipt[]> {
+  const rows = await db.getRepository(ScheduledReceiptEntity).find({ where: { materialId }, order: { weekStart: 'ASC', id: 'ASC' } });
+  return rows.map((r) => ({ id: r.id, weekStart: r.weekStart, qty: r.qty, reference: r.reference }));
+}
+
+/** Every scheduled receipt (planning data). */
+export async function listAllReceipts(db: EntityManager): Promise<Array<ScheduledReceipt & { materialId: number }>> {
+  const rows = await db.getRepository(ScheduledReceiptEntity).find({ order: { weekStart: 'ASC', id: 'ASC' } });
+  return rows.map((r) => ({ id: r.id, materialId: r.materialId, weekStart: r.weekStart, qty: r.qty, reference: r.reference }));
+}
+
+export async function replaceReceipts(db: EntityManager, materialId: number, receipts: ScheduledReceiptInput[]): Promise<void> {
+  const repo = db.getRepository(ScheduledReceiptEntity);
+  await repo.delete({ materialId });
+  if (receipts.length === 0) return;
+  await repo.insert(receipts.map((r) => ({ materialId, weekStart: r.weekStart, qty: r.qty, reference: r.reference })));
+}

@@ -1,0 +1,102 @@
+import type { EntityManager } from 'typeorm';
+import type { Page, Product, ProductCreate, ProductListQuery, ProductUpdate } from '@millrace/contracts';
+import { ProductEntity, type ProductRow } from '../db/entities/product.entity';
+import { pageFrom } from '../master-data/list-query';
+import { updateIfVersion, definedOnly, type VersionedWrite } from '../master-data/versioned-update';
+
+export function toProduct(row: ProductRow): Product {
+  return {
+    id: row.id,
+    code: row.code,
+    name: row.name,
+    unit: row.unit,
+    kind: row.kind,
+    price: row.price,
+    holdingCostRatePct: row.holdingCostRatePct,
+    safetyStock: row.safetyStock,
+    batchMultiple: row.batchMultiple,
+    openingStock: row.openingStock,
+    latePenalty: row.latePenalty,
+    family: row.family,
+    active: Boolean(row.active),
+    version: row.version,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+const sortColumns = {
+  code: 't.code',
+  name: 't.name',
+  kind: 't.kind',
+  family: 't.family',
+  price: 't.price',
+  updatedAt: 't.updatedAt',
+} as const;
+
+export async function listProducts(db: EntityManager, query: ProductListQuery): Promise<Page<Product>> {
+  const qb = db.getRepository(ProductEntity).createQueryBuilder('t');
+  if (query.kind) qb.andWhere('t.kind = :kind', { kind: query.kind });
+  if (query.family) qb.andWhere('t.family = :family', { family: query.family });
+  if (query.active !== undefined) qb.andWhere('t.active = :active', { active: query.active });
+  return pageFrom(qb, query, sortColumns, toProduct);
+}
+
+export async function findProductById(db: EntityManager, id: number): Promise<Product | null> {
+  const row = await db.getRepository(ProductEntity).findOneBy({ id });
+  return row ? toProduct(row) : null;
+}
+
+export async function findProductByCode(db: EntityManager, code: string): Promise<Product | null> {
+  const row = await db.getRepository(ProductEntity).findOneBy({ code });
+  return row ? toProduct(row) : null;
+}
+
+/** Products by id (for reference checks); missing ids are simply absent from the map. */
+export async function findProductsByIds(db: EntityManager, ids: number[]): Promise<Map<number, Product>> {
+  if (ids.length === 0) return new Map();
+  const rows = await db.getRepository(ProductEntity).createQueryBuilder('t').where('t.id IN (:...ids)', { ids }).getMany();
+  return new Map(rows.map((r) => [r.id, toProduct(r)]));
+}
+
+export async function insertProduct(db: EntityManager, input: ProductCreate): Promise<Product> {
+  const now = new Date();
+  const repo = db.getRepository(ProductEntity);
+  const saved = await repo.save(repo.create({ ...input, version: 1, createdAt: now, updatedAt: now }));
+  return toProduct(await repo.findOneByOrFail({ id: saved.id }));
+}
+
+export async function updateProductIfVersion(db: EntityManager, id: number, input: ProductUpdate): Promise<VersionedWrite> {
+  const { version, ...changes } = input;
+  return updateIfVersion(db, ProductEntity, id, version, definedOnly(changes));
+}
+
+/** Bumps the version (a BOM or routing save counts as a change of the product). */
+export async function touchProductIfVersion(db: EntityManager, id: number, version: number): Promise<VersionedWrite> {
+  return updateIfVersion(db, ProductEntity, id, version, {});
+}
+
+export async function deleteProductRow(db: EntityManager, id: number): Promise<void> {
+  await db.getRepository(ProductEntity).delete({ id });
+}
+
+/** What still points at a product from elsewhere: parents whose BOM uses it, and its demand. */
+export async function productReferrers(db: EntityManager, id: number): Promise<{ parents: string[]; firmOrders: number; forecasts: number }> {
+  const parents = (await db.query(
+    `SELECT DISTINCT p.code FROM bom_line b JOIN product p ON p.id = b.parent_product_id
+      WHERE b.component_product_id = ? ORDER BY p.code`,
+    [id],
+  )) as Array<{ code: string }>;
+  const [counts] = (await db.query(
+    `SELECT (SELECT COUNT(*) FROM firm_order WHERE product_id = ? AND qty > 0) AS firm,
+            (SELECT COUNT(*) FROM demand_forecast WHERE product_id = ? AND qty > 0) AS forecast`,
+    [id, id],
+  )) as Array<{ firm: string | number; forecast: string | number }>;
+  return { parents: parents.map((p) => p.code), firmOrders: Number(counts.firm), forecasts: Number(counts.forecast) };
+}
+
+/** Removes the zero-quantity demand rows of a product (they hold nothing worth keeping). */
+export async function deleteEmptyDemand(db: EntityManager, id: number): Promise<void> {
+  await db.query('DELETE FROM firm_order WHERE product_id = ? AND qty = 0', [id]);
+  await db.query('DELETE FROM demand_forecast WHERE product_id = ? AND qty = 0', [id]);
+}

@@ -1,0 +1,114 @@
+import type { EntityManager } from 'typeorm';
+import type { CalendarWeek, CalendarWeekInput, Page, WorkCenter, WorkCenterCreate, WorkCenterListQuery, WorkCenterUpdate } from '@millrace/contracts';
+import { CalendarWeekEntity } from '../db/entities/calendar-week.entity';
+import { WorkCenterEntity, type WorkCenterRow } from '../db/entities/work-center.entity';
+import { pageFrom } from '../master-data/list-query';
+import { definedOnly, updateIfVersion, type VersionedWrite } from '../master-data/versioned-update';
+
+export function toWorkCenter(row: WorkCenterRow): WorkCenter {
+  return {
+    id: row.id,
+    code: row.code,
+    name: row.name,
+    efficiency: row.efficiency,
+    overtimeCapHoursPerWeek: row.overtimeCapHoursPerWeek,
+    overtimeCostPerHour: row.overtimeCostPerHour,
+    shiftPattern: {
+      shiftsPerDay: row.shiftsPerDay,
+      hoursPerShift: row.hoursPerShift,
+      daysPerWeek: row.daysPerWeek,
+      shiftStarts: row.shiftStarts,
+    },
+    version: row.version,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+const sortColumns = { code: 't.code', name: 't.name', efficiency: 't.efficiency', updatedAt: 't.updatedAt' } as const;
+
+export async function listWorkCenters(db: EntityManager, query: WorkCenterListQuery): Promise<Page<WorkCenter>> {
+  return pageFrom(db.getRepository(WorkCenterEntity).createQueryBuilder('t'), query, sortColumns, toWorkCenter);
+}
+
+/** Every work center, by code (planning data and the home page). */
+export async function listAllWorkCenters(db: EntityManager): Promise<WorkCenter[]> {
+  return (await db.getRepository(WorkCenterEntity).find({ order: { code: 'ASC' } })).map(toWorkCenter);
+}
+
+export async function findWorkCenterById(db: EntityManager, id: number): Promise<WorkCenter | null> {
+  const row = await db.getRepository(WorkCenterEntity).findOneBy({ id });
+  return row ? toWorkCenter(row) : null;
+}
+
+export async function findWorkCenterByCode(db: EntityManager, code: string): Promise<WorkCenter | null> {
+  const row = await db.getRepository(WorkCenterEntity).findOneBy({ code });
+  return row ? toWorkCenter(row) : null;
+}
+
+export async function findWorkCentersByIds(db: EntityManager, ids: number[]): Promise<Map<number, WorkCenter>> {
+  if (ids.length === 0) return new Map();
+  const rows = await db.getRepository(WorkCenterEntity).createQueryBuilder('t').where('t.id IN (:...ids)', { ids }).getMany();
+  return new Map(rows.map((r) => [r.id, toWorkCenter(r)]));
+}
+
+function patternColumns(p: WorkCenterCreate['shiftPattern']) {
+  return { shiftsPerDay: p.shiftsPerDay, hoursPerShift: p.hoursPerShift, daysPerWeek: p.daysPerWeek, shiftStarts: p.shiftStarts };
+}
+
+export async function insertWorkCenter(db: EntityManager, input: WorkCenterCreate): Promise<WorkCenter> {
+  const now = new Date();
+  const repo = db.getRepository(WorkCenterEntity);
+  const { shiftPattern, ...rest } = input;
+  const saved = await repo.save(repo.create({ ...rest, ...patternColumns(shiftPattern), version: 1, createdAt: now, updatedAt: now }));
+  return toWorkCenter(await repo.findOneByOrFail({ id: saved.id }));
+}
+
+export async function updateWorkCenterIfVersion(db: EntityManager, id: number, input: WorkCenterUpdate): Promise<VersionedWrite> {
+  const { version, shiftPattern, ...rest } = input;
+  const pattern = shiftPattern ? patternColumns(shiftPattern) : {};
+  return updateIfVersion(db, WorkCenterEntity, id, version, { ...definedOnly(rest), ...pattern });
+}
+
+export async function touchWorkCenterIfVersion(db: EntityManager, id: number, version: number): Promise<VersionedWrite> {
+  return updateIfVersion(db, WorkCenterEntity, id, version, {});
+}
+
+export async function deleteWorkCenterRow(db: EntityManager, id: number): Promise<void> {
+  await db.getRepository(WorkCenterEntity).delete({ id });
+}
+
+/** Codes of the products whose routing uses the work center. */
+export async function workCenterReferrers(db: EntityManager, id: number): Promise<string[]> {
+  const rows = (await db.query(
+    `SELECT DISTINCT p.code FROM routing_step r JOIN product p ON p.id = r.product_id WHERE r.work_center_id = ? ORDER BY p.code`,
+    [id],
+  )) as Array<{ code: string }>;
+  return rows.map((r) => r.code);
+}
+
+function toCalendarWeek(r: { weekStart: string; holidayDays: number; downtimeHours: number; extraShifts: number; note: string | null }): CalendarWeek {
+  return { weekStart: r.weekStart, holidayDays: r.holidayDays, downtimeHours: r.downtimeHours, extraShifts: r.extraShifts, note: r.note };
+}
+
+export async function listCalendarWeeks(db: EntityManager, workCenterId: number): Promise<CalendarWeek[]> {
+  const rows = await db.getRepository(CalendarWeekEntity).find({ where: { workCenterId }, order: { weekStart: 'ASC' } });
+  return rows.map(toCalendarWeek);
+}
+
+/** Calendar weeks of every work center in [from, to) (planning data, home page). */
+export async function listCalendarWeeksBetween(db: EntityManager, from: string, to: string): Promise<Array<CalendarWeek & { workCenterId: number }>> {
+  const rows = await db
+    .getRepository(CalendarWeekEntity)
+    .createQueryBuilder('c')
+    .where('c.weekStart >= :from AND c.weekStart < :to', { from, to })
+    .getMany();
+  return rows.map((r) => ({ ...toCalendarWeek(r), workCenterId: r.workCenterId }));
+}
+
+export async function replaceCalendarWeeks(db: EntityManager, workCenterId: number, weeks: CalendarWeekInput[]): Promise<void> {
+  const repo = db.getRepository(CalendarWeekEntity);
+  await repo.delete({ workCenterId });
+  if (weeks.length === 0) return;
+  await repo.insert(weeks.map((w) => ({ workCenterId, ...w })));
+}
