@@ -12,6 +12,9 @@ export const navItems: readonly NavItem[] = [
   { label: 'Home', href: paths.home.getHref(), roles: ['admin', 'planner', 'supervisor', 'floor_lead'] },
   { label: 'Products', href: paths.products.getHref(), roles: rolesWith('read:master-data') },
   { label: 'Work centers', href: paths.workCenters.getHref(), roles: rolesWith('read:master-data') },
+  { label: 'Materials', href: paths.materials.getHref(), roles: rolesWith('read:master-data') },
+  { label: 'People', href: paths.people.getHref(), roles: rolesWith('manage:people') },
+  { label: 'Plant settings', href: paths.settings.getHref(), roles: rolesWith('read:settings') },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

@@ -224,6 +224,7 @@ export function FormInput({
   type = 'text',
   number,
   nullable,
+  optional,
   className,
   fieldClassName,
   ...rest
@@ -237,6 +238,8 @@ export function FormInput({
   number?: NumberMode;
   /** Empty text means null (optional text such as a note). */
   nullable?: boolean;
+  /** Empty text means "not given" (undefined), for optional fields. */
+  optional?: boolean;
   className?: string;
   fieldClassName?: string;
   step?: string;
@@ -258,7 +261,9 @@ export function FormInput({
         }
       : nullable
         ? (v: unknown) => (v === '' || v === undefined ? null : v)
-        : undefined,
+        : optional
+          ? (v: unknown) => (v === '' || v === null ? undefined : v)
+          : undefined,
   });
   return (
     <Input

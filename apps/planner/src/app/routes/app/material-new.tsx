@@ -1,0 +1,5 @@
+import { MaterialNewPage } from '@/features/materials';
+
+export default function MaterialNewRoute() {
+  return <MaterialNewPage />;
+}
