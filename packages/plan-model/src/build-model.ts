@@ -23,10 +23,11 @@ import { demandByWeek } from './demand';
  *  cap[w,t]   Σ_p hours[p,w]·make[p,t] − efficiency·overtime[w,t] ≤ available[w,t]
  *  mat[m,t]   mstock[t] − mstock[t−1] − buy[t − lead] + Σ_p use[p,m]·make[p,t] = receipts[t] (+ on hand in week 1)
  *  sup[m,t]   buy[t] ≤ weekly supply cap
- *  bkl[p,t]   late[t] − late[t−1] ≤ firm[t]  (firm shipments are never negative: backlog grows
- *             only by new firm orders, so a forecast cannot be served with a firm order's goods)
+ *  bkl[p,t]   late[t] − late[t−1] ≤ firm[t] − mustShip[t]: the week's firm shipments cover at
+ *             least its must-ship orders, and are never negative (the backlog grows only by new
+ *             ordinary orders, so a forecast is never served with a firm order's goods). In a week
+ *             with must-ship orders the row is named must[p,t]: the hard requirement.
  *  ss[p,t]    stock[t] + short[t] ≥ safety stock                         (soft floor)
- *  must[p,t]  late[t] ≤ firm demand through t that is not must-ship       (must-ship orders ship first)
  *  chg[p,t]   make[t] − make[t−1] − change[t] = 0                        (smoothing only)
  *
  * Objective: minimise −contribution margin =
@@ -185,26 +186,22 @@ export function buildModel(data: PlanningData, options: BuildOptions): BuiltMode
     }
   });
 
-  // safety stock, must-ship, smoothing
+  // backlog and must-ship, safety stock, smoothing
   data.products.forEach((p, i) => {
     const d = demand.get(p.code)!;
-    let mustShipSeen = false;
-    let cumulativeOther = 0;
     for (const t of weeks) {
       if (col.late[i][t - 1] >= 0) {
         const terms: [number, number][] = [[col.late[i][t - 1], 1]];
         if (t > 1 && col.late[i][t - 2] >= 0) terms.push([col.late[i][t - 2], -1]);
-        row.backlog[i][t - 1] = addRow('backlog', 'bkl', p.code, t, -Infinity, d.firm[t - 1], terms);
+        const ordinary = d.firm[t - 1] - d.mustShip[t - 1];
+        if (d.mustShip[t - 1] > 0) row.must_ship[i][t - 1] = addRow('must_ship', 'must', p.code, t, -Infinity, ordinary, terms);
+        else row.backlog[i][t - 1] = addRow('backlog', 'bkl', p.code, t, -Infinity, ordinary, terms);
       }
       if (col.short[i][t - 1] >= 0)
         row.safety_stock[i][t - 1] = addRow('safety_stock', 'ss', p.code, t, p.safetyStock, Infinity, [
           [col.stock[i][t - 1], 1],
           [col.short[i][t - 1], 1],
         ]);
-      cumulativeOther += d.firm[t - 1] - d.mustShip[t - 1];
-      if (d.mustShip[t - 1] > 0) mustShipSeen = true;
-      if (mustShipSeen && col.late[i][t - 1] >= 0)
-        row.must_ship[i][t - 1] = addRow('must_ship', 'must', p.code, t, -Infinity, cumulativeOther, [[col.late[i][t - 1], 1]]);
       if (col.change[i][t - 1] >= 0)
         row.smoothing[i][t - 1] = addRow('smoothing', 'chg', p.code, t, 0, 0, [
           [col.make[i][t - 1], 1],

@@ -43,15 +43,15 @@ function rowSentence(data: PlanningData, T: number, r: RowInfo): { order: number
   const mat = data.materials.find((m) => m.code === r.item);
   switch (r.kind) {
     case 'must_ship': {
-      const orders = data.demand.filter((d) => d.product === r.item && d.mustShip && d.kind === 'firm' && d.week <= r.week);
+      const orders = data.demand.filter((d) => d.product === r.item && d.mustShip && d.kind === 'firm' && d.week === r.week);
       const total = orders.reduce((a, d) => a + d.qty, 0);
       const refs = orders.map((d) => d.orderRef ?? `week ${d.week}`).join(', ');
-      return { order: 0, text: `Must-ship orders for ${product?.name ?? r.item} (${refs}; ${qty(total)} ${product?.unit ?? 'units'}) must have shipped by the end of week ${r.week}.` };
+      return { order: 0, text: `Must-ship orders for ${product?.name ?? r.item} (${refs}; ${qty(total)} ${product?.unit ?? 'units'}) must ship complete in week ${r.week}.` };
     }
     case 'capacity': {
       if (!wc) return undefined;
       const cap = overtimeCapHours(wc, r.week);
-      const ot = cap === Infinity ? 'unlimited overtime' : `at most ${qty(cap)} h overtime`;
+      const ot = cap === Infinity ? 'unlimited overtime' : cap === 0 ? 'no overtime' : `at most ${qty(cap)} h overtime`;
       return { order: 1, text: `${wc.name} in week ${r.week} has ${qty(availableHours(wc, r.week))} h of regular time and ${ot}.` };
     }
     case 'material':
@@ -65,13 +65,19 @@ function rowSentence(data: PlanningData, T: number, r: RowInfo): { order: number
       return { order: 3, text: `${mat.name} purchases are capped at ${qty(mat.weeklySupplyCap ?? 0)} ${mat.unit} in week ${r.week}.` };
     case 'balance':
       if (!product) return undefined;
-      return {
-        order: 4,
-        text: `${product.name} in week ${r.week}: stock and production must cover what ships and what parent products use.`,
-      };
+      {
+        const firm = data.demand
+          .filter((d) => d.product === r.item && d.kind === 'firm' && d.week === r.week)
+          .reduce((a, d) => a + d.qty, 0);
+        const opening = r.week === 1 ? `, with ${qty(product.openingStock)} in stock at the start` : '';
+        return {
+          order: 4,
+          text: `${product.name} in week ${r.week}: firm orders of ${qty(firm)} ${product.unit} and use in parent products must come from production and stock${opening}.`,
+        };
+      }
     case 'backlog':
       if (!product) return undefined;
-      return { order: 5, text: `${product.name} in week ${r.week}: the backlog can grow only by that week's firm orders.` };
+      return { order: 5, text: `${product.name} in week ${r.week}: the backlog can grow only by that week's new firm orders.` };
     case 'safety_stock':
     case 'smoothing':
       return undefined;

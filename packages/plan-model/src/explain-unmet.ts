@@ -87,13 +87,14 @@ function shortageCauses(
     if (binding.length === 0) continue;
     const weeks = binding.map((l) => l.week);
     const value = Math.max(...binding.map((l) => l.bottleneckValue));
-    const atCap = binding.some((l) => l.overtimeCapHours !== null && l.overtimeHours >= l.overtimeCapHours - TOLERANCES.quantity);
+    const atCap = binding.some((l) => l.overtimeCapHours !== null && l.overtimeCapHours > 0 && l.overtimeHours >= l.overtimeCapHours - TOLERANCES.quantity);
+    const noOvertime = binding.every((l) => l.overtimeCapHours === 0);
     causes.push({
       kind: 'capacity',
       item: w.code,
       weeks,
       value,
-      text: `${w.name} over-loaded ${weekRanges(weeks)} (bottleneck value ${money(value)}/h${atCap ? ', overtime at its cap' : ''})`,
+      text: `${w.name} over-loaded ${weekRanges(weeks)} (bottleneck value ${money(value)}/h${atCap ? ', overtime at its cap' : noOvertime ? ', no overtime allowed' : ''})`,
     });
   }
   for (const m of data.materials) {
