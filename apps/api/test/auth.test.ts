@@ -185,11 +185,10 @@ describe('cross-site request protection', () => {
 describe('expired sessions', () => {
   it('when a session is past its expiry, then it no longer signs anyone in and the sweep removes it', async () => {
     const { deleteExpiredSessions } = await import('../src/auth/delete-expired-sessions');
-    const agent = await ctx.agentFor('planner');
-    const [{ id }] = await ctx.dataSource.query(
-      'SELECT s.id FROM session s JOIN person p ON p.id = s.user_id WHERE p.email = ? ORDER BY s.expires_at DESC LIMIT 1',
-      [testPeople.planner.email],
-    );
+    const agent = ctx.anonymous();
+    const signIn = await agent.post('/api/auth/sign-in').send({ email: testPeople.planner.email, password: testPassword });
+    const id = sessionCookieOf(signIn)!.split(';')[0].split('=')[1];
+    expect((await agent.get('/api/me')).status).toBe(200);
     await ctx.dataSource.query('UPDATE session SET expires_at = UTC_TIMESTAMP() - INTERVAL 1 MINUTE WHERE id = ?', [id]);
     expect((await agent.get('/api/me')).status).toBe(401);
     // lucia already deleted it on that read; an expired row written directly is swept.
