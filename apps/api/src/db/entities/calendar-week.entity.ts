@@ -11,6 +11,7 @@ export interface CalendarWeekRow {
   downtimeHours: number;
   extraShifts: number;
   note: string | null;
+  workCenter?: unknown;
 }
 
 export const CalendarWeekEntity = new EntitySchema<CalendarWeekRow>({
@@ -20,9 +21,19 @@ export const CalendarWeekEntity = new EntitySchema<CalendarWeekRow>({
     id: { type: 'int', primary: true, generated: 'increment' },
     workCenterId: { name: 'work_center_id', type: 'int' },
     weekStart: { name: 'week_start', type: 'date' },
-    holidayDays: { name: 'holiday_days', type: 'tinyint' },
-    downtimeHours: { name: 'downtime_hours', type: 'decimal', precision: 12, scale: 4, transformer: decimalAsNumber },
-    extraShifts: { name: 'extra_shifts', type: 'tinyint' },
+    holidayDays: { name: 'holiday_days', type: 'tinyint', default: 0 },
+    downtimeHours: { name: 'downtime_hours', type: 'decimal', precision: 12, scale: 4, default: 0, transformer: decimalAsNumber },
+    extraShifts: { name: 'extra_shifts', type: 'tinyint', default: 0 },
     note: { type: 'varchar', length: 200, nullable: true },
   },
+  relations: {
+    workCenter: {
+      type: 'many-to-one',
+      target: 'WorkCenter',
+      joinColumn: { name: 'work_center_id', foreignKeyConstraintName: 'fk_work_center_week_wc' },
+      onDelete: 'CASCADE',
+      onUpdate: 'RESTRICT',
+    },
+  },
+  indices: [{ name: 'uq_work_center_week', columns: ['workCenterId', 'weekStart'], unique: true }],
 });

@@ -10,6 +10,7 @@ export interface DemandForecastRow {
   version: number;
   createdAt: Date;
   updatedAt: Date;
+  product?: unknown;
 }
 
 export const DemandForecastEntity = new EntitySchema<DemandForecastRow>({
@@ -24,4 +25,17 @@ export const DemandForecastEntity = new EntitySchema<DemandForecastRow>({
     createdAt: { name: 'created_at', type: 'datetime', precision: 3 },
     updatedAt: { name: 'updated_at', type: 'datetime', precision: 3 },
   },
+  relations: {
+    product: {
+      type: 'many-to-one',
+      target: 'Product',
+      joinColumn: { name: 'product_id', foreignKeyConstraintName: 'fk_demand_forecast_product' },
+      onDelete: 'RESTRICT',
+      onUpdate: 'RESTRICT',
+    },
+  },
+  indices: [
+    { name: 'uq_demand_forecast', columns: ['productId', 'weekStart'], unique: true },
+    { name: 'ix_demand_forecast_week', columns: ['weekStart'] },
+  ],
 });

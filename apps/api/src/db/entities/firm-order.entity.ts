@@ -11,6 +11,7 @@ export interface FirmOrderRow {
   version: number;
   createdAt: Date;
   updatedAt: Date;
+  product?: unknown;
 }
 
 export const FirmOrderEntity = new EntitySchema<FirmOrderRow>({
@@ -26,4 +27,17 @@ export const FirmOrderEntity = new EntitySchema<FirmOrderRow>({
     createdAt: { name: 'created_at', type: 'datetime', precision: 3 },
     updatedAt: { name: 'updated_at', type: 'datetime', precision: 3 },
   },
+  relations: {
+    product: {
+      type: 'many-to-one',
+      target: 'Product',
+      joinColumn: { name: 'product_id', foreignKeyConstraintName: 'fk_firm_order_product' },
+      onDelete: 'RESTRICT',
+      onUpdate: 'RESTRICT',
+    },
+  },
+  indices: [
+    { name: 'uq_firm_order', columns: ['productId', 'weekStart', 'orderRef'], unique: true },
+    { name: 'ix_firm_order_week', columns: ['weekStart'] },
+  ],
 });

@@ -24,7 +24,7 @@ export const MaterialEntity = new EntitySchema<MaterialRow>({
   tableName: 'material',
   columns: {
     id: { type: 'int', primary: true, generated: 'increment' },
-    code: { type: 'varchar', length: 40, unique: true },
+    code: { type: 'varchar', length: 40 },
     name: { type: 'varchar', length: 120 },
     unit: { type: 'varchar', length: 16 },
     unitCost: { name: 'unit_cost', type: 'decimal', precision: 14, scale: 4, transformer: decimalAsNumber },
@@ -37,4 +37,8 @@ export const MaterialEntity = new EntitySchema<MaterialRow>({
     createdAt: { name: 'created_at', type: 'datetime', precision: 3 },
     updatedAt: { name: 'updated_at', type: 'datetime', precision: 3 },
   },
+  indices: [
+    { name: 'uq_material_code', columns: ['code'], unique: true },
+    { name: 'ix_material_name', columns: ['name'] },
+  ],
 });

@@ -30,7 +30,7 @@ export const ProductEntity = new EntitySchema<ProductRow>({
   tableName: 'product',
   columns: {
     id: { type: 'int', primary: true, generated: 'increment' },
-    code: { type: 'varchar', length: 40, unique: true },
+    code: { type: 'varchar', length: 40 },
     name: { type: 'varchar', length: 120 },
     unit: { type: 'varchar', length: 16 },
     kind: { type: 'varchar', length: 12 },
@@ -41,9 +41,15 @@ export const ProductEntity = new EntitySchema<ProductRow>({
     openingStock: decimal('opening_stock'),
     latePenalty: decimal('late_penalty'),
     family: { type: 'varchar', length: 40, nullable: true },
-    active: { type: 'boolean', default: true },
+    active: { type: 'boolean', width: 1, default: true },
     version: { type: 'int', default: 1 },
     createdAt: { name: 'created_at', type: 'datetime', precision: 3 },
     updatedAt: { name: 'updated_at', type: 'datetime', precision: 3 },
   },
+  indices: [
+    { name: 'uq_product_code', columns: ['code'], unique: true },
+    { name: 'ix_product_name', columns: ['name'] },
+    { name: 'ix_product_family', columns: ['family'] },
+    { name: 'ix_product_kind', columns: ['kind'] },
+  ],
 });

@@ -9,6 +9,8 @@ export interface RoutingStepRow {
   workCenterId: number;
   hoursPerUnit: number;
   setupHours: number;
+  product?: unknown;
+  workCenter?: unknown;
 }
 
 export const RoutingStepEntity = new EntitySchema<RoutingStepRow>({
@@ -20,6 +22,26 @@ export const RoutingStepEntity = new EntitySchema<RoutingStepRow>({
     sequence: { type: 'int' },
     workCenterId: { name: 'work_center_id', type: 'int' },
     hoursPerUnit: { name: 'hours_per_unit', type: 'decimal', precision: 12, scale: 6, transformer: decimalAsNumber },
-    setupHours: { name: 'setup_hours', type: 'decimal', precision: 12, scale: 4, transformer: decimalAsNumber },
+    setupHours: { name: 'setup_hours', type: 'decimal', precision: 12, scale: 4, default: 0, transformer: decimalAsNumber },
   },
+  relations: {
+    product: {
+      type: 'many-to-one',
+      target: 'Product',
+      joinColumn: { name: 'product_id', foreignKeyConstraintName: 'fk_routing_step_product' },
+      onDelete: 'CASCADE',
+      onUpdate: 'RESTRICT',
+    },
+    workCenter: {
+      type: 'many-to-one',
+      target: 'WorkCenter',
+      joinColumn: { name: 'work_center_id', foreignKeyConstraintName: 'fk_routing_step_wc' },
+      onDelete: 'RESTRICT',
+      onUpdate: 'RESTRICT',
+    },
+  },
+  indices: [
+    { name: 'uq_routing_step', columns: ['productId', 'sequence'], unique: true },
+    { name: 'ix_routing_step_wc', columns: ['workCenterId'] },
+  ],
 });

@@ -8,6 +8,7 @@ export interface ScheduledReceiptRow {
   weekStart: string;
   qty: number;
   reference: string | null;
+  material?: unknown;
 }
 
 export const ScheduledReceiptEntity = new EntitySchema<ScheduledReceiptRow>({
@@ -20,4 +21,14 @@ export const ScheduledReceiptEntity = new EntitySchema<ScheduledReceiptRow>({
     qty: { type: 'decimal', precision: 14, scale: 4, transformer: decimalAsNumber },
     reference: { type: 'varchar', length: 60, nullable: true },
   },
+  relations: {
+    material: {
+      type: 'many-to-one',
+      target: 'Material',
+      joinColumn: { name: 'material_id', foreignKeyConstraintName: 'fk_scheduled_receipt_material' },
+      onDelete: 'CASCADE',
+      onUpdate: 'RESTRICT',
+    },
+  },
+  indices: [{ name: 'ix_scheduled_receipt_material_week', columns: ['materialId', 'weekStart'] }],
 });

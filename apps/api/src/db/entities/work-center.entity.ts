@@ -23,7 +23,7 @@ export const WorkCenterEntity = new EntitySchema<WorkCenterRow>({
   tableName: 'work_center',
   columns: {
     id: { type: 'int', primary: true, generated: 'increment' },
-    code: { type: 'varchar', length: 40, unique: true },
+    code: { type: 'varchar', length: 40 },
     name: { type: 'varchar', length: 120 },
     efficiency: { type: 'decimal', precision: 5, scale: 3, transformer: decimalAsNumber },
     overtimeCapHoursPerWeek: { name: 'overtime_cap_hours', type: 'decimal', precision: 12, scale: 4, nullable: true, transformer: decimalAsNumber },
@@ -36,4 +36,8 @@ export const WorkCenterEntity = new EntitySchema<WorkCenterRow>({
     createdAt: { name: 'created_at', type: 'datetime', precision: 3 },
     updatedAt: { name: 'updated_at', type: 'datetime', precision: 3 },
   },
+  indices: [
+    { name: 'uq_work_center_code', columns: ['code'], unique: true },
+    { name: 'ix_work_center_name', columns: ['name'] },
+  ],
 });
