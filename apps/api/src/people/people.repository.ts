@@ -81,7 +81,16 @@ export async function updatePersonIfVersion(
   return result.affected === 1 ? 'updated' : 'version_mismatch';
 }
 
-/** Counts active admins (the last one may not be demoted or deactivated). */
+/**
+ * Counts active admins (the last one may not be demoted or deactivated). Inside a transaction
+ * the rows are locked, so two admins demoting each other at once cannot both succeed.
+ */
 export async function countActiveAdmins(db: EntityManager): Promise<number> {
-  return db.getRepository(PersonEntity).countBy({ role: 'admin', active: true });
+  const locked = db.queryRunner?.isTransactionActive === true;
+  const rows = await db.getRepository(PersonEntity).find({
+    select: { id: true },
+    where: { role: 'admin', active: true },
+    ...(locked && { lock: { mode: 'pessimistic_write' as const } }),
+  });
+  return rows.length;
 }
