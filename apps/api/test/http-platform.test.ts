@@ -92,3 +92,32 @@ describe('bad input', () => {
     expect(logged).toHaveLength(1);
   });
 });
+
+describe('serving the planner', () => {
+  it('when PLANNER_DIST is set, then files are served, other non-/api GETs get index.html, and /api stays JSON', async () => {
+    const { mkdtemp, writeFile, mkdir, rm } = await import('node:fs/promises');
+    const { tmpdir } = await import('node:os');
+    const path = await import('node:path');
+    const { createApp } = await import('../src/app');
+    const dist = await mkdtemp(path.join(tmpdir(), 'millrace-planner-'));
+    try {
+      await writeFile(path.join(dist, 'index.html'), '<!doctype html><title>planner shell</title>');
+      await mkdir(path.join(dist, 'assets'));
+      await writeFile(path.join(dist, 'assets', 'app.js'), 'console.log("app")');
+      const app = createApp({ dataSource: ctx.dataSource, config: { ...ctx.config, plannerDist: dist } });
+      const root = await request(app).get('/');
+      expect(root.status).toBe(200);
+      expect(root.text).toContain('planner shell');
+      const deep = await request(app).get('/plans/3/review');
+      expect(deep.status).toBe(200);
+      expect(deep.text).toContain('planner shell');
+      const asset = await request(app).get('/assets/app.js');
+      expect(asset.text).toContain('console.log');
+      const api = await request(app).get('/api/nothing-here');
+      expect(api.status).toBe(404);
+      expect(api.body.error.code).toBe('not_found');
+    } finally {
+      await rm(dist, { recursive: true, force: true });
+    }
+  });
+});
