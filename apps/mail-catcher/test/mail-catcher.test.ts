@@ -116,6 +116,24 @@ describe('mail catcher', () => {
     expect(list.body.map((m) => m.subject)).toEqual(['before', 'after']);
   });
 
+  it('when SMTP is taken down over the read API, then sending fails while the API answers; after /smtp/up, mail arrives on the same port', async () => {
+    catcher = await startMailCatcher({ smtpPort: 0, httpPort: 0, mailDir: path.join(dir, 'g') });
+    const post = async (what: string) => (await fetch(`${catcher!.url}/smtp/${what}`, { method: 'POST' })).json();
+
+    expect(await post('down')).toEqual({ smtp: 'down' });
+    expect((await getJson<{ smtp: string }>(`${catcher.url}/health`)).body.smtp).toBe('down');
+    await expect(
+      sender(catcher.smtpPort).sendMail({ from: 'a@millrace.test', to: 'b@millrace.test', subject: 'lost', text: 'x' }),
+    ).rejects.toMatchObject({ code: 'ESOCKET' });
+
+    expect(await post('up')).toEqual({ smtp: 'up' });
+    expect(await post('up')).toEqual({ smtp: 'up' });
+    await sender(catcher.smtpPort).sendMail({ from: 'a@millrace.test', to: 'b@millrace.test', subject: 'later', text: 'x' });
+    const list = await getJson<CaughtMessageSummary[]>(`${catcher.url}/messages`);
+    expect(list.body.map((m) => m.subject)).toEqual(['later']);
+    expect((await fetch(`${catcher.url}/smtp/down`)).status).toBe(405);
+  });
+
   it('when a port is taken, then starting says which port is in use', async () => {
     catcher = await startMailCatcher({ smtpPort: 0, httpPort: 0, mailDir: path.join(dir, 'd') });
     await expect(startMailCatcher({ smtpPort: catcher.smtpPort, httpPort: 0, mailDir: path.join(dir, 'e') })).rejects.toThrow(
