@@ -200,3 +200,15 @@ describe('expired sessions', () => {
     expect(await ctx.dataSource.query('SELECT id FROM session WHERE id = ?', ['expired-session-row'])).toEqual([]);
   });
 });
+
+describe('cookie over https', () => {
+  it('when PUBLIC_URL is https, then the session cookie is also Secure', async () => {
+    const { createApp } = await import('../src/app');
+    const publicUrl = 'https://plan.millrace.test';
+    const app = createApp({ dataSource: ctx.dataSource, config: { ...ctx.config, http: { ...ctx.config.http, publicUrl } } });
+    const res = await request(app).post('/api/auth/sign-in').set('Origin', publicUrl).send({ email: testPeople.admin.email, password: testPassword });
+    expect(res.status).toBe(200);
+    expect(sessionCookieOf(res)).toMatch(/;\s*Secure/i);
+    expect(sessionCookieOf(res)).toMatch(/HttpOnly/i);
+  });
+});
