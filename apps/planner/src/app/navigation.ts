@@ -13,6 +13,7 @@ export const navItems: readonly NavItem[] = [
   { label: 'Products', href: paths.products.getHref(), roles: rolesWith('read:master-data') },
   { label: 'Work centers', href: paths.workCenters.getHref(), roles: rolesWith('read:master-data') },
   { label: 'Materials', href: paths.materials.getHref(), roles: rolesWith('read:master-data') },
+  { label: 'Demand', href: paths.demand.getHref(), roles: rolesWith('read:demand') },
   { label: 'People', href: paths.people.getHref(), roles: rolesWith('manage:people') },
   { label: 'Plant settings', href: paths.settings.getHref(), roles: rolesWith('read:settings') },
 ];

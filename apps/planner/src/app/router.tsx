@@ -67,6 +67,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
         page(paths.materials.path, rolesWith('read:master-data'), 'Materials', () => import('./routes/app/materials')),
         page(paths.materialNew.path, rolesWith('write:master-data'), 'New material', () => import('./routes/app/material-new')),
         page(paths.material.path, rolesWith('read:master-data'), 'Material', () => import('./routes/app/material')),
+        page(paths.demand.path, rolesWith('read:demand'), 'Demand', () => import('./routes/app/demand')),
         page(paths.settings.path, rolesWith('read:settings'), 'Plant settings', () => import('./routes/app/settings')),
         page(paths.people.path, rolesWith('manage:people'), 'People', () => import('./routes/app/people')),
         page('*', allRoles, 'Not found', () => import('./routes/app/not-found')),

@@ -11,11 +11,14 @@ type FieldFrameProps = {
   error?: string;
   children: (ids: { id: string; describedBy?: string; invalid: boolean }) => ReactNode;
   className?: string;
+  /** A fixed id for the control (otherwise one is generated). */
+  id?: string;
 };
 
 /** A label, the control, a hint and the error message, tied together for assistive technology. */
-export function Field({ label, hideLabel, hint, error, children, className = '' }: FieldFrameProps) {
-  const id = useId();
+export function Field({ label, hideLabel, hint, error, children, className = '', id: fixedId }: FieldFrameProps) {
+  const generatedId = useId();
+  const id = fixedId ?? generatedId;
   const hintId = hint ? `${id}-hint` : undefined;
   const errorId = error ? `${id}-error` : undefined;
   const describedBy = [hintId, errorId].filter(Boolean).join(' ') || undefined;
@@ -49,9 +52,9 @@ type InputProps = InputHTMLAttributes<HTMLInputElement> & {
   fieldClassName?: string;
 };
 
-export function Input({ label, hideLabel, hint, error, fieldClassName, className = '', ...rest }: InputProps) {
+export function Input({ label, hideLabel, hint, error, fieldClassName, className = '', id: fixedId, ...rest }: InputProps) {
   return (
-    <Field label={label} hideLabel={hideLabel} hint={hint} error={error} className={fieldClassName}>
+    <Field label={label} hideLabel={hideLabel} hint={hint} error={error} className={fieldClassName} id={fixedId}>
       {({ id, describedBy, invalid }) => (
         <input
           id={id}
@@ -79,9 +82,9 @@ type SelectProps = SelectHTMLAttributes<HTMLSelectElement> & {
   fieldClassName?: string;
 };
 
-export function Select({ label, hideLabel, hint, error, options, placeholder, fieldClassName, className = '', children, ...rest }: SelectProps) {
+export function Select({ label, hideLabel, hint, error, options, placeholder, fieldClassName, className = '', children, id: fixedId, ...rest }: SelectProps) {
   return (
-    <Field label={label} hideLabel={hideLabel} hint={hint} error={error} className={fieldClassName}>
+    <Field label={label} hideLabel={hideLabel} hint={hint} error={error} className={fieldClassName} id={fixedId}>
       {({ id, describedBy, invalid }) => (
         <select
           id={id}
@@ -107,16 +110,24 @@ type CheckboxProps = InputHTMLAttributes<HTMLInputElement> & { label: string; er
 
 export function Checkbox({ label, error, className = '', ...rest }: CheckboxProps) {
   const id = useId();
+  const errorId = `${id}-error`;
   return (
     <div className="flex flex-col gap-1">
       <div className="flex items-center gap-2">
-        <input id={id} type="checkbox" className={`h-4 w-4 accent-race-700 ${className}`} aria-invalid={error ? true : undefined} {...rest} />
+        <input
+          id={id}
+          type="checkbox"
+          className={`h-4 w-4 accent-race-700 ${className}`}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={error ? errorId : undefined}
+          {...rest}
+        />
         <label htmlFor={id} className="text-sm font-semibold">
           {label}
         </label>
       </div>
       {error ? (
-        <p className="text-sm text-fault-700">
+        <p id={errorId} className="text-sm text-fault-700">
           <span aria-hidden="true">✕ </span>
           {error}
         </p>
