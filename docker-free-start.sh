@@ -100,12 +100,12 @@ wait_for_http() {
 
 # start_mail_catcher RUN_DIR SMTP_PORT HTTP_PORT MAIL_DIR
 start_mail_catcher() {
-  local run="$1" smtp="$2" http="$3" dir="$4" pid
+  local run="$1" smtp="$2" http="$3" dir="$4" pid port
   for port in "$smtp" "$http"; do
     mr_port_in_use "$port" && die "port 127.0.0.1:$port (mail catcher) is already in use by another program."
   done
   MAIL_CATCHER_SMTP_PORT="$smtp" MAIL_CATCHER_HTTP_PORT="$http" MAIL_CATCHER_DIR="$dir" \
-    node --import tsx "$MR_REPO/apps/mail-catcher/src/main.ts" </dev/null >>"$run/mail-catcher.log" 2>&1 &
+    node --import tsx "$MAIL_MARKER" </dev/null >>"$run/mail-catcher.log" 2>&1 &
   pid=$!
   echo "$pid" >"$run/mail-catcher.pid"
   if ! wait_for_http "http://127.0.0.1:$http/health" "$pid" "mail catcher" 30; then
@@ -115,8 +115,9 @@ start_mail_catcher() {
   log "mail catcher: SMTP 127.0.0.1:$smtp, messages at http://127.0.0.1:$http/messages (pid $pid)"
 }
 
-MAIL_MARKER="apps/mail-catcher/src/main.ts"
-API_MARKER="apps/api/src/server.ts"
+# Markers that must appear in a PID's command line before we signal it.
+MAIL_MARKER="$MR_REPO/apps/mail-catcher/src/main.ts"
+API_MARKER="$MR_REPO/apps/api/src/server.ts"
 
 # ---------------------------------------------------------------------------------------------
 # start / stop / status
@@ -225,10 +226,10 @@ cmd_start() {
   start_mail_catcher "$RUN" "$smtp_port" "$mail_http_port" "$STATE/mail"
 
   log "building the planner"
-  npm run build -w apps/planner || die "the planner build failed (see above)."
+  npm run build -w apps/planner -- --logLevel warn || die "the planner build failed (see above)."
 
   log "starting the API"
-  node --import tsx apps/api/src/server.ts </dev/null &
+  node --import tsx "$API_MARKER" </dev/null &
   local api_pid=$!
   echo "$api_pid" >"$RUN/api.pid"
   if ! wait_for_http "http://127.0.0.1:$port/api/health" "$api_pid" "API" 60; then
@@ -358,7 +359,7 @@ cmd_test() {
 
   local build_failed=0
   log "building the planner"
-  if ! npm run build -w apps/planner; then
+  if ! npm run build -w apps/planner -- --logLevel warn; then
     build_failed=1
     log "the planner build FAILED; the suites still run, and the build counts as one failure"
   fi
