@@ -1,0 +1,56 @@
+import type { MaterialCreate } from '@millrace/contracts';
+
+type DemoMaterial = MaterialCreate & { receipts?: Array<{ weekOffset: number; qty: number; reference: string }> };
+
+const m = (code: string, name: string, unit: string, unitCost: number, onHand: number, leadTimeWeeks: number, extra: Partial<DemoMaterial> = {}): DemoMaterial => ({
+  code,
+  name,
+  unit,
+  unitCost,
+  onHand,
+  leadTimeWeeks,
+  weeklySupplyCap: null,
+  lotRule: 'lot_for_lot',
+  lotSize: null,
+  ...extra,
+});
+
+/** Thirty-six purchased materials (demo data): timber, boards, fittings, upholstery, finishes, packaging. */
+export const demoMaterials: DemoMaterial[] = [
+  m('LUM-OAK-27', 'Oak boards 27 mm, kiln dried', 'm2', 58, 260, 3, { weeklySupplyCap: 180, receipts: [{ weekOffset: 1, qty: 120, reference: 'PO-7731' }] }),
+  m('LUM-OAK-45', 'Oak squares 45 × 45 mm', 'm', 9.4, 900, 3, { weeklySupplyCap: 700, receipts: [{ weekOffset: 2, qty: 500, reference: 'PO-7732' }] }),
+  m('LUM-ASH-27', 'Ash boards 27 mm, kiln dried', 'm2', 44, 160, 4, { weeklySupplyCap: 120, receipts: [{ weekOffset: 1, qty: 80, reference: 'PO-7740' }] }),
+  m('LUM-ASH-45', 'Ash squares 45 × 45 mm', 'm', 7.1, 600, 4, { weeklySupplyCap: 500 }),
+  m('LUM-PINE-20', 'Pine boards 20 mm', 'm2', 17, 140, 2),
+  m('PLY-BIRCH-12', 'Birch plywood 12 mm', 'm2', 21, 90, 2, { lotRule: 'fixed_order_quantity', lotSize: 60 }),
+  m('PLY-BIRCH-18', 'Birch plywood 18 mm', 'm2', 27, 70, 2, { lotRule: 'fixed_order_quantity', lotSize: 60 }),
+  m('MDF-18', 'MDF 18 mm, moisture resistant', 'm2', 11, 120, 1, { lotRule: 'minimum_order_quantity', lotSize: 50 }),
+  m('VEN-OAK', 'Oak veneer, crown cut', 'm2', 14, 200, 5, { weeklySupplyCap: 150, receipts: [{ weekOffset: 3, qty: 150, reference: 'PO-7702' }] }),
+  m('EDG-OAK-22', 'Oak edge banding 22 mm', 'm', 0.6, 1500, 2, { lotRule: 'fixed_order_quantity', lotSize: 1000 }),
+  m('GLU-PVA', 'PVA wood glue D3', 'kg', 4.2, 80, 1),
+  m('DOW-8', 'Beech dowels 8 × 40 mm', 'pcs', 0.03, 12000, 2, { lotRule: 'fixed_order_quantity', lotSize: 10000 }),
+  m('SCR-4X40', 'Wood screws 4 × 40 mm', 'pcs', 0.02, 9000, 1, { lotRule: 'fixed_order_quantity', lotSize: 5000 }),
+  m('BRK-CORNER', 'Steel table corner brackets', 'pcs', 0.85, 400, 3),
+  m('HNG-CUP', 'Soft-close cup hinges', 'pcs', 2.3, 160, 3, { lotRule: 'minimum_order_quantity', lotSize: 100 }),
+  m('SLD-450', 'Drawer runners 450 mm (pair)', 'pair', 7.9, 80, 4, { weeklySupplyCap: 60, receipts: [{ weekOffset: 2, qty: 40, reference: 'PO-7755' }] }),
+  m('KNB-BRASS', 'Brass knobs', 'pcs', 3.4, 150, 6, { weeklySupplyCap: 80 }),
+  m('HDL-BRASS', 'Brass bar handles 160 mm', 'pcs', 5.6, 90, 6, { weeklySupplyCap: 60 }),
+  m('FTG-BED', 'Bed bolt and fitting set', 'set', 9.5, 30, 3),
+  m('SLT-BED', 'Sprung slat set 160 cm', 'set', 42, 12, 4, { weeklySupplyCap: 20, receipts: [{ weekOffset: 1, qty: 10, reference: 'PO-7760' }] }),
+  m('FOAM-40', 'Upholstery foam 40 mm', 'm2', 12, 70, 2),
+  m('FAB-WOOL', 'Wool upholstery fabric, 140 cm', 'm', 24, 110, 5, { weeklySupplyCap: 90, receipts: [{ weekOffset: 2, qty: 80, reference: 'PO-7771' }] }),
+  m('WEB-ELAST', 'Elastic webbing 50 mm', 'm', 1.1, 500, 2),
+  m('STP-UPH', 'Upholstery staples', 'pcs', 0.004, 40000, 1, { lotRule: 'fixed_order_quantity', lotSize: 20000 }),
+  m('OIL-HARD', 'Hardwax oil, satin', 'l', 31, 45, 2),
+  m('LAC-WB', 'Water-based lacquer, matt', 'l', 19, 60, 2),
+  m('STN-WAL', 'Walnut stain', 'l', 22, 15, 3),
+  m('SND-P120', 'Sanding discs P120', 'pcs', 0.35, 1200, 1),
+  m('SND-P240', 'Sanding discs P240', 'pcs', 0.38, 1000, 1),
+  m('BOX-TBL', 'Table carton set', 'pcs', 14, 40, 2, { weeklySupplyCap: 80 }),
+  m('BOX-CHR', 'Chair carton', 'pcs', 4.5, 120, 2),
+  m('BOX-SM', 'Small carton', 'pcs', 2.8, 150, 2),
+  m('WRP-FOAM', 'Foam wrap 2 mm', 'm', 0.4, 2500, 1),
+  m('FELT-PAD', 'Felt pads', 'pcs', 0.08, 3000, 1),
+  m('GLD-NYL', 'Nylon glides', 'pcs', 0.15, 2000, 2),
+  m('CAM-LOCK', 'Cam lock fittings', 'pcs', 0.45, 600, 2),
+];
