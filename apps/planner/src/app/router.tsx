@@ -7,6 +7,7 @@ import { isApiError } from '@/lib/api-client';
 import { meQueryOptions } from '@/lib/auth';
 import { rolesWith } from '@/lib/authorization';
 import { onSessionLost } from '@/lib/session-events';
+import { Loading } from '@/components/ui/loading';
 import { RouteError } from './routes/route-error';
 
 /** What a route module exports: the page, and optionally a loader factory fed the query client. */
@@ -39,11 +40,13 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
     {
       path: paths.signIn.path,
       errorElement: <RouteError />,
+      hydrateFallbackElement: <Loading label="Opening Millrace…" />,
       lazy: lazyRoute(queryClient, () => import('./routes/sign-in')),
     },
     {
       path: paths.home.path,
       errorElement: <RouteError />,
+      hydrateFallbackElement: <Loading label="Opening Millrace…" />,
       loader: async ({ request }) => {
         try {
           return await queryClient.ensureQueryData(meQueryOptions());
