@@ -23,8 +23,10 @@ export interface IpmSettings {
   scaling: boolean;
   /** Ruiz passes */
   scalingPasses: number;
-  /** primal (proximal) regularisation ρ added to the barrier diagonal */
+  /** primal (proximal) regularisation ρ added to the barrier diagonal of bounded variables */
   regPrimal: number;
+  /** the barrier diagonal of a free variable (it has no barrier term): Θ = 1 / regFree */
+  regFree: number;
   /** dual regularisation δ added to the normal-equations diagonal */
   regDual: number;
   /** relative size under which a Cholesky pivot counts as zero (then replaced, see ldl.ts) */
@@ -58,7 +60,8 @@ export const defaultIpmSettings: Readonly<IpmSettings> = Object.freeze({
   presolve: true,
   scaling: true,
   scalingPasses: 10,
-  regPrimal: 1e-10,
+  regPrimal: 1e-12,
+  regFree: 1e-8,
   regDual: 1e-10,
   pivotTolerance: 1e-30,
   stepToBoundary: 0.9995,
@@ -90,7 +93,7 @@ export function resolveSettings(partial: Partial<IpmSettings> = {}): IpmSettings
   };
   (['tolGapRel', 'tolPrimalRel', 'tolDualRel', 'tolInfeasibility', 'stepToBoundary', 'denseColumnRatio'] as const).forEach(inOpen01);
   (['maxIterations', 'scalingPasses', 'maxCorrectors', 'denseColumnMin', 'maxDenseColumns', 'refinementSteps'] as const).forEach(nonNegativeInt);
-  (['regPrimal', 'regDual', 'pivotTolerance'] as const).forEach(nonNegative);
+  (['regPrimal', 'regFree', 'regDual', 'pivotTolerance'] as const).forEach(nonNegative);
   if (typeof s.timeLimitSeconds !== 'number' || !(s.timeLimitSeconds > 0)) {
     problems.push(`timeLimitSeconds must be a positive number or Infinity, got ${String(s.timeLimitSeconds)}`);
   }

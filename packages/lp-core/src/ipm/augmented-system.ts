@@ -62,7 +62,7 @@ export class AugmentedSystem implements KktSolver {
   }
 
   get nnzL(): number {
-    return this.F.symbolic.nnzL + this.prob.n + this.prob.m;
+    return this.F.nnzL;
   }
 
   factorise(D: Float64Array): KktStatus {

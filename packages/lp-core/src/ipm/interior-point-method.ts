@@ -16,7 +16,7 @@ import type { IpmSettings } from '../settings';
 import type { IterationInfo, SolveStatus } from '../solution/result';
 import { AugmentedSystem } from './augmented-system';
 import { InfeasibilityTest } from './infeasibility';
-import { FIXED, boundKinds, hasLower, hasOffDiagonalQ, hasUpper, type IpmProblem } from './ipm-problem';
+import { FIXED, FREE, boundKinds, hasLower, hasOffDiagonalQ, hasUpper, type IpmProblem } from './ipm-problem';
 import { allocateIterate, copyIterate, type Iterate } from './iterate';
 import type { KktSolver } from './kkt-solver';
 import { NormalEquations } from './normal-equations';
@@ -163,7 +163,7 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
         D[j] = Infinity;
         continue;
       }
-      let d = settings.regPrimal;
+      let d = k === FREE ? settings.regFree : settings.regPrimal;
       if (hasLower(k)) d += it.zl[j] / (it.v[j] - lower[j]);
       if (hasUpper(k)) d += it.zu[j] / (upper[j] - it.v[j]);
       D[j] = d;

@@ -81,7 +81,7 @@ export class NormalEquations implements KktSolver {
   }
 
   get nnzL(): number {
-    return this.F.symbolic.nnzL + this.prob.m;
+    return this.F.nnzL;
   }
 
   factorise(D: Float64Array): KktStatus {
@@ -115,12 +115,12 @@ export class NormalEquations implements KktSolver {
     return 'factorised';
   }
 
-  /** out ← (A Θ_x Aᵀ + Θ_w + δ I) x, dense columns included */
+  /** out ← (A Θ_x Aᵀ + Θ_w) x, dense columns included and without the regularisation δ, so refinement removes its error */
   private multiply(x: Float64Array, out: Float64Array): void {
     const { n, m, A } = this.prob;
     const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
     const { thetaX, thetaW } = this;
-    for (let i = 0; i < m; i++) out[i] = (thetaW[i] + this.delta) * x[i];
+    for (let i = 0; i < m; i++) out[i] = thetaW[i] * x[i];
     for (let j = 0; j < n; j++) {
       const p1 = Ap[j + 1];
       let s = 0;

@@ -1,29 +1,32 @@
 /**
  * A symmetric sparse matrix M, given as a list of entries (i, j) in its original numbering,
- * factorised as P M Pᵀ = L D Lᵀ. The pattern, ordering and symbolic factor are fixed at
- * construction; afterwards a caller writes values through `slot` (entry t adds into
- * Cx[slot[t]]), calls factorise() and solves as often as needed. No allocation after the
- * constructor.
+ * factorised as P M Pᵀ = L D Lᵀ. The pattern, ordering (AMD, then an elimination-tree
+ * postorder) and symbolic factor are fixed at construction; afterwards a caller writes values
+ * through `slot` (entry t adds into Cx[slot[t]]), calls factorise() and solves as often as
+ * needed. No allocation after the constructor.
+ *
+ * Two numeric kernels: 'supernodal' (supernodal-ldl.ts, dense blocks, the fast one) and
+ * 'simplicial' (ldl.ts, up-looking as in QDLDL). Cx holds the permuted lower triangle (CSC,
+ * rows ≥ column) for the supernodal kernel and the permuted upper triangle for the simplicial one.
  */
 import { approximateMinimumDegree } from './amd';
+import { eliminationTree } from './etree';
+import { postorder } from './postorder';
 import { symbolicFactor, type SymbolicFactor } from './symbolic';
-import {
-  allocateNumericFactor,
-  factorLdl,
-  type FactorOptions,
-  type FactorReport,
-  type NumericFactor,
-} from './ldl';
+import { allocateNumericFactor, factorLdl, type FactorOptions, type FactorReport, type NumericFactor } from './ldl';
 import { ldlSolve } from './triangular';
+import { supernodalSymbolic, type SupernodalSymbolic } from './supernodal-symbolic';
+import { SupernodalLdl } from './supernodal-ldl';
 
 export type Ordering = 'amd' | 'natural';
+export type Kernel = 'supernodal' | 'simplicial';
 
 export class SymmetricFactorisation {
   readonly n: number;
+  readonly kernel: Kernel;
   /** perm[k] = original index at position k; pinv is its inverse */
   readonly perm: Int32Array;
   readonly pinv: Int32Array;
-  /** permuted upper triangle, values rewritten before each factorise() */
   readonly Cp: Int32Array;
   readonly Ci: Int32Array;
   readonly Cx: Float64Array;
@@ -31,71 +34,70 @@ export class SymmetricFactorisation {
   readonly slot: Int32Array;
   /** Cx position of each diagonal entry, by original index (−1 if absent) */
   readonly diagSlot: Int32Array;
-  readonly symbolic: SymbolicFactor;
-  readonly factor: NumericFactor;
-  private readonly work: Float64Array;
+  /** stored entries of L and the factorisation's multiply–add count */
+  readonly nnzL: number;
+  readonly flops: number;
+  private readonly simplicial: { sym: SymbolicFactor; F: NumericFactor; work: Float64Array } | null;
+  private readonly supernodal: { sym: SupernodalSymbolic; F: SupernodalLdl } | null;
   private readonly permuted: Float64Array;
 
-  constructor(n: number, rows: Int32Array, cols: Int32Array, ordering: Ordering = 'amd') {
+  constructor(n: number, rows: Int32Array, cols: Int32Array, ordering: Ordering = 'amd', kernel: Kernel = 'supernodal') {
     this.n = n;
+    this.kernel = kernel;
     const T = rows.length;
-    this.perm = ordering === 'amd' ? approximateMinimumDegree(n, ...patternCsc(n, rows, cols)) : identity(n);
+    const first = ordering === 'amd' ? approximateMinimumDegree(n, ...patternCsc(n, rows, cols)) : identity(n);
+    // postorder the elimination tree so supernodes are runs of consecutive columns
+    const up0 = permutedPattern(n, rows, cols, first, 'upper');
+    const post = postorder(eliminationTree(n, up0.Cp, up0.Ci).parent);
+    this.perm = new Int32Array(n);
+    for (let k = 0; k < n; k++) this.perm[k] = first[post[k]];
     this.pinv = new Int32Array(n);
     for (let k = 0; k < n; k++) this.pinv[this.perm[k]] = k;
-    const lo = new Int32Array(T);
-    const hi = new Int32Array(T);
-    for (let t = 0; t < T; t++) {
-      const a = this.pinv[rows[t]];
-      const b = this.pinv[cols[t]];
-      lo[t] = a < b ? a : b;
-      hi[t] = a < b ? b : a;
-    }
-    // order entries by (hi, lo) with two stable counting sorts, then merge duplicates
-    const byLo = stableOrder(lo, n, null);
-    const order = stableOrder(hi, n, byLo);
-    this.slot = new Int32Array(T);
-    const Cp = new Int32Array(n + 1);
-    const CiFull = new Int32Array(T);
-    let q = 0;
-    let prevHi = -1;
-    let prevLo = -1;
-    for (let s = 0; s < T; s++) {
-      const t = order[s];
-      const h = hi[t];
-      const l = lo[t];
-      if (h !== prevHi || l !== prevLo) {
-        CiFull[q++] = l;
-        Cp[h + 1]++;
-        prevHi = h;
-        prevLo = l;
-      }
-      this.slot[t] = q - 1;
-    }
-    for (let k = 0; k < n; k++) Cp[k + 1] += Cp[k];
-    this.Cp = Cp;
-    this.Ci = CiFull.slice(0, q);
-    this.Cx = new Float64Array(q);
+    void T;
+    const pat = permutedPattern(n, rows, cols, this.perm, kernel === 'supernodal' ? 'lower' : 'upper');
+    this.Cp = pat.Cp;
+    this.Ci = pat.Ci;
+    this.slot = pat.slot;
+    this.Cx = new Float64Array(pat.Ci.length);
     this.diagSlot = new Int32Array(n).fill(-1);
     for (let k = 0; k < n; k++) {
-      const e = this.Cp[k + 1] - 1;
-      if (e >= this.Cp[k] && this.Ci[e] === k) this.diagSlot[this.perm[k]] = e;
+      const e = kernel === 'supernodal' ? this.Cp[k] : this.Cp[k + 1] - 1;
+      if (e >= this.Cp[k] && e < this.Cp[k + 1] && this.Ci[e] === k) this.diagSlot[this.perm[k]] = e;
     }
-    this.symbolic = symbolicFactor(n, this.Cp, this.Ci);
-    this.factor = allocateNumericFactor(this.symbolic);
-    this.work = new Float64Array(n);
+    if (kernel === 'supernodal') {
+      const sym = supernodalSymbolic(n, up0Upper(n, this.Cp, this.Ci).Cp, up0Upper(n, this.Cp, this.Ci).Ci);
+      this.supernodal = { sym, F: new SupernodalLdl(sym) };
+      this.simplicial = null;
+      this.nnzL = sym.nnzL;
+      this.flops = sym.flops;
+    } else {
+      const sym = symbolicFactor(n, this.Cp, this.Ci);
+      this.simplicial = { sym, F: allocateNumericFactor(sym), work: new Float64Array(n) };
+      this.supernodal = null;
+      this.nnzL = sym.nnzL + n;
+      this.flops = sym.flops;
+    }
     this.permuted = new Float64Array(n);
+  }
+
+  /** D of the last factorisation, in permuted order */
+  get D(): Float64Array {
+    return this.supernodal ? this.supernodal.F.D : this.simplicial!.F.D;
   }
 
   /** Numeric factorisation of the values now in Cx. */
   factorise(opts: FactorOptions): FactorReport {
-    return factorLdl(this.symbolic, this.Cp, this.Ci, this.Cx, this.factor, this.work, opts);
+    if (this.supernodal) return this.supernodal.F.factorise(this.Cp, this.Ci, this.Cx, opts);
+    const s = this.simplicial!;
+    return factorLdl(s.sym, this.Cp, this.Ci, this.Cx, s.F, s.work, opts);
   }
 
   /** x ← M⁻¹ x in the original numbering. */
   solve(x: Float64Array): void {
     const { perm, permuted, n } = this;
     for (let k = 0; k < n; k++) permuted[k] = x[perm[k]];
-    ldlSolve(this.symbolic, this.factor, permuted);
+    if (this.supernodal) this.supernodal.F.solve(permuted);
+    else ldlSolve(this.simplicial!.sym, this.simplicial!.F, permuted);
     for (let k = 0; k < n; k++) x[perm[k]] = permuted[k];
   }
 
@@ -120,10 +122,67 @@ export class SymmetricFactorisation {
   }
 }
 
+/** the upper-triangle pattern (CSC) of a lower-triangle pattern, i.e. its transpose */
+function up0Upper(n: number, Lp: Int32Array, Li: Int32Array): { Cp: Int32Array; Ci: Int32Array } {
+  const Cp = new Int32Array(n + 1);
+  for (let p = 0; p < Li.length; p++) Cp[Li[p] + 1]++;
+  for (let k = 0; k < n; k++) Cp[k + 1] += Cp[k];
+  const fill = Cp.slice(0, n);
+  const Ci = new Int32Array(Li.length);
+  for (let j = 0; j < n; j++) for (let p = Lp[j]; p < Lp[j + 1]; p++) Ci[fill[Li[p]]++] = j;
+  return { Cp, Ci };
+}
+
 function identity(n: number): Int32Array {
   const p = new Int32Array(n);
   for (let i = 0; i < n; i++) p[i] = i;
   return p;
+}
+
+/**
+ * Pattern of P M Pᵀ restricted to one triangle, in CSC with sorted, merged rows, and the
+ * position (slot) of every input entry in it.
+ */
+function permutedPattern(
+  n: number,
+  rows: Int32Array,
+  cols: Int32Array,
+  perm: Int32Array,
+  triangle: 'upper' | 'lower',
+): { Cp: Int32Array; Ci: Int32Array; slot: Int32Array } {
+  const T = rows.length;
+  const pinv = new Int32Array(n);
+  for (let k = 0; k < n; k++) pinv[perm[k]] = k;
+  const major = new Int32Array(T);
+  const minor = new Int32Array(T);
+  for (let t = 0; t < T; t++) {
+    const a = pinv[rows[t]];
+    const b = pinv[cols[t]];
+    const lo = a < b ? a : b;
+    const hi = a < b ? b : a;
+    // upper: column = hi, row = lo; lower: column = lo, row = hi
+    major[t] = triangle === 'upper' ? hi : lo;
+    minor[t] = triangle === 'upper' ? lo : hi;
+  }
+  const order = stableOrder(major, n, stableOrder(minor, n, null));
+  const slot = new Int32Array(T);
+  const Cp = new Int32Array(n + 1);
+  const Ci = new Int32Array(T);
+  let q = 0;
+  let prevMajor = -1;
+  let prevMinor = -1;
+  for (let s = 0; s < T; s++) {
+    const t = order[s];
+    if (major[t] !== prevMajor || minor[t] !== prevMinor) {
+      Ci[q++] = minor[t];
+      Cp[major[t] + 1]++;
+      prevMajor = major[t];
+      prevMinor = minor[t];
+    }
+    slot[t] = q - 1;
+  }
+  for (let k = 0; k < n; k++) Cp[k + 1] += Cp[k];
+  return { Cp, Ci: Ci.slice(0, q), slot };
 }
 
 /** Stable counting sort of entry indices by key (optionally starting from a prior order). */
