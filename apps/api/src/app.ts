@@ -17,6 +17,10 @@ import { workCentersRouter } from './work-centers/work-centers.router';
 import { materialsRouter } from './materials/materials.router';
 import { demandRouter } from './demand/demand.router';
 import { homeRouter } from './home/home.router';
+import { plansRouter } from './plans/plans.router';
+import { scenariosRouter } from './scenarios/scenarios.router';
+import { signOffRouter } from './sign-off/sign-off.router';
+import { outboxRouter } from './mail/outbox.router';
 
 /** Largest JSON body accepted (bigger → 413 payload_too_large). */
 export const jsonBodyLimit = '1mb';
@@ -26,7 +30,7 @@ export const jsonBodyLimit = '1mb';
  * `allow(...)` or `open()` first on each route (the route-matrix test enforces it).
  * Areas append their router factory here.
  */
-const areaRouters: Array<(ctx: ApiContext) => Router> = [authRouter, peopleRouter, settingsRouter, productsRouter, workCentersRouter, materialsRouter, demandRouter, homeRouter];
+const areaRouters: Array<(ctx: ApiContext) => Router> = [authRouter, peopleRouter, settingsRouter, productsRouter, workCentersRouter, materialsRouter, demandRouter, homeRouter, plansRouter, signOffRouter, scenariosRouter, outboxRouter];
 
 /** Builds the Express app (no listen): health, DB gate, CSRF, JSON, sessions, areas, 404, errors. */
 export function createApp(ctx: AppContext): Express {

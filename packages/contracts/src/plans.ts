@@ -83,6 +83,8 @@ export const planCreateSchema = z.strictObject({
     .min(planHorizonMinWeeks, `Plan at least ${planHorizonMinWeeks} weeks.`)
     .max(planHorizonMaxWeeks, `Plan at most ${planHorizonMaxWeeks} weeks.`),
   scenarioId: z.number().int().positive().optional(),
+  /** first week of the horizon (a plant week start, YYYY-MM-DD); default: the current week */
+  firstWeek: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as YYYY-MM-DD.').optional(),
   smoothing: smoothingSchema.default({ enabled: false, weight: 0 }),
   /** round quantities to whole units and batch multiples after the LP solve */
   wholeUnits: z.boolean().default(true),
@@ -138,6 +140,8 @@ export type CheckViolation = z.infer<typeof checkViolationSchema>;
 
 /** Whole-unit rounding outcome: the rounded plan's margin against the LP bound. */
 export const roundingSchema = z.object({
+  /** repaired: every row holds after rounding; violations_remain: the repair pass could not fix all (the check then fails) */
+  outcome: z.enum(['repaired', 'violations_remain']),
   margin: z.number(),
   lpBound: z.number(),
   /** lpBound − margin (≥ 0 up to rounding of the repair pass) */

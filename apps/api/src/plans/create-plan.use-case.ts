@@ -4,8 +4,8 @@ import { planCreateSchema } from '@millrace/contracts';
 import { validatePlanningData } from '@millrace/plan-model';
 import type { SignedInPerson } from '../auth/current-person';
 import { AppError } from '../http/app-error';
+import { assertWeekStarts } from '../master-data/week-alignment';
 import { loadPlanningData } from '../planning-data/load-planning-data';
-import { applyScenarioOverrides } from '../scenarios/apply-scenario-overrides';
 import { findScenario } from '../scenarios/scenarios.repository';
 import { appendAudit } from '../sign-off/audit.repository';
 import { canonicalJson, hashOf } from './canonical-hash';
@@ -23,8 +23,12 @@ export async function createPlan(ds: DataSource, input: PlanCreate, person: Sign
     if (request.scenarioId !== undefined && !scenario)
       throw AppError.unprocessable('The scenario does not exist.', [{ item: `scenario ${request.scenarioId}`, message: `Scenario ${request.scenarioId} does not exist.` }]);
 
-    const current = await loadPlanningData(db, request.horizonWeeks);
-    const { data, issues: scenarioIssues } = scenario ? applyScenarioOverrides(current, scenario.overrides) : { data: current, issues: [] };
+    if (request.firstWeek) await assertWeekStarts(db, [{ path: 'firstWeek', date: request.firstWeek }]);
+    const current = await loadPlanningData(db, request.horizonWeeks, request.firstWeek ? { from: request.firstWeek } : {});
+    // Loaded on use: plan-model's applyScenario is still landing (see the report).
+    const { data, issues: scenarioIssues } = scenario
+      ? (await import('../scenarios/apply-scenario-overrides')).applyScenarioOverrides(current, scenario.overrides)
+      : { data: current, issues: [] };
     const issues: DataIssue[] = [...scenarioIssues, ...validatePlanningData(data, request.horizonWeeks).map(({ item, message }) => ({ item, message }))];
     if (issues.length > 0) {
       throw AppError.unprocessable(

@@ -95,14 +95,14 @@ export function plansRouter(ctx: AppContext): Router {
   router.get('/api/plans/:id/lines.csv', allow(...readers), byId, async (_req, res) => {
     const { params } = byId.from(res);
     res
-      .type('text/csv; charset=utf-8')
       .attachment(`plan-${params.id}-lines.csv`)
+      .type('text/csv; charset=utf-8')
       .send(planLinesCsv(await results(res)));
   });
   router.get('/api/plans/:id/model.mps', allow(...readers), byId, async (_req, res) => {
     const { params } = byId.from(res);
     const mps = await readPlanMps(db(), params.id);
-    res.type('text/plain; charset=utf-8').attachment(`plan-${params.id}.mps`).send(mps);
+    res.attachment(`plan-${params.id}.mps`).type('text/plain; charset=utf-8').send(mps);
   });
   return router;
 }

@@ -1,6 +1,6 @@
 import type { CheckViolation, Rounding, SolveStatus } from '@millrace/contracts';
 import { solve, writeMps, type SolveResult } from '@millrace/lp-core';
-import { buildModel, checkPlan, mapSolution, materialCalls, roundPlan, type Plan, type PlanningData } from '@millrace/plan-model';
+import { buildModel, checkPlan, mapSolution, materialCalls, roundPlan, type Plan, type PlanningData, type RoundingReport } from '@millrace/plan-model';
 import { hashOf } from '../plans/canonical-hash';
 import type { SolveOutcomeRecord } from '../plans/plans.repository';
 import { planResultsFromPlan } from './plan-results-from-plan';
@@ -71,8 +71,9 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
   }
 
   const objective = -result.objective;
-  const shown: Plan = request.wholeUnits ? roundPlan(request.data, built, lpPlan) : lpPlan;
-  const rounding = request.wholeUnits ? roundingOf(shown, lpPlan) : null;
+  const rounded = request.wholeUnits ? roundPlan(request.data, lpPlan) : null;
+  const shown: Plan = rounded ? rounded.plan : lpPlan;
+  const rounding = rounded ? roundingOf(rounded.report) : null;
   const violations = checkPlan(request.data, shown).map((v) => ({ kind: v.kind, item: v.item, week: v.week, message: v.message }));
   const results = planResultsFromPlan(request.planId, request.data, shown, materialCalls(request.data, request.horizonWeeks, shown.products));
   results.objective = objective;
@@ -108,10 +109,13 @@ function statusOf(result: SolveResult): SolveStatus {
   }
 }
 
-/** The rounded plan's margin against the LP plan's margin (the bound whole units cannot beat). */
-function roundingOf(rounded: Plan, lp: Plan): Rounding {
-  const lpBound = lp.margin.margin;
-  const margin = rounded.margin.margin;
-  const gap = lpBound - margin;
-  return { margin, lpBound, gap, relativeGap: gap / Math.max(1, Math.abs(lpBound)) };
+/** The rounded plan's margin against the LP plan's margin (the bound whole units cannot beat without smoothing). */
+function roundingOf(report: RoundingReport): Rounding {
+  return {
+    outcome: report.outcome,
+    margin: report.roundedMargin,
+    lpBound: report.lpMargin,
+    gap: report.gap,
+    relativeGap: report.gap / Math.max(1, Math.abs(report.lpMargin)),
+  };
 }

@@ -1,9 +1,29 @@
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { ComputeProgress } from './compute-plan';
 import type { WorkerInput, WorkerMessage, WorkerTask } from './worker-protocol';
 
 /** How long a worker gets to stop by itself after the stop flag is set before it is terminated (ms). */
 const stopGraceMs = 5_000;
+
+/**
+ * The worker's first lines: register tsx's ESM loader in the new thread, then load the TypeScript
+ * entry. (`execArgv: ['--import', 'tsx']` is not applied to worker threads on Node 20.) tsx's ESM
+ * API is located from its package.json, so the thread does not depend on the working directory.
+ */
+function bootstrapSource(entry: URL): string {
+  const require = createRequire(import.meta.url);
+  const tsxDir = dirname(require.resolve('tsx/package.json'));
+  const pkg = JSON.parse(readFileSync(join(tsxDir, 'package.json'), 'utf8')) as { exports: Record<string, { import: { default: string } }> };
+  const api = pathToFileURL(join(tsxDir, pkg.exports['./esm/api'].import.default)).href;
+  return `import(${JSON.stringify(api)}).then((tsx) => { tsx.register(); return import(${JSON.stringify(entry.href)}); });`;
+}
+
+const workerEntry = new URL('./solve-worker.ts', import.meta.url);
+let bootstrap: string | undefined;
 
 export type WorkerReply = Exclude<WorkerMessage, { type: 'progress' }>;
 
@@ -15,13 +35,14 @@ export interface RunningWorker {
 }
 
 /**
- * Runs a solver task in a worker thread (never on the request thread). TypeScript is loaded in
- * the thread by `--import tsx`, the same way the API itself runs.
+ * Runs a solver task in a worker thread (never on the request thread), TypeScript loaded by tsx
+ * in the thread as in the API itself.
  */
 export function runInWorker(task: WorkerTask, onProgress: (p: ComputeProgress) => void): RunningWorker {
   const stopFlag = new SharedArrayBuffer(4);
   const input: WorkerInput = { task, stopFlag };
-  const worker = new Worker(new URL('./solve-worker.ts', import.meta.url), { workerData: input, execArgv: ['--import', 'tsx'] });
+  bootstrap ??= bootstrapSource(workerEntry);
+  const worker = new Worker(bootstrap, { eval: true, workerData: input });
   let reply: WorkerReply | null = null;
   let killTimer: NodeJS.Timeout | null = null;
   const done = new Promise<WorkerReply>((resolve, reject) => {

@@ -5,8 +5,6 @@
  * iterations, because the thread's event loop is busy while it solves.
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { computePlan } from './compute-plan';
-import { crossCheckPlan } from './cross-check-plan';
 import type { WorkerInput, WorkerMessage } from './worker-protocol';
 
 const progressIntervalMs = 100;
@@ -17,6 +15,8 @@ async function main(): Promise<void> {
   const post = (m: WorkerMessage) => parentPort!.postMessage(m);
   try {
     if (task.kind === 'solve') {
+      // Each task loads only its own solvers.
+      const { computePlan } = await import('./compute-plan');
       let lastPost = 0;
       const outcome = computePlan(task.request, {
         onProgress(progress) {
@@ -29,6 +29,7 @@ async function main(): Promise<void> {
       });
       post({ type: 'solved', outcome });
     } else {
+      const { crossCheckPlan } = await import('./cross-check-plan');
       post({ type: 'cross_checked', crossCheck: await crossCheckPlan(task.request, task.settings) });
     }
   } catch (err) {
