@@ -92,7 +92,7 @@ wait_for_http() {
         .then((r) => process.exit(r.status === 200 ? 0 : 1), () => process.exit(1));' "$url" 2>/dev/null; then
       return 0
     fi
-    kill -0 "$pid" 2>/dev/null || return 1
+    mr_pid_running "$pid" || return 1
     sleep 0.2
   done
   return 1

@@ -87,7 +87,7 @@ mr_db_start() {
       echo "[millrace] MariaDB is up on 127.0.0.1:$port (pid $pid)"
       return 0
     fi
-    if ! kill -0 "$pid" 2>/dev/null; then
+    if ! mr_pid_running "$pid"; then
       wait "$pid" 2>/dev/null || true
       echo "[millrace] error: MariaDB exited while starting; the last lines of $run/mysqld.err:" >&2
       tail -n 20 "$run/mysqld.err" >&2 || true

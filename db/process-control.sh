@@ -2,6 +2,7 @@
 # Stopping and checking the processes the start script launched, by PID file only: a PID is
 # trusted only when /proc/<pid>/cmdline still contains the marker we expect (so a reused PID
 # of some other program is never signalled).
+#   mr_pid_running PID                     → 0 while PID runs (a zombie counts as gone)
 #   mr_pid_alive PIDFILE MARKER            → 0 when the recorded process is ours and running
 #   mr_pid_stop PIDFILE MARKER NAME [SECS] → SIGTERM, wait for it to go (SIGKILL after SECS, 60), remove PIDFILE
 
@@ -11,6 +12,12 @@ mr_pid_read() {
   pid="$(tr -dc '0-9' <"$file")"
   [ -n "$pid" ] || return 1
   printf '%s' "$pid"
+}
+
+# True while PID runs; an exited child that is not yet reaped (a zombie) has an empty cmdline
+# and counts as gone, unlike with `kill -0`.
+mr_pid_running() {
+  [ -r "/proc/$1/cmdline" ] && [ -n "$(tr -d '\0' <"/proc/$1/cmdline" 2>/dev/null)" ]
 }
 
 mr_pid_matches() {
