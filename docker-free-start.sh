@@ -85,16 +85,20 @@ random_secret() {
 
 # Waits until URL answers 200 (for the API: the database is connected), while PID is alive.
 wait_for_http() {
-  local url="$1" pid="$2" name="$3" seconds="$4" i
-  for ((i = 0; i < seconds * 5; i++)); do
+  local url="$1" pid="$2" name="$3" seconds="$4" deadline=$((SECONDS + $4))
+  while [ "$SECONDS" -lt "$deadline" ]; do
     if node -e '
       fetch(process.argv[1], { signal: AbortSignal.timeout(1000) })
         .then((r) => process.exit(r.status === 200 ? 0 : 1), () => process.exit(1));' "$url" 2>/dev/null; then
       return 0
     fi
-    mr_pid_running "$pid" || return 1
+    if ! mr_pid_running "$pid"; then
+      log "$name exited while starting"
+      return 1
+    fi
     sleep 0.2
   done
+  log "$name did not answer $url within ${seconds}s"
   return 1
 }
 
