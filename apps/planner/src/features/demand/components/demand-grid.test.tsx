@@ -1,0 +1,163 @@
+import { fireEvent, screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import type { DemandGrid } from '@millrace/contracts';
+import { apiError, json, mockApi } from '@/testing/mock-api';
+import { people } from '@/testing/fixtures';
+import { renderApp } from '@/testing/render-app';
+
+afterEach(() => vi.unstubAllGlobals());
+
+const weeks = ['2026-12-07', '2026-12-14', '2026-12-21'];
+const empty = (weekStart: string) => ({ weekStart, firmQty: 0, firmOrders: [], forecastQty: 0, forecastVersion: null });
+
+/** Two products × three weeks; T-1 has one firm order in week 1 and a forecast in week 2. */
+const grid: DemandGrid = {
+  weeks,
+  rows: [
+    {
+      productId: 1,
+      productCode: 'T-1',
+      productName: 'Test table',
+      unit: 'pcs',
+      kind: 'finished',
+      cells: [
+        { weekStart: weeks[0], firmQty: 10, firmOrders: [{ id: 11, orderRef: 'A-1', qty: 10, version: 2 }], forecastQty: 0, forecastVersion: null },
+        { weekStart: weeks[1], firmQty: 0, firmOrders: [], forecastQty: 4, forecastVersion: 3 },
+        empty(weeks[2]),
+      ],
+    },
+    { productId: 2, productCode: 'C-1', productName: 'Test chair', unit: 'pcs', kind: 'finished', cells: weeks.map(empty) },
+  ],
+  weekTotals: weeks.map((w, i) => ({ weekStart: w, firmQty: i === 0 ? 10 : 0, forecastQty: i === 1 ? 4 : 0 })),
+  total: 2,
+  page: 1,
+  pageSize: 5000,
+};
+
+const cell = (name: RegExp) => screen.getByRole('gridcell', { name });
+
+async function openGrid(role: 'planner' | 'supervisor' = 'planner') {
+  const api = mockApi({ 'GET /api/me': () => json(people[role]), 'GET /api/demand': () => json(grid) });
+  renderApp('/demand');
+  await screen.findByRole('grid', { name: 'Demand per product and week' });
+  return { api, user: userEvent.setup() };
+}
+
+describe('demand grid', () => {
+  it('when arrow keys, Tab and Shift+Tab are pressed, then the focus moves cell by cell', async () => {
+    const { user } = await openGrid();
+    await user.click(cell(/^T-1 firm, week of 7 Dec 2026/));
+    expect(cell(/^T-1 firm, week of 7 Dec 2026/)).toHaveFocus();
+
+    await user.keyboard('{ArrowRight}');
+    await waitFor(() => expect(cell(/^T-1 firm, week of 14 Dec 2026/)).toHaveFocus());
+    await user.keyboard('{ArrowDown}');
+    await waitFor(() => expect(cell(/^T-1 forecast, week of 14 Dec 2026: 4/)).toHaveFocus());
+    await user.keyboard('{ArrowDown}');
+    await waitFor(() => expect(cell(/^C-1 firm, week of 14 Dec 2026/)).toHaveFocus());
+    await user.keyboard('{ArrowLeft}');
+    await waitFor(() => expect(cell(/^C-1 firm, week of 7 Dec 2026/)).toHaveFocus());
+    await user.keyboard('{Tab}{Tab}{Tab}');
+    // past the last week Tab wraps to the first week of the next line
+    await waitFor(() => expect(cell(/^C-1 forecast, week of 7 Dec 2026/)).toHaveFocus());
+    await user.keyboard('{Shift>}{Tab}{/Shift}');
+    await waitFor(() => expect(cell(/^C-1 firm, week of 21 Dec 2026/)).toHaveFocus());
+  });
+
+  it('when a number is typed and Enter pressed, then the cell changes, focus moves down and the week total follows', async () => {
+    const { user } = await openGrid();
+    await user.click(cell(/^T-1 forecast, week of 14 Dec 2026/));
+    await user.keyboard('12{Enter}');
+
+    expect(cell(/^T-1 forecast, week of 14 Dec 2026: 12, changed/)).toBeInTheDocument();
+    await waitFor(() => expect(cell(/^C-1 firm, week of 14 Dec 2026/)).toHaveFocus());
+    expect(cell(/^Forecast total, week of 14 Dec 2026: 12$/)).toBeInTheDocument();
+    expect(screen.getByText('• 1 unsaved change')).toBeInTheDocument();
+  });
+
+  it('when a spreadsheet block is pasted, then it fills cells from the active one and the totals add up', async () => {
+    const { user } = await openGrid();
+    await user.click(cell(/^T-1 forecast, week of 7 Dec 2026/));
+    // two lines × three columns, tab-separated, as spreadsheet programs copy them
+    fireEvent.paste(cell(/^T-1 forecast, week of 7 Dec 2026/), {
+      clipboardData: { getData: () => '5\t6\t7\r\n1,250\t\t2\r\n' },
+    });
+
+    expect(cell(/^T-1 forecast, week of 7 Dec 2026: 5, changed/)).toBeInTheDocument();
+    expect(cell(/^T-1 forecast, week of 14 Dec 2026: 6, changed/)).toBeInTheDocument();
+    expect(cell(/^T-1 forecast, week of 21 Dec 2026: 7, changed/)).toBeInTheDocument();
+    expect(cell(/^C-1 firm, week of 7 Dec 2026: 1,250, changed/)).toBeInTheDocument();
+    expect(cell(/^C-1 firm, week of 14 Dec 2026: 0$/)).toBeInTheDocument(); // empty pasted cell leaves it as it was
+    expect(cell(/^C-1 firm, week of 21 Dec 2026: 2, changed/)).toBeInTheDocument();
+    // firm totals: 10 (order A-1) + 1250 in week 1; forecast totals 5, 6, 7
+    expect(cell(/^Firm total, week of 7 Dec 2026: 1,260$/)).toBeInTheDocument();
+    expect(cell(/^Forecast total, week of 14 Dec 2026: 6$/)).toBeInTheDocument();
+    expect(screen.getByText(/Pasted 5 cells/)).toBeInTheDocument();
+  });
+
+  it('when a pasted block holds text that is not a quantity, then nothing is pasted and the bad cell is named', async () => {
+    const { user } = await openGrid();
+    await user.click(cell(/^T-1 forecast, week of 7 Dec 2026/));
+    fireEvent.paste(cell(/^T-1 forecast, week of 7 Dec 2026/), { clipboardData: { getData: () => '5\tten\n' } });
+    expect(await screen.findByText(/Nothing was pasted\. Row 1, column 2: “ten” is not a quantity/)).toBeInTheDocument();
+    expect(cell(/^T-1 forecast, week of 7 Dec 2026: 0$/)).toBeInTheDocument();
+  });
+
+  it('when changes are saved, then one PUT carries every change with the version read, and new firm orders get the reference', async () => {
+    const { api, user } = await openGrid();
+    api.on('PUT /api/demand', () => json({ created: 1, updated: 2, deleted: 0, unchanged: 0 }));
+    await user.click(cell(/^T-1 firm, week of 7 Dec 2026/));
+    await user.keyboard('8{Tab}');
+    await user.keyboard('3{Enter}'); // T-1 firm week 2: no order yet → needs the reference
+    await user.click(cell(/^T-1 forecast, week of 14 Dec 2026/));
+    await user.keyboard('9{Enter}');
+
+    await user.click(screen.getByRole('button', { name: 'Save changes' }));
+    expect(await screen.findByText(/Enter the customer order reference for new firm quantities/)).toBeInTheDocument();
+    expect(api.sent('PUT', '/api/demand')).toHaveLength(0);
+
+    await user.type(screen.getByRole('textbox', { name: 'Order reference for new firm quantities' }), 'PO-77');
+    await user.click(screen.getByRole('button', { name: 'Save changes' }));
+    expect(await screen.findByText(/Saved in one go: 1 new, 2 changed, 0 removed/)).toBeInTheDocument();
+
+    const puts = api.sent('PUT', '/api/demand');
+    expect(puts).toHaveLength(1);
+    expect(puts[0].body).toEqual({
+      changes: [
+        { kind: 'firm', productId: 1, weekStart: '2026-12-07', orderRef: 'A-1', qty: 8, version: 2 },
+        { kind: 'forecast', productId: 1, weekStart: '2026-12-14', qty: 9, version: 3 },
+        { kind: 'firm', productId: 1, weekStart: '2026-12-14', orderRef: 'PO-77', qty: 3, version: null },
+      ],
+    });
+  });
+
+  it('when someone else changed a cell (409), then nothing is saved, the cell is marked and the edits can be kept on reload', async () => {
+    const { api, user } = await openGrid();
+    api.on('PUT /api/demand', () =>
+      apiError(409, 'conflict', 'Someone else changed the forecast of T-1 for 14 Dec since you opened it.', {
+        fields: [{ path: 'changes.0', message: 'Someone else changed the forecast of T-1 for 14 Dec since you opened it.' }],
+      }),
+    );
+    await user.click(cell(/^T-1 forecast, week of 14 Dec 2026/));
+    await user.keyboard('9{Enter}');
+    await user.click(screen.getByRole('button', { name: 'Save changes' }));
+
+    expect(await screen.findByRole('alert')).toHaveTextContent('Changed by someone else — nothing was saved');
+    expect(cell(/^T-1 forecast, week of 14 Dec 2026: 9, changed, problem: Someone else changed/)).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Reload, keep my changes' }));
+    await waitFor(() => expect(screen.queryByRole('alert')).not.toBeInTheDocument());
+    expect(cell(/^T-1 forecast, week of 14 Dec 2026: 9, changed$/)).toBeInTheDocument();
+    expect(api.sent('GET', '/api/demand')).toHaveLength(2);
+  });
+
+  it('when a supervisor opens demand, then cells are read-only and typing changes nothing', async () => {
+    const { user } = await openGrid('supervisor');
+    expect(screen.queryByRole('button', { name: 'Save changes' })).not.toBeInTheDocument();
+    await user.click(cell(/^T-1 forecast, week of 14 Dec 2026/));
+    await user.keyboard('7{Enter}');
+    expect(cell(/^T-1 forecast, week of 14 Dec 2026: 4$/)).toHaveAttribute('aria-readonly', 'true');
+    expect(screen.getByText('Demand is read only for your role.')).toBeInTheDocument();
+  });
+});
