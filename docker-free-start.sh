@@ -306,6 +306,7 @@ test_exit_trap() {
   local rc=$?
   trap - EXIT INT TERM
   stop_test_stack
+  rm -f "$STATE/test.pid"
   if [ "$T_SUMMARY_PRINTED" = 0 ]; then
     echo "0 passed, 1 failed"
     [ "$rc" = 0 ] && rc=1
@@ -331,6 +332,12 @@ install_test_tools() {
 cmd_test() {
   mkdir -p "$STATE"
   chmod 700 "$STATE"
+  if mr_pid_alive "$STATE/test.pid" "docker-free-start.sh"; then
+    echo "[millrace] error: another test run of this checkout is in progress (pid $(mr_pid_read "$STATE/test.pid")); wait for it to finish." >&2
+    echo "0 passed, 1 failed"
+    exit 1
+  fi
+  echo "$$" >"$STATE/test.pid"
   trap test_exit_trap EXIT
   trap 'exit 130' INT
   trap 'exit 143' TERM
