@@ -4,6 +4,9 @@ import { deleteExpiredSessions, sweepIntervalMs } from './auth/delete-expired-se
 import { ConfigError, loadConfig } from './config';
 import { connectWithRetry } from './db/connect-with-retry';
 import { createDataSource } from './db/data-source';
+import { OutboxSender } from './mail/outbox-sender';
+import { createSmtpMailer } from './mail/smtp-mailer';
+import { SolverJobRunner } from './solver-jobs/solver-job-runner';
 
 function main(): void {
   let config;
@@ -14,7 +17,11 @@ function main(): void {
     process.exit(1);
   }
   const dataSource = createDataSource(config.db);
-  const app = createApp({ dataSource, config });
+  const mailer = createSmtpMailer(config.smtp);
+  const app = createApp({ dataSource, config, mailer });
+  // Background work of this process: solver jobs claimed from the job table, the e-mail outbox.
+  const solverJobs = new SolverJobRunner(dataSource);
+  const outbox = new OutboxSender(dataSource, mailer);
   let stopping = false;
   const server: Server = app.listen(config.http.port, config.http.host, () => {
     console.log(`millrace api: listening on http://${config.http.host}:${config.http.port} (public URL ${config.http.publicUrl})`);
@@ -24,7 +31,10 @@ function main(): void {
     process.exit(1);
   });
   void connectWithRetry(dataSource, { stopped: () => stopping }).then((outcome) => {
-    if (outcome === 'connected') console.log('millrace api: database connected');
+    if (outcome !== 'connected') return;
+    console.log('millrace api: database connected');
+    solverJobs.start();
+    outbox.start();
   });
   const sweep = setInterval(() => {
     if (!dataSource.isInitialized) return;
@@ -39,6 +49,7 @@ function main(): void {
     const force = setTimeout(() => process.exit(1), 10_000);
     force.unref();
     server.close(async () => {
+      await Promise.all([solverJobs.stop(), outbox.stop()]).catch(() => undefined);
       if (dataSource.isInitialized) await dataSource.destroy().catch(() => undefined);
       process.exit(0);
     });
