@@ -36,6 +36,8 @@ const grid: DemandGrid = {
 };
 
 const cell = (name: RegExp) => screen.getByRole('gridcell', { name });
+/** Focus moves after the browser's next frame (the grid may scroll first); allow for a busy machine. */
+const expectFocusOn = (name: RegExp) => waitFor(() => expect(cell(name)).toHaveFocus(), { timeout: 4000 });
 
 async function openGrid(role: 'planner' | 'supervisor' = 'planner') {
   const api = mockApi({ 'GET /api/me': () => json(people[role]), 'GET /api/demand': () => json(grid) });
@@ -51,18 +53,18 @@ describe('demand grid', () => {
     expect(cell(/^T-1 firm, week of 7 Dec 2026/)).toHaveFocus();
 
     await user.keyboard('{ArrowRight}');
-    await waitFor(() => expect(cell(/^T-1 firm, week of 14 Dec 2026/)).toHaveFocus());
+    await expectFocusOn(/^T-1 firm, week of 14 Dec 2026/);
     await user.keyboard('{ArrowDown}');
-    await waitFor(() => expect(cell(/^T-1 forecast, week of 14 Dec 2026: 4/)).toHaveFocus());
+    await expectFocusOn(/^T-1 forecast, week of 14 Dec 2026: 4/);
     await user.keyboard('{ArrowDown}');
-    await waitFor(() => expect(cell(/^C-1 firm, week of 14 Dec 2026/)).toHaveFocus());
+    await expectFocusOn(/^C-1 firm, week of 14 Dec 2026/);
     await user.keyboard('{ArrowLeft}');
-    await waitFor(() => expect(cell(/^C-1 firm, week of 7 Dec 2026/)).toHaveFocus());
+    await expectFocusOn(/^C-1 firm, week of 7 Dec 2026/);
     await user.keyboard('{Tab}{Tab}{Tab}');
     // past the last week Tab wraps to the first week of the next line
-    await waitFor(() => expect(cell(/^C-1 forecast, week of 7 Dec 2026/)).toHaveFocus());
+    await expectFocusOn(/^C-1 forecast, week of 7 Dec 2026/);
     await user.keyboard('{Shift>}{Tab}{/Shift}');
-    await waitFor(() => expect(cell(/^C-1 firm, week of 21 Dec 2026/)).toHaveFocus());
+    await expectFocusOn(/^C-1 firm, week of 21 Dec 2026/);
   });
 
   it('when a number is typed and Enter pressed, then the cell changes, focus moves down and the week total follows', async () => {
@@ -71,7 +73,7 @@ describe('demand grid', () => {
     await user.keyboard('12{Enter}');
 
     expect(cell(/^T-1 forecast, week of 14 Dec 2026: 12, changed/)).toBeInTheDocument();
-    await waitFor(() => expect(cell(/^C-1 firm, week of 14 Dec 2026/)).toHaveFocus());
+    await expectFocusOn(/^C-1 firm, week of 14 Dec 2026/);
     expect(cell(/^Forecast total, week of 14 Dec 2026: 12$/)).toBeInTheDocument();
     expect(screen.getByText('• 1 unsaved change')).toBeInTheDocument();
   });

@@ -99,7 +99,7 @@ describe('product editor (master-data form)', () => {
     expect(api.sent('PATCH', '/api/products/7')[1].body).toMatchObject({ price: 130, version: 5 });
   });
 
-  it('when a number breaks the contract's rule, then the schema stops the save with a message on the field', async () => {
+  it('when a number breaks a rule of the contract schema, then the save stops with a message on the field', async () => {
     const api = mockApi({ 'GET /api/me': () => json(people.planner), 'GET /api/products/7': () => json(product) });
     renderApp('/products/7');
     const user = userEvent.setup();
