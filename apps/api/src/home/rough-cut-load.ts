@@ -1,5 +1,5 @@
 import type { HomeSummary, LoadStatus } from '@millrace/contracts';
-import { availableHours, componentUsePerUnit, loadHoursPerUnit, type PlanningData } from '@millrace/plan-model';
+import { availableHours, componentUsePerUnit, loadHoursPerUnit, type DemandLine, type PlanningData } from '@millrace/plan-model';
 
 /** Load above available by less than this many standard hours counts as within capacity (rounding). */
 const loadToleranceHours = 1e-6;
@@ -47,8 +47,9 @@ export function roughCutLoad(data: PlanningData): HomeSummary {
     }),
   }));
 
+  const firmOnly = demandByProduct(data, ['firm']);
   const firmDemand = data.products
-    .map((p) => ({ productCode: p.code, productName: p.name, unit: p.unit, qtyByWeek: weeks.map((_, t) => demandOf(data, p.code, t + 1, ['firm'])) }))
+    .map((p) => ({ productCode: p.code, productName: p.name, unit: p.unit, qtyByWeek: firmOnly.get(p.code) ?? weeks.map(() => 0) }))
     .filter((row) => row.qtyByWeek.some((q) => q > 0));
 
   return {
@@ -67,8 +68,17 @@ export function loadStatus(requiredHours: number, availableHours: number): LoadS
   return requiredHours > availableHours + loadToleranceHours ? 'over_loaded' : 'within_capacity';
 }
 
-function demandOf(data: PlanningData, product: string, week: number, kinds: string[]): number {
-  return data.demand.filter((d) => d.product === product && d.week === week && kinds.includes(d.kind)).reduce((s, d) => s + d.qty, 0);
+/** Demand per product and week (index 0 = week 1) of the given kinds, in one pass over the lines. */
+function demandByProduct(data: PlanningData, kinds: ReadonlyArray<DemandLine['kind']>): Map<string, number[]> {
+  const T = data.weeks.length;
+  const byProduct = new Map<string, number[]>();
+  for (const d of data.demand) {
+    if (!kinds.includes(d.kind) || d.week < 1 || d.week > T) continue;
+    const row = byProduct.get(d.product) ?? new Array<number>(T).fill(0);
+    row[d.week - 1] += d.qty;
+    byProduct.set(d.product, row);
+  }
+  return byProduct;
 }
 
 /**
@@ -76,8 +86,9 @@ function demandOf(data: PlanningData, product: string, week: number, kinds: stri
  * needs, exploded level by level. A cycle in the bills of materials (which the API refuses to
  * store) would stop the explosion at the repeated product instead of looping.
  */
-function unitsToMake(data: PlanningData, kinds: string[]): Map<string, number[]> {
+function unitsToMake(data: PlanningData, kinds: ReadonlyArray<DemandLine['kind']>): Map<string, number[]> {
   const T = data.weeks.length;
+  const demand = demandByProduct(data, kinds);
   const parentsOf = new Map<string, Array<{ parent: string; use: number }>>();
   for (const line of data.bom) {
     if (line.componentProduct === undefined) continue;
@@ -90,7 +101,7 @@ function unitsToMake(data: PlanningData, kinds: string[]): Map<string, number[]>
   const units = (product: string): number[] => {
     const known = memo.get(product);
     if (known) return known;
-    const own = Array.from({ length: T }, (_, t) => demandOf(data, product, t + 1, kinds));
+    const own = [...(demand.get(product) ?? new Array<number>(T).fill(0))];
     if (visiting.has(product)) return own;
     visiting.add(product);
     for (const { parent, use } of parentsOf.get(product) ?? []) {
