@@ -23,6 +23,8 @@ export default defineConfig({
     outDir: 'dist',
     emptyOutDir: true,
     sourcemap: false,
+    // dist/.vite/manifest.json lets scripts/print-bundle-sizes.mjs follow each route's imports.
+    manifest: true,
     // Route modules are split by hand with React Router's `lazy` (src/app/router.tsx).
     // Large libraries that only some routes need get their own chunks so the sign-in
     // route and the shell stay small.
@@ -30,6 +32,8 @@ export default defineConfig({
       output: {
         manualChunks(id: string) {
           if (!id.includes('node_modules')) return undefined;
+          if (/node_modules\/(react|react-dom|scheduler|react-router|react-router-dom|@tanstack\/(react-query|query-core))\//.test(id)) return 'react';
+          if (/node_modules\/zod\//.test(id)) return 'zod';
           if (/node_modules\/(recharts|d3-|victory-vendor|decimal\.js-light|es-toolkit)/.test(id)) return 'charts';
           if (/node_modules\/@tanstack\/(react-table|table-core|react-virtual|virtual-core)/.test(id)) return 'table';
           if (/node_modules\/(react-hook-form|@hookform)/.test(id)) return 'forms';
