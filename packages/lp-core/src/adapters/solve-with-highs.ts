@@ -8,7 +8,7 @@
  * minimising), so they are passed through unchanged.
  */
 import type { Problem } from '../problem/problem';
-import { measureCertificate } from '../solution/measure-certificate';
+import { certify } from '../solution/certificate';
 import type { SolveStatus } from '../solution/result';
 import type { ReferenceResult, ReferenceSolverName } from './reference-result';
 
@@ -61,7 +61,7 @@ export async function solveWithHighs(problem: Problem, settings: HighsSettings =
     seconds,
   };
   if (status === 'optimal') {
-    const measured = measureCertificate(problem, outcome.solution.colValue, outcome.solution.rowDual);
+    const measured = certify(problem, outcome.solution.colValue, outcome.solution.rowDual);
     result.rowActivity = outcome.solution.rowValue;
     result.rowDuals = outcome.solution.rowDual;
     result.reducedCosts = outcome.solution.colDual;

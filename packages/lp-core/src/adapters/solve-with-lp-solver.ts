@@ -7,8 +7,8 @@ import { fork } from 'node:child_process';
 import { createRequire } from 'node:module';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { Problem } from '../problem/problem';
-import { measureCertificate } from '../solution/measure-certificate';
-import { type LpSolverModel, type LpSolverReply, toLpSolverModel } from './lp-solver-model';
+import { certify } from '../solution/certificate';
+import { type ColumnShift, type LpSolverModel, type LpSolverReply, fromLpSolverValues, toLpSolverModel } from './lp-solver-model';
 import type { ReferenceResult } from './reference-result';
 
 export interface LpSolverSettings {
@@ -28,7 +28,7 @@ const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).h
 export async function solveWithLpSolver(problem: Problem, settings: LpSolverSettings = {}): Promise<LpSolverResult> {
   const limit = settings.timeLimitSeconds ?? DEFAULT_TIME_LIMIT_SECONDS;
   if (!(limit > 0)) throw new Error(`solveWithLpSolver: timeLimitSeconds must be positive, got ${limit}`);
-  const model = toLpSolverModel(problem);
+  const { model, shifts } = toLpSolverModel(problem);
   const start = performance.now();
   const reply = await runChild(model, limit);
   const seconds = (performance.now() - start) / 1000;
@@ -42,17 +42,17 @@ export async function solveWithLpSolver(problem: Problem, settings: LpSolverSett
   if (reply.kind === 'failed') {
     return { solver: 'javascript-lp-solver', status: 'numerical_trouble', objective: NaN, x: empty, iterations: 0, seconds, message: reply.message };
   }
-  return interpret(problem, reply, seconds);
+  return interpret(problem, reply, shifts, seconds);
 }
 
-function interpret(problem: Problem, reply: Extract<LpSolverReply, { kind: 'solved' }>, seconds: number): LpSolverResult {
+function interpret(problem: Problem, reply: Extract<LpSolverReply, { kind: 'solved' }>, shifts: ColumnShift, seconds: number): LpSolverResult {
   const { raw } = reply;
   const base = { solver: 'javascript-lp-solver' as const, iterations: 0, seconds, maxRssKb: reply.maxRssKb };
   if (raw.feasible !== true) return { ...base, status: 'infeasible', objective: NaN, x: new Float64Array(problem.A.n) };
   if (raw.bounded === false) return { ...base, status: 'unbounded', objective: NaN, x: new Float64Array(problem.A.n) };
-  const x = Float64Array.from({ length: problem.A.n }, (_, j) => Number(raw[`x${j}`] ?? 0));
-  const minObjective = Number(raw.result) + problem.c0;
-  const measured = measureCertificate(problem, x, new Float64Array(problem.A.m));
+  const x = fromLpSolverValues(raw, shifts);
+  const minObjective = Number(raw.result) + shifts.constant + problem.c0;
+  const measured = certify(problem, x, new Float64Array(problem.A.m));
   return {
     ...base,
     status: 'optimal',

@@ -11,7 +11,9 @@
  *    E → [b, b+R] for R > 0 and [b+R, b] for R < 0.
  *  - Columns default to 0 ≤ x < ∞, integer columns too (not to a binary range).
  *  - UP (and UI) with a negative value on a column whose lower bound is 0 at that point sets the
- *    lower bound to −∞ (the rule CPLEX and HiGHS apply, with a warning, from memory).
+ *    lower bound to −∞ (the rule of CPLEX's and COIN-OR CoinUtils' MPS readers, with a warning, from
+ *    memory). HiGHS 1.15 (npm `highs`) instead keeps the lower bound 0, leaving an empty range;
+ *    the test of this reader shows the difference.
  *  - |value| ≥ 1e30 means infinite.
  *  - QUADOBJ lists one triangle of Q (Q_ij = Q_ji = v); a repeat of the same pair with the same value
  *    is read as its mirror entry (some files list both triangles). QMATRIX lists the full matrix and
