@@ -42,6 +42,8 @@ export interface IpmSettings {
   maxDenseColumns: number;
   /** iterative refinement steps on each normal-equations solve */
   refinementSteps: number;
+  /** largest Cholesky factor allowed, in megabytes of values; a bigger one ends the solve before it starts */
+  maxFactorMegabytes: number;
   /** fill-reducing ordering of the normal equations */
   ordering: 'amd' | 'natural';
   /** called after every iteration (progress bars) */
@@ -70,6 +72,7 @@ export const defaultIpmSettings: Readonly<IpmSettings> = Object.freeze({
   denseColumnMin: 100,
   maxDenseColumns: 40,
   refinementSteps: 3,
+  maxFactorMegabytes: 1536,
   ordering: 'amd',
 });
 
@@ -94,6 +97,9 @@ export function resolveSettings(partial: Partial<IpmSettings> = {}): IpmSettings
   (['tolGapRel', 'tolPrimalRel', 'tolDualRel', 'tolInfeasibility', 'stepToBoundary', 'denseColumnRatio'] as const).forEach(inOpen01);
   (['maxIterations', 'scalingPasses', 'maxCorrectors', 'denseColumnMin', 'maxDenseColumns', 'refinementSteps'] as const).forEach(nonNegativeInt);
   (['regPrimal', 'regFree', 'regDual', 'pivotTolerance'] as const).forEach(nonNegative);
+  if (typeof s.maxFactorMegabytes !== 'number' || !(s.maxFactorMegabytes > 0)) {
+    problems.push(`maxFactorMegabytes must be a positive number, got ${String(s.maxFactorMegabytes)}`);
+  }
   if (typeof s.timeLimitSeconds !== 'number' || !(s.timeLimitSeconds > 0)) {
     problems.push(`timeLimitSeconds must be a positive number or Infinity, got ${String(s.timeLimitSeconds)}`);
   }

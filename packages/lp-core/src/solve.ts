@@ -33,8 +33,8 @@ export function solve(problem: Problem, partial: Partial<IpmSettings> = {}): Sol
     return { ...again, message: `${pre.message}; ${again.message ?? ''}`.trim(), seconds: (performance.now() - start) / 1000 };
   }
   const reduced = pre.reduced;
-  let xr = new Float64Array(reduced.c.length);
-  let yr = new Float64Array(reduced.rowLower.length);
+  let xr: Float64Array = new Float64Array(reduced.c.length);
+  let yr: Float64Array = new Float64Array(reduced.rowLower.length);
   let outcome: IpmOutcome | null = null;
   let status: SolveStatus = 'optimal';
   let message: string | undefined;

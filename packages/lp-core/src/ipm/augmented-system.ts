@@ -51,7 +51,7 @@ export class AugmentedSystem implements KktSolver {
       rows.push(n + i);
       cols.push(n + i);
     }
-    this.F = new SymmetricFactorisation(n + m, Int32Array.from(rows), Int32Array.from(cols), settings.ordering);
+    this.F = new SymmetricFactorisation(n + m, Int32Array.from(rows), Int32Array.from(cols), settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8);
     this.sign = new Int8Array(n + m);
     for (let k = 0; k < n + m; k++) this.sign[k] = this.F.perm[k] < n ? -1 : 1;
     this.thetaW = new Float64Array(m);
@@ -65,7 +65,7 @@ export class AugmentedSystem implements KktSolver {
     return this.F.nnzL;
   }
 
-  factorise(D: Float64Array): KktStatus {
+  factorise(D: Float64Array, deadline = Infinity): KktStatus {
     const { n, m, A } = this.prob;
     const Q = this.prob.Q!;
     const { Cx, slot } = this.F;
@@ -88,9 +88,11 @@ export class AugmentedSystem implements KktSolver {
       pivotTolerance: this.settings.pivotTolerance,
       dynamicRegularisation: true,
       bigPivot: 1e128,
+      deadline,
       sign: this.sign,
     });
     this.replacedPivots = report.replacedPivots;
+    if (report.status === 'interrupted') return 'interrupted';
     return report.status === 'factorised' ? 'factorised' : 'numerical_trouble';
   }
 

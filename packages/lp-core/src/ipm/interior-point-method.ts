@@ -19,6 +19,7 @@ import { InfeasibilityTest } from './infeasibility';
 import { FIXED, FREE, boundKinds, hasLower, hasOffDiagonalQ, hasUpper, type IpmProblem } from './ipm-problem';
 import { allocateIterate, copyIterate, type Iterate } from './iterate';
 import type { KktSolver } from './kkt-solver';
+import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
 import { NormalEquations } from './normal-equations';
 import { Residuals, type Measures } from './residuals';
 import { startingPoint } from './starting-point';
@@ -52,7 +53,22 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
   const { n, m, lower, upper } = prob;
   const N = n + m;
   const kind = boundKinds(lower, upper);
-  const kkt: KktSolver = hasOffDiagonalQ(prob.Q) ? new AugmentedSystem(prob, settings) : new NormalEquations(prob, settings);
+  let kkt: KktSolver;
+  try {
+    kkt = hasOffDiagonalQ(prob.Q) ? new AugmentedSystem(prob, settings) : new NormalEquations(prob, settings);
+  } catch (err) {
+    if (!(err instanceof FactorTooLargeError)) throw err;
+    const it0 = allocateIterate(N, m);
+    return {
+      status: 'numerical_trouble',
+      iterations: 0,
+      iterate: it0,
+      measures: new Residuals(prob, kind).compute(it0),
+      message: `${err.message} (maxFactorMegabytes = ${settings.maxFactorMegabytes})`,
+      nnzL: err.entries,
+      timings,
+    };
+  }
   timings.kktSetup = (performance.now() - t0) / 1000;
 
   const it = allocateIterate(N, m);
@@ -168,9 +184,9 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
       if (hasUpper(k)) d += it.zu[j] / (upper[j] - it.v[j]);
       D[j] = d;
     }
-    if (timed('factorise', () => kkt.factorise(D)) !== 'factorised') {
-      return restoreBest('numerical_trouble', iter, 'the Newton system could not be factorised');
-    }
+    const fs = timed('factorise', () => kkt.factorise(D, clock.deadline));
+    if (fs === 'interrupted') return restoreBest('time_limit', iter, `time limit of ${settings.timeLimitSeconds} s reached during a factorisation`);
+    if (fs !== 'factorised') return restoreBest('numerical_trouble', iter, 'the Newton system could not be factorised');
 
     // predictor: r_l = −x_l z_l, r_u = −x_u z_u
     for (let j = 0; j < N; j++) {

@@ -8,13 +8,14 @@
  * D the barrier diagonal (plus primal regularisation); D_j = +Infinity marks a fixed variable
  * (dv_j = 0).
  */
-export type KktStatus = 'factorised' | 'numerical_trouble';
+export type KktStatus = 'factorised' | 'numerical_trouble' | 'interrupted';
 
 export interface KktSolver {
   /** nonzeros of the factor L */
   readonly nnzL: number;
   /** pivots replaced by dynamic regularisation in the last factorisation */
   readonly replacedPivots: number;
-  factorise(D: Float64Array): KktStatus;
+  /** deadline: performance.now() value after which the factorisation gives up ('interrupted') */
+  factorise(D: Float64Array, deadline?: number): KktStatus;
   solve(rhat: Float64Array, rp: Float64Array, dv: Float64Array, dy: Float64Array): void;
 }

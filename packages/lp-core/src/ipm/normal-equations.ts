@@ -67,7 +67,7 @@ export class NormalEquations implements KktSolver {
       cols[t] = i;
       t++;
     }
-    this.F = new SymmetricFactorisation(m, rows, cols, settings.ordering);
+    this.F = new SymmetricFactorisation(m, rows, cols, settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8);
     this.dense = denseCols.length > 0 ? new DenseColumnUpdate(m, A, Int32Array.from(denseCols)) : null;
     this.qdiag = qDiagonal(n, prob.Q);
     this.thetaX = new Float64Array(n);
@@ -84,7 +84,7 @@ export class NormalEquations implements KktSolver {
     return this.F.nnzL;
   }
 
-  factorise(D: Float64Array): KktStatus {
+  factorise(D: Float64Array, deadline = Infinity): KktStatus {
     const { n, m, A } = this.prob;
     const { colPtr: Ap, values: Ax } = A;
     const { thetaX, thetaW, qdiag, isDense } = this;
@@ -108,8 +108,10 @@ export class NormalEquations implements KktSolver {
       pivotTolerance: this.settings.pivotTolerance,
       dynamicRegularisation: true,
       bigPivot: 1e128,
+      deadline,
     });
     this.replacedPivots = report.replacedPivots;
+    if (report.status === 'interrupted') return 'interrupted';
     if (report.status !== 'factorised') return 'numerical_trouble';
     if (this.dense && !this.dense.update(thetaX, (x) => this.F.solve(x))) return 'numerical_trouble';
     return 'factorised';

@@ -11,7 +11,7 @@
  */
 import type { SymbolicFactor } from './symbolic';
 
-export type FactorStatus = 'factorised' | 'zero_pivot' | 'not_finite';
+export type FactorStatus = 'factorised' | 'zero_pivot' | 'not_finite' | 'interrupted';
 
 export interface NumericFactor {
   Lx: Float64Array;
@@ -29,6 +29,8 @@ export interface FactorOptions {
   bigPivot: number;
   /** expected pivot signs (+1 / −1) by permuted position; when omitted any sign is accepted */
   sign?: Int8Array;
+  /** performance.now() value after which a long factorisation gives up ('interrupted') */
+  deadline?: number;
 }
 
 export interface FactorReport {

@@ -17,6 +17,7 @@ export class SupernodalLdl {
   readonly D: Float64Array;
   private readonly relmap: Int32Array;
   private readonly tmp: Float64Array;
+  private readonly rel: Int32Array;
   private readonly head: Int32Array;
   private readonly next: Int32Array;
   private readonly nextRow: Int32Array;
@@ -29,6 +30,7 @@ export class SupernodalLdl {
     let maxRows = 0;
     for (let s = 0; s < sym.count; s++) maxRows = Math.max(maxRows, sym.rowPtr[s + 1] - sym.rowPtr[s]);
     this.tmp = new Float64Array(maxRows);
+    this.rel = new Int32Array(maxRows);
     this.head = new Int32Array(sym.count);
     this.next = new Int32Array(sym.count);
     this.nextRow = new Int32Array(sym.count);
@@ -38,11 +40,15 @@ export class SupernodalLdl {
   /** Lp/Li/Lx: the lower triangle (rows ≥ column) of the permuted matrix in CSC form. */
   factorise(Lp: Int32Array, Li: Int32Array, Ax: Float64Array, opts: FactorOptions): FactorReport {
     const { count, super: sup, snode, rowPtr, rows, blockPtr } = this.sym;
-    const { Lx, D, relmap, tmp, head, next, nextRow, diag } = this;
+    const { Lx, D, relmap, tmp, rel, head, next, nextRow, diag } = this;
     const { pivotTolerance, dynamicRegularisation, bigPivot, sign } = opts;
+    const deadline = opts.deadline ?? Infinity;
     head.fill(-1);
     let replaced = 0;
     for (let s = 0; s < count; s++) {
+      if ((s & 31) === 0 && deadline < Infinity && performance.now() > deadline) {
+        return { status: 'interrupted', column: sup[s], replacedPivots: replaced };
+      }
       const f = sup[s];
       const l = sup[s + 1] - 1;
       const ws = l - f + 1;
@@ -75,25 +81,48 @@ export class SupernodalLdl {
         const start = nextRow[d];
         let end = start;
         while (end < nrd && rows[rd0 + end] <= l) end++;
-        for (let t = start; t < end; t++) {
-          for (let r = t; r < nrd; r++) tmp[r] = 0;
-          let k = 0;
-          for (; k + 1 < wd; k += 2) {
-            const b0 = offd + k * nrd;
-            const b1 = b0 + nrd;
-            const a0 = Lx[b0 + t] * D[fd + k];
-            const a1 = Lx[b1 + t] * D[fd + k + 1];
-            if (a0 === 0 && a1 === 0) continue;
-            for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0 + Lx[b1 + r] * a1;
+        // positions in s's block of d's rows from `start` on
+        for (let r = start; r < nrd; r++) rel[r] = relmap[rows[rd0 + r]];
+        if (wd <= 2) {
+          // narrow descendant: subtract straight into the target column
+          const b0 = offd;
+          const b1 = offd + nrd;
+          const d0 = D[fd];
+          const d1 = wd === 2 ? D[fd + 1] : 0;
+          for (let t = start; t < end; t++) {
+            const a0 = Lx[b0 + t] * d0;
+            const a1 = wd === 2 ? Lx[b1 + t] * d1 : 0;
+            const cbase = off + (rows[rd0 + t] - f) * nrs;
+            if (wd === 2) {
+              for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= Lx[b0 + r] * a0 + Lx[b1 + r] * a1;
+            } else if (a0 !== 0) {
+              for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= Lx[b0 + r] * a0;
+            }
           }
-          for (; k < wd; k++) {
-            const b0 = offd + k * nrd;
-            const a0 = Lx[b0 + t] * D[fd + k];
-            if (a0 === 0) continue;
-            for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0;
+        } else {
+          for (let t = start; t < end; t++) {
+            tmp.fill(0, t, nrd);
+            let k = 0;
+            for (; k + 3 < wd; k += 4) {
+              const b0 = offd + k * nrd;
+              const b1 = b0 + nrd;
+              const b2 = b1 + nrd;
+              const b3 = b2 + nrd;
+              const a0 = Lx[b0 + t] * D[fd + k];
+              const a1 = Lx[b1 + t] * D[fd + k + 1];
+              const a2 = Lx[b2 + t] * D[fd + k + 2];
+              const a3 = Lx[b3 + t] * D[fd + k + 3];
+              for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0 + Lx[b1 + r] * a1 + Lx[b2 + r] * a2 + Lx[b3 + r] * a3;
+            }
+            for (; k < wd; k++) {
+              const b0 = offd + k * nrd;
+              const a0 = Lx[b0 + t] * D[fd + k];
+              if (a0 === 0) continue;
+              for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0;
+            }
+            const cbase = off + (rows[rd0 + t] - f) * nrs;
+            for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= tmp[r];
           }
-          const cbase = off + (rows[rd0 + t] - f) * nrs;
-          for (let r = t; r < nrd; r++) Lx[cbase + relmap[rows[rd0 + r]]] -= tmp[r];
         }
         nextRow[d] = end;
         if (end < nrd) {
@@ -103,28 +132,61 @@ export class SupernodalLdl {
         }
         d = dNext;
       }
-      // 3. dense LDLᵀ of the trapezoidal block (right-looking inside the supernode)
-      for (let k = 0; k < ws; k++) {
-        const j = f + k;
-        const kb = off + k * nrs;
-        let dk = Lx[kb + k];
-        if (!Number.isFinite(dk)) return { status: 'not_finite', column: j, replacedPivots: replaced };
-        const sg = sign ? sign[j] : dk < 0 ? -1 : 1;
-        if (dk * sg <= pivotTolerance * (1 + Math.abs(diag[j]))) {
-          if (!dynamicRegularisation) return { status: 'zero_pivot', column: j, replacedPivots: replaced };
-          dk = sg * bigPivot;
-          replaced++;
+      // 3. dense LDLᵀ of the trapezoidal block, right-looking in panels of up to 4 columns:
+      //    factorise the panel, then update the trailing columns with it in one pass
+      for (let k0 = 0; k0 < ws; k0 += 4) {
+        const k1 = Math.min(k0 + 4, ws);
+        for (let k = k0; k < k1; k++) {
+          const j = f + k;
+          const kb = off + k * nrs;
+          let dk = Lx[kb + k];
+          if (!Number.isFinite(dk)) return { status: 'not_finite', column: j, replacedPivots: replaced };
+          const sg = sign ? sign[j] : dk < 0 ? -1 : 1;
+          if (dk * sg <= pivotTolerance * (1 + Math.abs(diag[j]))) {
+            if (!dynamicRegularisation) return { status: 'zero_pivot', column: j, replacedPivots: replaced };
+            dk = sg * bigPivot;
+            replaced++;
+          }
+          D[j] = dk;
+          const inv = 1 / dk;
+          // update the rest of the panel with column k (still unscaled: L·d)
+          for (let c = k + 1; c < k1; c++) {
+            const fct = Lx[kb + c] * inv;
+            if (fct === 0) continue;
+            const cb = off + c * nrs;
+            for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
+          }
         }
-        D[j] = dk;
-        const inv = 1 / dk;
-        for (let c = k + 1; c < ws; c++) {
-          const fct = Lx[kb + c] * inv;
-          if (fct === 0) continue;
+        // trailing update with the whole panel: column c −= Σ_k (L·d)_k · L_ck
+        const np = k1 - k0;
+        for (let c = k1; c < ws; c++) {
           const cb = off + c * nrs;
-          for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
+          if (np === 4) {
+            const p0 = off + k0 * nrs;
+            const p1 = p0 + nrs;
+            const p2 = p1 + nrs;
+            const p3 = p2 + nrs;
+            const f0 = Lx[p0 + c] / D[f + k0];
+            const f1 = Lx[p1 + c] / D[f + k0 + 1];
+            const f2 = Lx[p2 + c] / D[f + k0 + 2];
+            const f3 = Lx[p3 + c] / D[f + k0 + 3];
+            for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[p0 + r] * f0 + Lx[p1 + r] * f1 + Lx[p2 + r] * f2 + Lx[p3 + r] * f3;
+          } else {
+            for (let k = k0; k < k1; k++) {
+              const kb = off + k * nrs;
+              const fct = Lx[kb + c] / D[f + k];
+              if (fct === 0) continue;
+              for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
+            }
+          }
         }
-        for (let r = k + 1; r < nrs; r++) Lx[kb + r] *= inv;
-        Lx[kb + k] = 1;
+        // scale the panel's columns: L = (L·d) / d
+        for (let k = k0; k < k1; k++) {
+          const kb = off + k * nrs;
+          const inv = 1 / D[f + k];
+          for (let r = k + 1; r < nrs; r++) Lx[kb + r] *= inv;
+          Lx[kb + k] = 1;
+        }
       }
       if (nrs > ws) {
         nextRow[s] = ws;

@@ -19,6 +19,17 @@ import { supernodalSymbolic, type SupernodalSymbolic } from './supernodal-symbol
 import { SupernodalLdl } from './supernodal-ldl';
 
 export type Ordering = 'amd' | 'natural';
+
+/** thrown by the constructor, before the numeric arrays are allocated, when L would be too large */
+export class FactorTooLargeError extends Error {
+  constructor(
+    readonly entries: number,
+    readonly limit: number,
+  ) {
+    super(`the Cholesky factor would hold ${entries} entries (${Math.round((entries * 8) / 2 ** 20)} MB), above the limit of ${limit} entries`);
+    this.name = 'FactorTooLargeError';
+  }
+}
 export type Kernel = 'supernodal' | 'simplicial';
 
 export class SymmetricFactorisation {
@@ -41,7 +52,14 @@ export class SymmetricFactorisation {
   private readonly supernodal: { sym: SupernodalSymbolic; F: SupernodalLdl } | null;
   private readonly permuted: Float64Array;
 
-  constructor(n: number, rows: Int32Array, cols: Int32Array, ordering: Ordering = 'amd', kernel: Kernel = 'supernodal') {
+  constructor(
+    n: number,
+    rows: Int32Array,
+    cols: Int32Array,
+    ordering: Ordering = 'amd',
+    kernel: Kernel = 'supernodal',
+    maxEntries = Infinity,
+  ) {
     this.n = n;
     this.kernel = kernel;
     const T = rows.length;
@@ -65,13 +83,16 @@ export class SymmetricFactorisation {
       if (e >= this.Cp[k] && e < this.Cp[k + 1] && this.Ci[e] === k) this.diagSlot[this.perm[k]] = e;
     }
     if (kernel === 'supernodal') {
-      const sym = supernodalSymbolic(n, up0Upper(n, this.Cp, this.Ci).Cp, up0Upper(n, this.Cp, this.Ci).Ci);
+      const upper = up0Upper(n, this.Cp, this.Ci);
+      const sym = supernodalSymbolic(n, upper.Cp, upper.Ci);
+      if (sym.nnzL > maxEntries) throw new FactorTooLargeError(sym.nnzL, maxEntries);
       this.supernodal = { sym, F: new SupernodalLdl(sym) };
       this.simplicial = null;
       this.nnzL = sym.nnzL;
       this.flops = sym.flops;
     } else {
       const sym = symbolicFactor(n, this.Cp, this.Ci);
+      if (sym.nnzL > maxEntries) throw new FactorTooLargeError(sym.nnzL, maxEntries);
       this.simplicial = { sym, F: allocateNumericFactor(sym), work: new Float64Array(n) };
       this.supernodal = null;
       this.nnzL = sym.nnzL + n;
