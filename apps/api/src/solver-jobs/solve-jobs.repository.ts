@@ -34,18 +34,18 @@ export async function enqueueJob(db: EntityManager, planId: number, kind: SolveJ
 }
 
 /**
- * Claims the oldest job that is queued, or running with a heartbeat older than `staleMs` (its
+ * Claims the oldest job of `kind` that is queued, or running with a heartbeat older than `staleMs` (its
  * process died). `SELECT … FOR UPDATE SKIP LOCKED`: API processes sharing the database never claim
  * the same job.
  */
-export async function claimNextJob(ds: DataSource, workerId: string, staleMs: number): Promise<ClaimedJob | null> {
+export async function claimNextJob(ds: DataSource, workerId: string, staleMs: number, kind: SolveJobKind): Promise<ClaimedJob | null> {
   return ds.transaction(async (db) => {
     const now = new Date();
     const rows: { id: number; plan_id: number; kind: SolveJobKind }[] = await db.query(
       `SELECT id, plan_id, kind FROM solve_job
-        WHERE state = 'queued' OR (state = 'running' AND heartbeat_at < ?)
+        WHERE kind = ? AND (state = 'queued' OR (state = 'running' AND heartbeat_at < ?))
         ORDER BY id LIMIT 1 FOR UPDATE SKIP LOCKED`,
-      [new Date(now.getTime() - staleMs)],
+      [kind, new Date(now.getTime() - staleMs)],
     );
     const row = rows[0];
     if (!row) return null;

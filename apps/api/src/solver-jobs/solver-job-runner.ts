@@ -1,7 +1,8 @@
 import { hostname } from 'node:os';
 import type { DataSource } from 'typeorm';
-import type { CrossCheck } from '@millrace/contracts';
-import { findPlan, loadPlanInputs, loadPlanMps, setSolveStatus, storeCrossCheck, storeSolveOutcome } from '../plans/plans.repository';
+import type { CrossCheck, CrossCheckSolver } from '@millrace/contracts';
+import type { SolveJobKind } from '../db/entities/solve-job.entity';
+import { findPlan, findPlanDetail, loadPlanInputs, loadPlanMps, setSolveStatus, storeCrossCheck, storeSolveOutcome } from '../plans/plans.repository';
 import type { ComputeProgress } from './compute-plan';
 import { chooseCrossCheckSolver, defaultCrossCheckSettings, type CrossCheckSettings } from './cross-check-plan';
 import { runInWorker, type RunningWorker } from './run-in-worker';
@@ -28,55 +29,34 @@ export const defaultSolverJobRunnerSettings: SolverJobRunnerSettings = {
 /**
  * Claims solver jobs from the `solve_job` table and runs each in a worker thread: the plan solve
  * (progress written at a throttled rate, cancellable) and, after it, the background cross-check.
- * One job at a time per process; several API processes share the queue.
+ * One solve and one cross-check at a time per process; several API processes share the queue.
  */
 export class SolverJobRunner {
   private readonly settings: SolverJobRunnerSettings;
   private readonly workerId = `${hostname()}:${process.pid}:${Math.random().toString(36).slice(2, 8)}`;
-  private timer: NodeJS.Timeout | null = null;
-  private current: Promise<void> | null = null;
-  private stopped = true;
+  private readonly lanes: Lane[];
 
   constructor(
     private readonly ds: DataSource,
     settings: Partial<SolverJobRunnerSettings> = {},
   ) {
     this.settings = { ...defaultSolverJobRunnerSettings, ...settings };
+    // Two lanes, so a long cross-check never holds up the next plan's solve.
+    this.lanes = (['solve', 'cross_check'] as const).map((kind) => new Lane(() => this.claimAndRun(kind), this.settings.pollMs));
   }
 
   start(): void {
-    if (!this.stopped) return;
-    this.stopped = false;
-    this.schedule(0);
+    for (const lane of this.lanes) lane.start();
   }
 
-  /** Stops claiming; waits for the job in hand to end. */
+  /** Stops claiming; waits for the jobs in hand to end. */
   async stop(): Promise<void> {
-    this.stopped = true;
-    if (this.timer) clearTimeout(this.timer);
-    this.timer = null;
-    await this.current;
-  }
-
-  private schedule(delay: number): void {
-    if (this.stopped) return;
-    this.timer = setTimeout(() => {
-      this.current = this.claimAndRun()
-        .then((ran) => ran)
-        .catch((err: unknown) => {
-          console.error('solver jobs: a round failed:', err instanceof Error ? err.message : err);
-          return false;
-        })
-        .then((ran) => {
-          this.current = null;
-          this.schedule(ran ? 0 : this.settings.pollMs);
-        });
-    }, delay);
+    await Promise.all(this.lanes.map((lane) => lane.stop()));
   }
 
   /** Claims and runs one job; false when the queue was empty. */
-  async claimAndRun(): Promise<boolean> {
-    const job = await claimNextJob(this.ds, this.workerId, this.settings.staleMs);
+  async claimAndRun(kind: SolveJobKind): Promise<boolean> {
+    const job = await claimNextJob(this.ds, this.workerId, this.settings.staleMs, kind);
     if (!job) return false;
     try {
       if (job.kind === 'solve') await this.runSolve(job);
@@ -87,7 +67,7 @@ export class SolverJobRunner {
       await this.ds.transaction(async (db) => {
         await finishJob(db, job.id, 'failed', message);
         if (job.kind === 'solve') await setSolveStatus(db, job.planId, 'failed', `The solve failed: ${message}`);
-        else await storeCrossCheck(db, job.planId, notFinished(job, message));
+        else await storeCrossCheck(db, job.planId, notFinished((await findPlanDetail(db, job.planId))?.certificate?.crossCheck?.solver ?? 'highs', message));
       });
     }
     return true;
@@ -136,7 +116,12 @@ export class SolverJobRunner {
       await this.ds.transaction(async (db) => {
         await storeSolveOutcome(db, job.planId, { ...record, crossCheck });
         await finishJob(db, job.id, 'finished', record.message);
-        await db.query('UPDATE solve_job SET elapsed_seconds = ? WHERE id = ?', [(performance.now() - started) / 1000, job.id]);
+        await db.query('UPDATE solve_job SET elapsed_seconds = ?, iteration = ?, relative_gap = ? WHERE id = ?', [
+          (performance.now() - started) / 1000,
+          record.certificate?.iterations ?? 0,
+          Number.isFinite(record.certificate?.relativeGap) ? record.certificate!.relativeGap : null,
+          job.id,
+        ]);
         if (crossCheck) await enqueueJob(db, job.planId, 'cross_check');
       });
     } finally {
@@ -207,9 +192,9 @@ export class SolverJobRunner {
   }
 }
 
-function notFinished(job: ClaimedJob, message: string): CrossCheck {
+function notFinished(solver: CrossCheckSolver, message: string): CrossCheck {
   return {
-    solver: 'highs',
+    solver,
     status: 'not_finished',
     objective: null,
     planObjective: null,
@@ -217,4 +202,44 @@ function notFinished(job: ClaimedJob, message: string): CrossCheck {
     seconds: null,
     message: `The cross-check could not finish: ${message}`,
   };
+}
+
+/** One claim loop: run a round, go again at once after work, wait `pollMs` when idle. */
+class Lane {
+  private timer: NodeJS.Timeout | null = null;
+  private current: Promise<void> | null = null;
+  private stopped = true;
+
+  constructor(
+    private readonly round: () => Promise<boolean>,
+    private readonly pollMs: number,
+  ) {}
+
+  start(): void {
+    if (!this.stopped) return;
+    this.stopped = false;
+    this.schedule(0);
+  }
+
+  async stop(): Promise<void> {
+    this.stopped = true;
+    if (this.timer) clearTimeout(this.timer);
+    this.timer = null;
+    await this.current;
+  }
+
+  private schedule(delay: number): void {
+    if (this.stopped) return;
+    this.timer = setTimeout(() => {
+      this.current = this.round()
+        .catch((err: unknown) => {
+          console.error('solver jobs: a round failed:', err instanceof Error ? err.message : err);
+          return false;
+        })
+        .then((ran) => {
+          this.current = null;
+          this.schedule(ran ? 0 : this.pollMs);
+        });
+    }, delay);
+  }
 }
