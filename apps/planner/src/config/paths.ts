@@ -20,6 +20,18 @@ export const paths = {
   demand: { path: '/demand', getHref: () => '/demand' },
   settings: { path: '/settings', getHref: () => '/settings' },
   people: { path: '/people', getHref: () => '/people' },
+  plans: { path: '/plans', getHref: () => '/plans' },
+  planNew: { path: '/plans/new', getHref: () => '/plans/new' },
+  planCompare: {
+    path: '/plans/compare',
+    getHref: (a?: number, b?: number) => (a && b ? `/plans/compare?a=${a}&b=${b}` : a ? `/plans/compare?a=${a}` : '/plans/compare'),
+  },
+  plan: { path: '/plans/:planId', getHref: (id: number | string) => `/plans/${id}` },
+  planResults: { path: '/plans/:planId/results', getHref: (id: number | string) => `/plans/${id}/results` },
+  planReview: { path: '/plans/:planId/review', getHref: (id: number | string) => `/plans/${id}/review` },
+  scenarios: { path: '/scenarios', getHref: () => '/scenarios' },
+  scenarioNew: { path: '/scenarios/new', getHref: () => '/scenarios/new' },
+  scenario: { path: '/scenarios/:scenarioId', getHref: (id: number | string) => `/scenarios/${id}` },
 } as const;
 
 export type PathId = keyof typeof paths;

@@ -11,7 +11,10 @@ export type Permission =
   | 'write:settings'
   | 'manage:people'
   | 'read:demand'
-  | 'write:demand';
+  | 'write:demand'
+  | 'read:plans'
+  | 'write:plans'
+  | 'review:plans';
 
 const policy: Record<Permission, readonly Role[]> = {
   'read:master-data': ['admin', 'planner', 'supervisor'],
@@ -21,6 +24,10 @@ const policy: Record<Permission, readonly Role[]> = {
   'manage:people': ['admin'],
   'read:demand': ['admin', 'planner', 'supervisor'],
   'write:demand': ['planner'],
+  // Plans, scenarios and sign-off (apps/api/src/plans, scenarios, sign-off routers).
+  'read:plans': ['admin', 'planner', 'supervisor'],
+  'write:plans': ['planner'],
+  'review:plans': ['supervisor'],
 };
 
 export function can(role: Role | undefined, permission: Permission): boolean {

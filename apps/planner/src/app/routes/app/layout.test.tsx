@@ -14,10 +14,10 @@ afterEach(() => vi.unstubAllGlobals());
  * with plans); admins run people and plant settings and read the data.
  */
 const expectedLinks: Record<Role, string[]> = {
-  planner: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plant settings'],
-  supervisor: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plant settings'],
+  planner: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Scenarios', 'Plant settings'],
+  supervisor: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Scenarios', 'Plant settings'],
   floor_lead: ['Home'],
-  admin: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'People', 'Plant settings'],
+  admin: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Scenarios', 'People', 'Plant settings'],
 };
 
 describe('role-dependent navigation', () => {

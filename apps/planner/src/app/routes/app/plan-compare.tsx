@@ -1,0 +1,5 @@
+import { PlanComparePage } from '@/features/plans/compare';
+
+export default function PlanCompareRoute() {
+  return <PlanComparePage />;
+}

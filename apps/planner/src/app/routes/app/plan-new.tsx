@@ -1,0 +1,5 @@
+import { PlanNewPage } from '@/features/plans';
+
+export default function PlanNewRoute() {
+  return <PlanNewPage />;
+}

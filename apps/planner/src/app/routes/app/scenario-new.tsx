@@ -1,0 +1,5 @@
+import { ScenarioNewPage } from '@/features/plans/scenarios';
+
+export default function ScenarioNewRoute() {
+  return <ScenarioNewPage />;
+}

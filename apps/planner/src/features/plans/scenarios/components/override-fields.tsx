@@ -1,0 +1,110 @@
+import { useFormContext } from 'react-hook-form';
+import type { ScenarioOverride, ScenarioOverrideKind } from '@millrace/contracts';
+import { Input, Select } from '@/components/ui/field';
+import { FormInput, useFieldError, useRegisteredName } from '@/components/ui/form';
+import type { MasterChoices } from '../../api/get-master-choices';
+
+/** Words for each kind of override (our own names). */
+export const overrideKindWords: Record<ScenarioOverrideKind, string> = {
+  extra_shift: 'Extra shift on a work center',
+  supply_cap: 'Supply cap on a material',
+  demand_scale: 'Demand scaled',
+  maintenance: 'Work center down for maintenance',
+};
+
+/** A fresh override of a kind, keeping the weeks already chosen. */
+export function blankOverride(kind: ScenarioOverrideKind, weeks: { fromWeek: string; toWeek: string }): ScenarioOverride {
+  switch (kind) {
+    case 'extra_shift':
+      return { kind, workCenter: '', ...weeks, extraShiftsPerDay: 1 };
+    case 'supply_cap':
+      return { kind, material: '', ...weeks, weeklySupplyCap: 0 };
+    case 'demand_scale':
+      return { kind, ...weeks, factor: 1 };
+    case 'maintenance':
+      return { kind, workCenter: '', ...weeks };
+  }
+}
+
+/** A select bound by name whose empty choice means "not given" (undefined). */
+function CodeSelect({ name, label, options, emptyLabel, optional }: { name: string; label: string; options: { code: string; name: string }[]; emptyLabel: string; optional?: boolean }) {
+  const { register } = useFormContext();
+  useRegisteredName(name);
+  const error = useFieldError(name);
+  return (
+    <Select
+      {...register(name, { setValueAs: (v: unknown) => (v === '' || v == null ? (optional ? undefined : '') : v) })}
+      label={label}
+      error={error}
+      placeholder={emptyLabel}
+      options={options.map((o) => ({ value: o.code, label: `${o.code} ${o.name}` }))}
+    />
+  );
+}
+
+/** A number input bound by name whose empty text means "not given" (undefined). */
+function OptionalNumber({ name, label, hint }: { name: string; label: string; hint: string }) {
+  const { register } = useFormContext();
+  useRegisteredName(name);
+  const error = useFieldError(name);
+  return (
+    <Input
+      {...register(name, {
+        setValueAs: (v: unknown) => {
+          if (v === '' || v == null) return undefined;
+          const n = Number(String(v).replace(',', '.'));
+          return Number.isNaN(n) ? v : n;
+        },
+      })}
+      inputMode="decimal"
+      label={label}
+      hint={hint}
+      error={error}
+    />
+  );
+}
+
+/** The fields of one override, by its kind. */
+export function OverrideFields({ index, kind, choices }: { index: number; kind: ScenarioOverrideKind; choices: MasterChoices }) {
+  const at = (field: string) => `overrides.${index}.${field}`;
+  const weeks = (
+    <>
+      <FormInput name={at('fromWeek')} label="From week" type="date" hint="A week-start date." />
+      <FormInput name={at('toWeek')} label="To week (inclusive)" type="date" hint="A week-start date." />
+    </>
+  );
+  switch (kind) {
+    case 'extra_shift':
+      return (
+        <div className="grid grid-cols-4 gap-3">
+          <CodeSelect name={at('workCenter')} label="Work center" options={choices.workCenters} emptyLabel="Choose a work center" />
+          {weeks}
+          <FormInput name={at('extraShiftsPerDay')} label="Extra shifts a day" number="number" hint="1 to 3." />
+        </div>
+      );
+    case 'supply_cap':
+      return (
+        <div className="grid grid-cols-4 gap-3">
+          <CodeSelect name={at('material')} label="Material" options={choices.materials} emptyLabel="Choose a material" />
+          {weeks}
+          <FormInput name={at('weeklySupplyCap')} label="Supply cap a week" number="number" hint="Units of the material." />
+        </div>
+      );
+    case 'demand_scale':
+      return (
+        <div className="grid grid-cols-4 gap-3">
+          <CodeSelect name={at('product')} label="Product" options={choices.products} emptyLabel="Every product" optional />
+          {weeks}
+          <FormInput name={at('factor')} label="Factor" number="number" hint="0.5 halves demand, 1.2 adds 20 %." />
+        </div>
+      );
+    case 'maintenance':
+      return (
+        <div className="grid grid-cols-4 gap-3">
+          <CodeSelect name={at('workCenter')} label="Work center" options={choices.workCenters} emptyLabel="Choose a work center" />
+          {weeks}
+          <OptionalNumber name={at('downtimeHours')} label="Hours down a week" hint="Leave empty for closed all week." />
+        </div>
+      );
+  }
+}
