@@ -12,6 +12,7 @@ import { presolve, type PresolveOutcome } from './presolve/presolve';
 import { identityScaling, ruizEquilibration, scaleMatrix, type Scaling } from './scaling/ruiz-equilibration';
 import type { IpmProblem } from './ipm/ipm-problem';
 import { interiorPointMethod, type IpmOutcome } from './ipm/interior-point-method';
+import { elasticProblem } from './infeasibility/elastic-problem';
 
 export function solve(problem: Problem, partial: Partial<IpmSettings> = {}): SolveResult {
   const settings = resolveSettings(partial);
@@ -62,6 +63,11 @@ export function solve(problem: Problem, partial: Partial<IpmSettings> = {}): Sol
       if (status === 'infeasible') ray = dualRay(problem, outcome, scaling);
       if (status === 'unbounded') ray = primalRay(problem, outcome, scaling);
     }
+  }
+  if (status === 'numerical_trouble' || status === 'iteration_limit') {
+    // the method stalled: settle feasibility with the elastic problem, which always converges
+    const verdict = stage('feasibility', () => elasticVerdict(problem, partial, clock));
+    if (verdict) return { ...verdict, seconds: (performance.now() - start) / 1000, timings };
   }
   const { x, y } = stage('postsolve', () => pre.postsolve(xr, yr));
   const point = certify(problem, x, y);
@@ -139,4 +145,43 @@ function normalised(values: { name: string; value: number }[]): { name: string; 
   const big = values.reduce((a, e) => Math.max(a, Math.abs(e.value)), 0);
   if (!(big > 0) || !Number.isFinite(big)) return [];
   return values.filter((e) => Math.abs(e.value) > 1e-9 * big).map((e) => ({ name: e.name, value: e.value / big }));
+}
+
+/**
+ * Solves the elastic problem (infeasibility/elastic-problem.ts). A positive least violation
+ * proves infeasibility: the result then carries its duals as the Farkas ray. Returns null when
+ * the problem is feasible or the elastic solve did not finish.
+ */
+function elasticVerdict(p: Problem, partial: Partial<IpmSettings>, clock: { start: number; deadline: number }): SolveResult | null {
+  const remaining = (clock.deadline - performance.now()) / 1000;
+  if (!(remaining > 0)) return null;
+  const e = solve(elasticProblem(p), {
+    ...partial,
+    onIteration: undefined,
+    timeLimitSeconds: Math.min(remaining, partial.timeLimitSeconds ?? Infinity),
+    maxIterations: Math.max(partial.maxIterations ?? 100, 100),
+  });
+  if (e.status !== 'optimal') return null;
+  let bNorm = 0;
+  for (const a of [p.rowLower, p.rowUpper, p.colLower, p.colUpper]) for (const v of a) if (Number.isFinite(v)) bNorm = Math.max(bNorm, Math.abs(v));
+  if (!(e.objective > 1e-6 * (1 + bNorm))) return null;
+  const n = p.c.length;
+  const m = p.rowLower.length;
+  const entries: { name: string; value: number }[] = [];
+  for (let i = 0; i < m; i++) entries.push({ name: p.rowNames[i], value: e.rowDuals[i] });
+  for (let j = 0; j < n; j++) entries.push({ name: p.colNames[j], value: e.reducedCosts[j] });
+  const point = certify(p, e.x.subarray(0, n), e.rowDuals);
+  return {
+    status: 'infeasible',
+    objective: point.primalObjective * (p.maximise ? -1 : 1),
+    x: Float64Array.from(e.x.subarray(0, n)),
+    rowActivity: point.rowActivity,
+    rowDuals: e.rowDuals,
+    reducedCosts: point.reducedCosts,
+    iterations: e.iterations,
+    seconds: e.seconds,
+    certificate: point.certificate,
+    ray: { kind: 'primal_infeasible', entries: normalised(entries) },
+    message: `no point satisfies the constraints: the least total row violation is ${e.objective.toPrecision(6)} (elastic problem)`,
+  };
 }

@@ -109,6 +109,31 @@ describe.each([true, false])('small LPs (presolve %s)', (presolve) => {
     expect(r.ray?.entries.length).toBeGreaterThan(0);
   });
 
+  it('infeasible with parallel rows (−8x₁ = −40 and −8x₁ ≤ −45): the ray proves it', async () => {
+    // x₁ = 5 from the equality, x₁ ≥ 5.625 from the inequality (a case where the interior-point
+    // iterates stall; the elastic problem settles it)
+    const p = problemFromDense({
+      c: [10.5, 0, -1],
+      A: [[-8, 0, 0], [0, 0, 2], [0, 0, 0], [-8, 0, 0]],
+      rowLower: [-40, 11, -2, NO],
+      rowUpper: [-40, 15, 2, -45],
+      colLower: [0, 0, 6],
+      colUpper: [INF, INF, 6],
+      rowNames: ['eq', 'r2', 'r3', 'le'],
+    });
+    const r = solve(p, { presolve });
+    expect(r.status).toBe('infeasible');
+    expect((await solveWithHighs(p, { method: 'simplex' })).status).toBe('infeasible');
+    const y = new Map(r.ray!.entries.map((e) => [e.name, e.value]));
+    const yEq = y.get('eq') ?? 0;
+    const yLe = y.get('le') ?? 0;
+    // Farkas: −8·y_eq − 8·y_le + z₁ = 0 with z₁ ≥ 0 (x₁ ≥ 0), y_le ≤ 0, and
+    // −40·y_eq − (−45)·y_le⁻ ... = −40·y_eq + 45·|y_le| > 0
+    expect(yLe).toBeLessThan(0);
+    expect(-40 * yEq - 45 * yLe).toBeGreaterThan(0);
+    expect(-8 * yEq - 8 * yLe).toBeLessThanOrEqual(1e-7);
+  });
+
   it('unbounded: max x₁ + x₂ s.t. x₁ − x₂ ≤ 1, x ≥ 0; the ray is a feasible direction of increase', async () => {
     const p = problemFromDense({ sense: 'maximise', c: [1, 1], A: [[1, -1]], rowLower: [NO], rowUpper: [1] });
     const r = solve(p, { presolve });
