@@ -13,7 +13,7 @@ import { formatWeekLong } from '@/lib/format';
 import { useDemand } from './api/get-demand';
 import { useSaveDemand } from './api/save-demand';
 import { CellOrders } from './components/cell-orders';
-import { buildChanges, cellKey, gridLines, type GridLine } from './components/demand-edits';
+import { buildChanges, gridLines, pendingChanges, type GridLine } from './components/demand-edits';
 import { DemandGrid, type CellEdit, type GridNotice } from './components/demand-grid';
 
 /** Horizons offered (weeks). */
@@ -60,7 +60,7 @@ export function DemandPage({ canEdit }: { canEdit: boolean }) {
     );
   }, [demand.data, q, kind]);
 
-  const changeCount = useMemo(() => (demand.data ? countChanges(demand.data.rows, pending) : 0), [demand.data, pending]);
+  const changeCount = useMemo(() => (demand.data ? pendingChanges(demand.data.rows, pending).length : 0), [demand.data, pending]);
 
   useEffect(() => {
     if (changeCount === 0) return;
@@ -273,24 +273,19 @@ export function DemandPage({ canEdit }: { canEdit: boolean }) {
               onActiveChange={(line, week) => setActiveCell({ line, week })}
             />
             {activeRow && activeCell && activeCell.line.kind === 'firm' && activeRow.cells[activeCell.week] ? (
-              <CellOrders productCode={activeRow.productCode} unit={activeRow.unit} cell={activeRow.cells[activeCell.week]} />
+              <CellOrders
+                productCode={activeRow.productCode}
+                unit={activeRow.unit}
+                cell={activeRow.cells[activeCell.week]}
+                pending={pending}
+                readOnly={!canEdit}
+                onEdit={onEdit}
+                onNotice={setNotice}
+              />
             ) : null}
           </div>
         )
       ) : null}
     </>
   );
-}
-
-function countChanges(rows: { productId: number; cells: { weekStart: string; firmQty: number; forecastQty: number }[] }[], pending: ReadonlyMap<string, number>): number {
-  if (pending.size === 0) return 0;
-  let n = 0;
-  for (const row of rows)
-    for (const cell of row.cells) {
-      const f = pending.get(cellKey(row.productId, cell.weekStart, 'firm'));
-      if (f !== undefined && f !== cell.firmQty) n += 1;
-      const p = pending.get(cellKey(row.productId, cell.weekStart, 'forecast'));
-      if (p !== undefined && p !== cell.forecastQty) n += 1;
-    }
-  return n;
 }

@@ -1,12 +1,16 @@
-import type { DemandChange, DemandGrid, DemandKind, DemandRow } from '@millrace/contracts';
+import type { DemandChange, DemandGrid, DemandKind, DemandRow, FirmOrder } from '@millrace/contracts';
 
 /** One line of the grid: a product's firm orders or its forecast. */
 export type GridLine = { row: DemandRow; kind: DemandKind };
 
-/** Edited quantities not yet saved, by cell. */
+/**
+ * Edited quantities not yet saved. Keys: `cellKey(...)` for a forecast cell or a firm cell with
+ * at most one order; `orderKey(id)` for one order of a firm cell that holds several.
+ */
 export type PendingEdits = ReadonlyMap<string, number>;
 
 export const cellKey = (productId: number, weekStart: string, kind: DemandKind) => `${productId}|${weekStart}|${kind}`;
+export const orderKey = (orderId: number) => `order|${orderId}`;
 
 export function gridLines(rows: DemandRow[]): GridLine[] {
   return rows.flatMap((row) => [
@@ -21,15 +25,56 @@ export function savedQty(line: GridLine, week: number): number {
 }
 
 /**
- * A firm cell holds customer orders; the grid edits it when it has at most one order (the
- * quantity of that order, or a new order). Cells with several orders are read-only in the grid.
+ * A firm cell holds customer orders; the grid types into it when it has at most one order (the
+ * quantity of that order, or a new order). With several orders, each is changed in the order
+ * list under the grid and the cell shows their total.
  */
 export function isEditable(line: GridLine, week: number): boolean {
   return line.kind === 'forecast' || line.row.cells[week].firmOrders.length <= 1;
 }
 
+export function orderQty(order: FirmOrder, pending: PendingEdits): number {
+  return pending.get(orderKey(order.id)) ?? order.qty;
+}
+
 export function shownQty(line: GridLine, week: number, pending: PendingEdits): number {
-  return pending.get(cellKey(line.row.productId, line.row.cells[week].weekStart, line.kind)) ?? savedQty(line, week);
+  const cell = line.row.cells[week];
+  if (line.kind === 'firm' && cell.firmOrders.length > 1) return cell.firmOrders.reduce((s, o) => s + orderQty(o, pending), 0);
+  return pending.get(cellKey(line.row.productId, cell.weekStart, line.kind)) ?? savedQty(line, week);
+}
+
+/** One pending change: what to send, or a firm quantity that still needs an order reference. */
+type PendingChange = { key: string; change: DemandChange } | { key: string; needsOrderRef: true; productId: number; weekStart: string; qty: number };
+
+/** Every pending edit that differs from what was read, in grid order. */
+export function pendingChanges(rows: DemandRow[], pending: PendingEdits): PendingChange[] {
+  const out: PendingChange[] = [];
+  if (pending.size === 0) return out;
+  for (const row of rows) {
+    for (const cell of row.cells) {
+      const firmKey = cellKey(row.productId, cell.weekStart, 'firm');
+      if (cell.firmOrders.length > 1) {
+        for (const order of cell.firmOrders) {
+          const qty = pending.get(orderKey(order.id));
+          if (qty !== undefined && qty !== order.qty)
+            out.push({ key: firmKey, change: { kind: 'firm', productId: row.productId, weekStart: cell.weekStart, orderRef: order.orderRef, qty, version: order.version } });
+        }
+      } else {
+        const qty = pending.get(firmKey);
+        const order = cell.firmOrders[0];
+        if (qty !== undefined && qty !== cell.firmQty) {
+          if (order) out.push({ key: firmKey, change: { kind: 'firm', productId: row.productId, weekStart: cell.weekStart, orderRef: order.orderRef, qty, version: order.version } });
+          else out.push({ key: firmKey, needsOrderRef: true, productId: row.productId, weekStart: cell.weekStart, qty });
+        }
+      }
+      const forecastKey = cellKey(row.productId, cell.weekStart, 'forecast');
+      const forecast = pending.get(forecastKey);
+      if (forecast !== undefined && forecast !== cell.forecastQty) {
+        out.push({ key: forecastKey, change: { kind: 'forecast', productId: row.productId, weekStart: cell.weekStart, qty: forecast, version: cell.forecastVersion } });
+      }
+    }
+  }
+  return out;
 }
 
 export type ChangeSet =
@@ -38,32 +83,18 @@ export type ChangeSet =
 
 /** The body of PUT /api/demand for the pending edits: each change carries the version it read. */
 export function buildChanges(grid: DemandGrid, pending: PendingEdits, newOrderRef: string): ChangeSet {
+  const ref = newOrderRef.trim();
+  const list = pendingChanges(grid.rows, pending);
+  const missing = list.filter((p) => 'needsOrderRef' in p).length;
+  if (missing > 0 && !ref) return { outcome: 'needs-order-ref', count: missing };
   const changes: DemandChange[] = [];
   const keys: string[] = [];
-  let missingRef = 0;
-  for (const row of grid.rows) {
-    row.cells.forEach((cell) => {
-      const forecastKey = cellKey(row.productId, cell.weekStart, 'forecast');
-      const forecast = pending.get(forecastKey);
-      if (forecast !== undefined && forecast !== cell.forecastQty) {
-        changes.push({ kind: 'forecast', productId: row.productId, weekStart: cell.weekStart, qty: forecast, version: cell.forecastVersion });
-        keys.push(forecastKey);
-      }
-      const firmKey = cellKey(row.productId, cell.weekStart, 'firm');
-      const firm = pending.get(firmKey);
-      if (firm !== undefined && firm !== cell.firmQty) {
-        const order = cell.firmOrders[0];
-        if (order) {
-          changes.push({ kind: 'firm', productId: row.productId, weekStart: cell.weekStart, orderRef: order.orderRef, qty: firm, version: order.version });
-          keys.push(firmKey);
-        } else if (newOrderRef.trim()) {
-          changes.push({ kind: 'firm', productId: row.productId, weekStart: cell.weekStart, orderRef: newOrderRef.trim(), qty: firm, version: null });
-          keys.push(firmKey);
-        } else missingRef += 1;
-      }
-    });
+  for (const p of list) {
+    keys.push(p.key);
+    changes.push(
+      'needsOrderRef' in p ? { kind: 'firm', productId: p.productId, weekStart: p.weekStart, orderRef: ref, qty: p.qty, version: null } : p.change,
+    );
   }
-  if (missingRef > 0) return { outcome: 'needs-order-ref', count: missingRef };
   return { outcome: 'ready', changes, keys };
 }
 

@@ -11,7 +11,7 @@ afterEach(() => vi.unstubAllGlobals());
 const weeks = ['2026-12-07', '2026-12-14', '2026-12-21'];
 const empty = (weekStart: string) => ({ weekStart, firmQty: 0, firmOrders: [], forecastQty: 0, forecastVersion: null });
 
-/** Two products × three weeks; T-1 has one firm order in week 1 and a forecast in week 2. */
+/** Two products × three weeks; T-1 has one firm order in week 1, a forecast in week 2 and two orders (B-1, B-2) in week 3. */
 const grid: DemandGrid = {
   weeks,
   rows: [
@@ -24,12 +24,21 @@ const grid: DemandGrid = {
       cells: [
         { weekStart: weeks[0], firmQty: 10, firmOrders: [{ id: 11, orderRef: 'A-1', qty: 10, version: 2 }], forecastQty: 0, forecastVersion: null },
         { weekStart: weeks[1], firmQty: 0, firmOrders: [], forecastQty: 4, forecastVersion: 3 },
-        empty(weeks[2]),
+        {
+          weekStart: weeks[2],
+          firmQty: 5,
+          firmOrders: [
+            { id: 21, orderRef: 'B-1', qty: 2, version: 1 },
+            { id: 22, orderRef: 'B-2', qty: 3, version: 6 },
+          ],
+          forecastQty: 0,
+          forecastVersion: null,
+        },
       ],
     },
     { productId: 2, productCode: 'C-1', productName: 'Test chair', unit: 'pcs', kind: 'finished', cells: weeks.map(empty) },
   ],
-  weekTotals: weeks.map((w, i) => ({ weekStart: w, firmQty: i === 0 ? 10 : 0, forecastQty: i === 1 ? 4 : 0 })),
+  weekTotals: weeks.map((w, i) => ({ weekStart: w, firmQty: [10, 0, 5][i], forecastQty: i === 1 ? 4 : 0 })),
   total: 2,
   page: 1,
   pageSize: 5000,
@@ -128,8 +137,8 @@ describe('demand grid', () => {
     expect(puts[0].body).toEqual({
       changes: [
         { kind: 'firm', productId: 1, weekStart: '2026-12-07', orderRef: 'A-1', qty: 8, version: 2 },
-        { kind: 'forecast', productId: 1, weekStart: '2026-12-14', qty: 9, version: 3 },
         { kind: 'firm', productId: 1, weekStart: '2026-12-14', orderRef: 'PO-77', qty: 3, version: null },
+        { kind: 'forecast', productId: 1, weekStart: '2026-12-14', qty: 9, version: 3 },
       ],
     });
   });
@@ -152,6 +161,26 @@ describe('demand grid', () => {
     await waitFor(() => expect(screen.queryByRole('alert')).not.toBeInTheDocument());
     expect(cell(/^T-1 forecast, week of 14 Dec 2026: 9, changed$/)).toBeInTheDocument();
     expect(api.sent('GET', '/api/demand')).toHaveLength(2);
+  });
+
+  it('when a week holds several firm orders, then typing is refused in the grid and each order is changed in the list below', async () => {
+    const { api, user } = await openGrid();
+    api.on('PUT /api/demand', () => json({ created: 0, updated: 1, deleted: 0, unchanged: 0 }));
+    await user.click(cell(/^T-1 firm, week of 21 Dec 2026: 5, 2 orders/));
+    await user.keyboard('9');
+    expect(screen.getByText(/several firm orders; change each one in the order list below the grid/)).toBeInTheDocument();
+
+    const b2 = screen.getByRole('textbox', { name: 'Quantity of order B-2' });
+    await user.clear(b2);
+    await user.type(b2, '7{Enter}');
+    expect(cell(/^T-1 firm, week of 21 Dec 2026: 9, changed, 2 orders/)).toBeInTheDocument();
+    expect(cell(/^Firm total, week of 21 Dec 2026: 9$/)).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Save changes' }));
+    await screen.findByText(/Saved in one go/);
+    expect(api.sent('PUT', '/api/demand')[0].body).toEqual({
+      changes: [{ kind: 'firm', productId: 1, weekStart: '2026-12-21', orderRef: 'B-2', qty: 7, version: 6 }],
+    });
   });
 
   it('when a supervisor opens demand, then cells are read-only and typing changes nothing', async () => {

@@ -95,7 +95,7 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
         kind: 'info',
         text: readOnly
           ? 'Demand is read only for your role.'
-          : 'This week has several firm orders; change them one by one in the order list below the grid.',
+          : 'This week has several firm orders; change each one in the order list below the grid.',
       });
       return;
     }
@@ -266,7 +266,7 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
                   const key = cellKey(line.row.productId, w, line.kind);
                   const isActive = r === row && c === col;
                   const qty = shownQty(line, c, pending);
-                  const changed = pending.has(key) && pending.get(key) !== savedQty(line, c);
+                  const changed = qty !== savedQty(line, c);
                   const error = cellErrors.get(key);
                   const orders = line.kind === 'firm' ? line.row.cells[c].firmOrders.length : 0;
                   const editable = isEditable(line, c);
