@@ -1,21 +1,20 @@
 /**
- * Entry of a solver worker thread (started by run-in-worker.ts with `--import tsx`). It runs one
- * task off the request thread: a plan solve, reporting progress at most every
+ * Entry of a solver worker thread (started by solver-thread.ts). The thread stays up and runs
+ * one task at a time off the request thread: a plan solve, reporting progress at most every
  * `progressIntervalMs`, or a cross-check. The stop flag is shared memory, read between
  * iterations, because the thread's event loop is busy while it solves.
  */
-import { parentPort, workerData } from 'node:worker_threads';
-import type { WorkerInput, WorkerMessage } from './worker-protocol';
+import { parentPort } from 'node:worker_threads';
+import type { WorkerMessage, WorkerTaskMessage } from './worker-protocol';
 
 const progressIntervalMs = 100;
 
-async function main(): Promise<void> {
-  const { task, stopFlag } = workerData as WorkerInput;
+async function run({ taskId, task, stopFlag }: WorkerTaskMessage): Promise<void> {
   const stop = new Int32Array(stopFlag);
   const post = (m: WorkerMessage) => parentPort!.postMessage(m);
   try {
     if (task.kind === 'solve') {
-      // Each task loads only its own solvers.
+      // Each task loads only its own solvers (once per thread).
       const { computePlan } = await import('./compute-plan');
       let lastPost = 0;
       const outcome = computePlan(task.request, {
@@ -23,18 +22,21 @@ async function main(): Promise<void> {
           const now = performance.now();
           if (now - lastPost < progressIntervalMs) return;
           lastPost = now;
-          post({ type: 'progress', progress });
+          post({ taskId, type: 'progress', progress });
         },
         shouldStop: () => Atomics.load(stop, 0) === 1,
       });
-      post({ type: 'solved', outcome });
+      post({ taskId, type: 'solved', outcome });
     } else {
       const { crossCheckPlan } = await import('./cross-check-plan');
-      post({ type: 'cross_checked', crossCheck: await crossCheckPlan(task.request, task.settings) });
+      post({ taskId, type: 'cross_checked', crossCheck: await crossCheckPlan(task.request, task.settings) });
     }
   } catch (err) {
-    post({ type: 'error', message: err instanceof Error ? err.message : String(err) });
+    post({ taskId, type: 'error', message: err instanceof Error ? err.message : String(err) });
   }
 }
 
-void main();
+let queue = Promise.resolve();
+parentPort!.on('message', (m: WorkerTaskMessage) => {
+  queue = queue.then(() => run(m));
+});

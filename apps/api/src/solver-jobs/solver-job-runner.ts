@@ -5,7 +5,7 @@ import type { SolveJobKind } from '../db/entities/solve-job.entity';
 import { findPlan, findPlanDetail, loadPlanInputs, loadPlanMps, setSolveStatus, storeCrossCheck, storeSolveOutcome } from '../plans/plans.repository';
 import type { ComputeProgress } from './compute-plan';
 import { chooseCrossCheckSolver, defaultCrossCheckSettings, type CrossCheckSettings } from './cross-check-plan';
-import { runInWorker, type RunningWorker } from './run-in-worker';
+import { SolverThread, type RunningTask } from './solver-thread';
 import { cancelRequested, claimNextJob, enqueueJob, finishJob, writeProgress, type ClaimedJob } from './solve-jobs.repository';
 import { readMps } from '@millrace/lp-core';
 
@@ -20,7 +20,7 @@ export interface SolverJobRunnerSettings {
 }
 
 export const defaultSolverJobRunnerSettings: SolverJobRunnerSettings = {
-  pollMs: 500,
+  pollMs: 200,
   progressWriteMs: 250,
   staleMs: 120_000,
   crossCheck: defaultCrossCheckSettings,
@@ -35,6 +35,8 @@ export class SolverJobRunner {
   private readonly settings: SolverJobRunnerSettings;
   private readonly workerId = `${hostname()}:${process.pid}:${Math.random().toString(36).slice(2, 8)}`;
   private readonly lanes: Lane[];
+  /** one long-lived worker thread per lane */
+  private readonly threads: Record<SolveJobKind, SolverThread>;
 
   constructor(
     private readonly ds: DataSource,
@@ -43,6 +45,7 @@ export class SolverJobRunner {
     this.settings = { ...defaultSolverJobRunnerSettings, ...settings };
     // Two lanes, so a long cross-check never holds up the next plan's solve.
     this.lanes = (['solve', 'cross_check'] as const).map((kind) => new Lane(() => this.claimAndRun(kind), this.settings.pollMs));
+    this.threads = { solve: new SolverThread(), cross_check: new SolverThread() };
   }
 
   start(): void {
@@ -52,6 +55,7 @@ export class SolverJobRunner {
   /** Stops claiming; waits for the jobs in hand to end. */
   async stop(): Promise<void> {
     await Promise.all(this.lanes.map((lane) => lane.stop()));
+    await Promise.all(Object.values(this.threads).map((t) => t.close()));
   }
 
   /** Claims and runs one job; false when the queue was empty. */
@@ -79,7 +83,7 @@ export class SolverJobRunner {
     if (!plan || !data) return finishJob(this.ds.manager, job.id, 'failed', 'The plan version no longer exists.');
     await setSolveStatus(this.ds.manager, job.planId, 'solving');
     const started = performance.now();
-    const worker = runInWorker(
+    const worker = this.threads.solve.run(
       {
         kind: 'solve',
         request: { planId: plan.id, data, horizonWeeks: plan.horizonWeeks, smoothing: plan.smoothing, wholeUnits: plan.wholeUnits },
@@ -135,7 +139,7 @@ export class SolverJobRunner {
     if (!plan || !mps || plan.objective === null) {
       return finishJob(this.ds.manager, job.id, 'failed', 'The plan has no solved model to check.');
     }
-    const worker = runInWorker({ kind: 'cross_check', request: { mps, planObjective: plan.objective }, settings: this.settings.crossCheck }, () => {});
+    const worker = this.threads.cross_check.run({ kind: 'cross_check', request: { mps, planObjective: plan.objective }, settings: this.settings.crossCheck }, () => {});
     const heartbeat = setInterval(() => {
       void writeProgress(this.ds, job.id, { iteration: 0, relativeGap: null, primalObjective: null, elapsedSeconds: 0 }).catch(() => {});
     }, Math.min(30_000, this.settings.staleMs / 4));
@@ -155,7 +159,7 @@ export class SolverJobRunner {
   }
 
   /** Writes progress to the job row at most every `progressWriteMs`; stops the worker when a cancel was asked. */
-  private progressWriter(job: ClaimedJob, worker: () => RunningWorker, started: number): (p: ComputeProgress) => void {
+  private progressWriter(job: ClaimedJob, worker: () => RunningTask, started: number): (p: ComputeProgress) => void {
     let lastWrite = 0;
     let writing = false;
     return (p) => {
@@ -180,7 +184,7 @@ export class SolverJobRunner {
   }
 
   /** Polls the cancel flag while the worker runs (also between progress reports) and keeps the heartbeat. */
-  private watchCancel(job: ClaimedJob, worker: RunningWorker): NodeJS.Timeout {
+  private watchCancel(job: ClaimedJob, worker: RunningTask): NodeJS.Timeout {
     return setInterval(() => {
       cancelRequested(this.ds, job.id)
         .then((asked) => {

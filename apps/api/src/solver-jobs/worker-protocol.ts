@@ -7,15 +7,17 @@ export type WorkerTask =
   | { kind: 'solve'; request: ComputeRequest }
   | { kind: 'cross_check'; request: CrossCheckRequest; settings: CrossCheckSettings };
 
-/** Messages from the worker thread back to the job runner. */
-export type WorkerMessage =
-  | { type: 'progress'; progress: ComputeProgress }
-  | { type: 'solved'; outcome: ComputeOutcome }
-  | { type: 'cross_checked'; crossCheck: CrossCheck }
-  | { type: 'error'; message: string };
-
-/** workerData of a solver worker: the task and a shared stop flag (Int32Array over it; 1 = stop). */
-export interface WorkerInput {
+/** A task sent to the thread, with its shared stop flag (Int32Array over it; 1 = stop). */
+export interface WorkerTaskMessage {
+  taskId: number;
   task: WorkerTask;
   stopFlag: SharedArrayBuffer;
 }
+
+/** Messages from the worker thread back to the job runner, tagged with the task they belong to. */
+export type WorkerMessage = { taskId: number } & (
+  | { type: 'progress'; progress: ComputeProgress }
+  | { type: 'solved'; outcome: ComputeOutcome }
+  | { type: 'cross_checked'; crossCheck: CrossCheck }
+  | { type: 'error'; message: string }
+);
