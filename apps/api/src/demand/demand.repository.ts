@@ -3,7 +3,6 @@ import type { DemandQuery, ProductKind } from '@millrace/contracts';
 import { DemandForecastEntity } from '../db/entities/demand-forecast.entity';
 import { FirmOrderEntity } from '../db/entities/firm-order.entity';
 import { likeContains } from '../master-data/list-query';
-import { toIsoDate } from '../master-data/iso-date';
 
 export interface StoredFirmOrder {
   id: number;
@@ -65,20 +64,19 @@ export async function weekTotals(
   to: string,
 ): Promise<Map<string, { firmQty: number; forecastQty: number }>> {
   const filter = productFilter(query);
-  const where = filter.sql ? `${filter.sql} AND` : 'WHERE';
-  const firm = (await db.query(
-    `SELECT d.week_start AS week, SUM(d.qty) AS qty FROM firm_order d JOIN product p ON p.id = d.product_id
-      ${where} d.week_start >= ? AND d.week_start < ? GROUP BY d.week_start`,
-    [...filter.params, from, to],
-  )) as Array<{ week: Date; qty: string }>;
-  const forecast = (await db.query(
-    `SELECT d.week_start AS week, SUM(d.qty) AS qty FROM demand_forecast d JOIN product p ON p.id = d.product_id
-      ${where} d.week_start >= ? AND d.week_start < ? GROUP BY d.week_start`,
-    [...filter.params, from, to],
-  )) as Array<{ week: Date; qty: string }>;
+  // Without a product filter the sums need no join (they run on the week index alone).
+  const sumPerWeek = (table: string) =>
+    filter.sql
+      ? db.query(
+          `SELECT DATE_FORMAT(d.week_start, '%Y-%m-%d') AS week, SUM(d.qty) AS qty FROM ${table} d JOIN product p ON p.id = d.product_id
+            ${filter.sql} AND d.week_start >= ? AND d.week_start < ? GROUP BY d.week_start`,
+          [...filter.params, from, to],
+        )
+      : db.query(`SELECT DATE_FORMAT(week_start, '%Y-%m-%d') AS week, SUM(qty) AS qty FROM ${table} WHERE week_start >= ? AND week_start < ? GROUP BY week_start`, [from, to]);
+  const firm = (await sumPerWeek('firm_order')) as Array<{ week: string; qty: string }>;
+  const forecast = (await sumPerWeek('demand_forecast')) as Array<{ week: string; qty: string }>;
   const totals = new Map<string, { firmQty: number; forecastQty: number }>();
-  const at = (week: Date) => {
-    const key = toIsoDate(week);
+  const at = (key: string) => {
     const t = totals.get(key) ?? { firmQty: 0, forecastQty: 0 };
     totals.set(key, t);
     return t;
@@ -88,30 +86,36 @@ export async function weekTotals(
   return totals;
 }
 
+const firmColumns = "id, product_id AS productId, DATE_FORMAT(week_start, '%Y-%m-%d') AS weekStart, order_ref AS orderRef, qty, version";
+const forecastColumns = "id, product_id AS productId, DATE_FORMAT(week_start, '%Y-%m-%d') AS weekStart, qty, version";
+
+type RawFirm = Omit<StoredFirmOrder, 'qty'> & { qty: string };
+type RawForecast = Omit<StoredForecast, 'qty'> & { qty: string };
+const plainFirm = (r: RawFirm): StoredFirmOrder => ({ id: r.id, productId: r.productId, weekStart: r.weekStart, orderRef: r.orderRef, qty: Number(r.qty), version: r.version });
+const plainForecast = (r: RawForecast): StoredForecast => ({ id: r.id, productId: r.productId, weekStart: r.weekStart, qty: Number(r.qty), version: r.version });
+
 /**
  * Firm orders of the given products in weeks [from, to). With `forUpdate`, the rows (and the
- * index gaps around them) stay locked until the transaction ends.
+ * index gaps around them) stay locked until the transaction ends. Plain SQL: these reads run
+ * over tens of thousands of rows for the grid and the planning data.
  */
 export async function findFirmOrders(db: EntityManager, productIds: number[], from: string, to: string, forUpdate = false): Promise<StoredFirmOrder[]> {
   if (productIds.length === 0) return [];
-  const qb = db
-    .getRepository(FirmOrderEntity)
-    .createQueryBuilder('d')
-    .where('d.productId IN (:...productIds) AND d.weekStart >= :from AND d.weekStart < :to', { productIds, from, to })
-    .orderBy('d.weekStart')
-    .addOrderBy('d.orderRef');
-  if (forUpdate) qb.setLock('pessimistic_write');
-  return (await qb.getMany()).map((r) => ({ id: r.id, productId: r.productId, weekStart: r.weekStart, orderRef: r.orderRef, qty: r.qty, version: r.version }));
+  const rows = (await db.query(
+    `SELECT ${firmColumns} FROM firm_order WHERE product_id IN (?) AND week_start >= ? AND week_start < ?
+      ORDER BY week_start, order_ref${forUpdate ? ' FOR UPDATE' : ''}`,
+    [productIds, from, to],
+  )) as RawFirm[];
+  return rows.map(plainFirm);
 }
 
 export async function findForecasts(db: EntityManager, productIds: number[], from: string, to: string, forUpdate = false): Promise<StoredForecast[]> {
   if (productIds.length === 0) return [];
-  const qb = db
-    .getRepository(DemandForecastEntity)
-    .createQueryBuilder('d')
-    .where('d.productId IN (:...productIds) AND d.weekStart >= :from AND d.weekStart < :to', { productIds, from, to });
-  if (forUpdate) qb.setLock('pessimistic_write');
-  return (await qb.getMany()).map((r) => ({ id: r.id, productId: r.productId, weekStart: r.weekStart, qty: r.qty, version: r.version }));
+  const rows = (await db.query(
+    `SELECT ${forecastColumns} FROM demand_forecast WHERE product_id IN (?) AND week_start >= ? AND week_start < ?${forUpdate ? ' FOR UPDATE' : ''}`,
+    [productIds, from, to],
+  )) as RawForecast[];
+  return rows.map(plainForecast);
 }
 
 export async function insertFirmOrders(db: EntityManager, rows: Array<Omit<StoredFirmOrder, 'id' | 'version'>>): Promise<void> {
@@ -144,21 +148,7 @@ export async function deleteForecasts(db: EntityManager, ids: number[]): Promise
 
 /** Every firm order and forecast in weeks [from, to) (planning data, home page). */
 export async function listDemandBetween(db: EntityManager, from: string, to: string): Promise<{ firm: StoredFirmOrder[]; forecast: StoredForecast[] }> {
-  const firm = await db
-    .getRepository(FirmOrderEntity)
-    .createQueryBuilder('d')
-    .where('d.weekStart >= :from AND d.weekStart < :to', { from, to })
-    .orderBy('d.weekStart')
-    .addOrderBy('d.orderRef')
-    .getMany();
-  const forecast = await db
-    .getRepository(DemandForecastEntity)
-    .createQueryBuilder('d')
-    .where('d.weekStart >= :from AND d.weekStart < :to', { from, to })
-    .orderBy('d.weekStart')
-    .getMany();
-  return {
-    firm: firm.map((r) => ({ id: r.id, productId: r.productId, weekStart: r.weekStart, orderRef: r.orderRef, qty: r.qty, version: r.version })),
-    forecast: forecast.map((r) => ({ id: r.id, productId: r.productId, weekStart: r.weekStart, qty: r.qty, version: r.version })),
-  };
+  const firm = (await db.query(`SELECT ${firmColumns} FROM firm_order WHERE week_start >= ? AND week_start < ? ORDER BY week_start, order_ref, id`, [from, to])) as RawFirm[];
+  const forecast = (await db.query(`SELECT ${forecastColumns} FROM demand_forecast WHERE week_start >= ? AND week_start < ? ORDER BY week_start, product_id`, [from, to])) as RawForecast[];
+  return { firm: firm.map(plainFirm), forecast: forecast.map(plainForecast) };
 }

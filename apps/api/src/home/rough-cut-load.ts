@@ -21,25 +21,23 @@ export function roughCutLoad(data: PlanningData): HomeSummary {
   const withForecast = unitsToMake(data, ['firm', 'forecast']);
   const hoursPerUnit = loadHoursPerUnit(data);
 
-  const loadOn = (units: Map<string, number[]>, wc: string, t: number) => {
-    let hours = 0;
-    for (const [product, perWc] of hoursPerUnit) hours += (perWc.get(wc) ?? 0) * (units.get(product)?.[t] ?? 0);
-    return hours;
-  };
+  const firmLoad = loadByWorkCenter(firm, hoursPerUnit, weeks.length);
+  const forecastLoad = loadByWorkCenter(withForecast, hoursPerUnit, weeks.length);
+  const loadOn = (load: Map<string, number[]>, wc: string, t: number) => load.get(wc)?.[t] ?? 0;
 
   let overLoadedCells = 0;
   const workCenters = data.workCenters.map((wc) => ({
     code: wc.code,
     name: wc.name,
     cells: data.weeks.map((week, t) => {
-      const required = loadOn(firm, wc.code, t);
+      const required = loadOn(firmLoad, wc.code, t);
       const available = availableHours(wc, week.index);
       const status = loadStatus(required, available);
       if (status !== 'within_capacity') overLoadedCells += 1;
       return {
         weekStart: week.startDate,
         requiredHours: round(required),
-        requiredHoursWithForecast: round(loadOn(withForecast, wc.code, t)),
+        requiredHoursWithForecast: round(loadOn(forecastLoad, wc.code, t)),
         availableHours: round(available),
         loadPct: available > 0 ? round((required / available) * 100, 1) : null,
         status,
@@ -66,6 +64,21 @@ export function loadStatus(requiredHours: number, availableHours: number): LoadS
   if (requiredHours <= loadToleranceHours) return 'within_capacity';
   if (availableHours <= 0) return 'no_capacity';
   return requiredHours > availableHours + loadToleranceHours ? 'over_loaded' : 'within_capacity';
+}
+
+/** Standard hours per work center and week: units to make × hours per unit, summed over products. */
+function loadByWorkCenter(units: Map<string, number[]>, hoursPerUnit: Map<string, Map<string, number>>, T: number): Map<string, number[]> {
+  const load = new Map<string, number[]>();
+  for (const [product, perWc] of hoursPerUnit) {
+    const made = units.get(product);
+    if (!made) continue;
+    for (const [wc, hours] of perWc) {
+      const row = load.get(wc) ?? new Array<number>(T).fill(0);
+      for (let t = 0; t < T; t++) row[t] += hours * made[t];
+      load.set(wc, row);
+    }
+  }
+  return load;
 }
 
 /** Demand per product and week (index 0 = week 1) of the given kinds, in one pass over the lines. */

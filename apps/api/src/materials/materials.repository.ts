@@ -87,15 +87,18 @@ export async function materialReferrers(db: EntityManager, id: number): Promise<
   return rows.map((r) => r.code);
 }
 
+const receiptColumns = "id, material_id AS materialId, DATE_FORMAT(week_start, '%Y-%m-%d') AS weekStart, qty, reference";
+type RawReceipt = { id: number; materialId: number; weekStart: string; qty: string; reference: string | null };
+
 export async function listReceipts(db: EntityManager, materialId: number): Promise<ScheduledReceipt[]> {
-  const rows = await db.getRepository(ScheduledReceiptEntity).find({ where: { materialId }, order: { weekStart: 'ASC', id: 'ASC' } });
-  return rows.map((r) => ({ id: r.id, weekStart: r.weekStart, qty: r.qty, reference: r.reference }));
+  const rows = (await db.query(`SELECT ${receiptColumns} FROM scheduled_receipt WHERE material_id = ? ORDER BY week_start, id`, [materialId])) as RawReceipt[];
+  return rows.map((r) => ({ id: r.id, weekStart: r.weekStart, qty: Number(r.qty), reference: r.reference }));
 }
 
 /** Every scheduled receipt (planning data). */
 export async function listAllReceipts(db: EntityManager): Promise<Array<ScheduledReceipt & { materialId: number }>> {
-  const rows = await db.getRepository(ScheduledReceiptEntity).find({ order: { weekStart: 'ASC', id: 'ASC' } });
-  return rows.map((r) => ({ id: r.id, materialId: r.materialId, weekStart: r.weekStart, qty: r.qty, reference: r.reference }));
+  const rows = (await db.query(`SELECT ${receiptColumns} FROM scheduled_receipt ORDER BY week_start, id`)) as RawReceipt[];
+  return rows.map((r) => ({ id: r.id, materialId: r.materialId, weekStart: r.weekStart, qty: Number(r.qty), reference: r.reference }));
 }
 
 export async function replaceReceipts(db: EntityManager, materialId: number, receipts: ScheduledReceiptInput[]): Promise<void> {

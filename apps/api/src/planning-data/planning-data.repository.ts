@@ -1,14 +1,10 @@
 import type { EntityManager } from 'typeorm';
-import type { Material, PlantSettings, Product, WorkCenter } from '@millrace/contracts';
-import { BomLineEntity } from '../db/entities/bom-line.entity';
-import { ProductEntity } from '../db/entities/product.entity';
-import { RoutingStepEntity } from '../db/entities/routing-step.entity';
+import type { CalendarWeek, Material, PlantSettings, Product, ScheduledReceipt, WorkCenter } from '@millrace/contracts';
 import { listDemandBetween, type StoredFirmOrder, type StoredForecast } from '../demand/demand.repository';
 import { listAllMaterials, listAllReceipts } from '../materials/materials.repository';
-import { toProduct } from '../products/products.repository';
+import { listAllProducts } from '../products/products.repository';
 import { readPlantSettings } from '../settings/settings.repository';
 import { listAllWorkCenters, listCalendarWeeksBetween } from '../work-centers/work-centers.repository';
-import type { CalendarWeek, ScheduledReceipt } from '@millrace/contracts';
 
 /** Every row the planning data is built from, as plain objects keyed by ids. */
 export interface MasterDataRows {
@@ -30,9 +26,15 @@ export interface MasterDataRows {
  */
 export async function readMasterDataRows(db: EntityManager, from: string, to: string): Promise<MasterDataRows> {
   const settings = await readPlantSettings(db);
-  const products = (await db.getRepository(ProductEntity).find({ order: { code: 'ASC' } })).map(toProduct);
-  const bom = await db.getRepository(BomLineEntity).find({ order: { parentProductId: 'ASC', position: 'ASC', id: 'ASC' } });
-  const routings = await db.getRepository(RoutingStepEntity).find({ order: { productId: 'ASC', sequence: 'ASC' } });
+  const products = await listAllProducts(db);
+  const bom = (await db.query(
+    `SELECT parent_product_id AS parentProductId, component_product_id AS componentProductId, material_id AS materialId, qty_per AS qtyPer, scrap_pct AS scrapPct
+       FROM bom_line ORDER BY parent_product_id, position, id`,
+  )) as Array<{ parentProductId: number; componentProductId: number | null; materialId: number | null; qtyPer: string; scrapPct: string }>;
+  const routings = (await db.query(
+    `SELECT product_id AS productId, sequence, work_center_id AS workCenterId, hours_per_unit AS hoursPerUnit, setup_hours AS setupHours
+       FROM routing_step ORDER BY product_id, sequence`,
+  )) as Array<{ productId: number; sequence: number; workCenterId: number; hoursPerUnit: string; setupHours: string }>;
   const workCenters = await listAllWorkCenters(db);
   const calendar = await listCalendarWeeksBetween(db, from, to);
   const materials = await listAllMaterials(db);
@@ -41,8 +43,8 @@ export async function readMasterDataRows(db: EntityManager, from: string, to: st
   return {
     settings,
     products,
-    bom: bom.map((b) => ({ parentProductId: b.parentProductId, componentProductId: b.componentProductId, materialId: b.materialId, qtyPer: b.qtyPer, scrapPct: b.scrapPct })),
-    routings: routings.map((r) => ({ productId: r.productId, sequence: r.sequence, workCenterId: r.workCenterId, hoursPerUnit: r.hoursPerUnit, setupHours: r.setupHours })),
+    bom: bom.map((b) => ({ parentProductId: b.parentProductId, componentProductId: b.componentProductId, materialId: b.materialId, qtyPer: Number(b.qtyPer), scrapPct: Number(b.scrapPct) })),
+    routings: routings.map((r) => ({ productId: r.productId, sequence: r.sequence, workCenterId: r.workCenterId, hoursPerUnit: Number(r.hoursPerUnit), setupHours: Number(r.setupHours) })),
     workCenters,
     calendar,
     materials,

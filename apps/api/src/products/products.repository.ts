@@ -42,6 +42,35 @@ export async function listProducts(db: EntityManager, query: ProductListQuery): 
   return pageFrom(qb, query, sortColumns, toProduct);
 }
 
+/**
+ * Every product by code, in plain SQL (planning data reads all of them at once; entity hydration
+ * costs more than the query at 2,000 rows).
+ */
+export async function listAllProducts(db: EntityManager): Promise<Product[]> {
+  const rows = (await db.query(
+    `SELECT id, code, name, unit, kind, price, holding_cost_rate_pct, safety_stock, batch_multiple, opening_stock, late_penalty,
+            family, active, version, created_at, updated_at FROM product ORDER BY code`,
+  )) as Array<Record<string, string | number | Date | null>>;
+  return rows.map((r) => ({
+    id: Number(r.id),
+    code: String(r.code),
+    name: String(r.name),
+    unit: String(r.unit),
+    kind: r.kind as Product['kind'],
+    price: Number(r.price),
+    holdingCostRatePct: Number(r.holding_cost_rate_pct),
+    safetyStock: Number(r.safety_stock),
+    batchMultiple: Number(r.batch_multiple),
+    openingStock: Number(r.opening_stock),
+    latePenalty: Number(r.late_penalty),
+    family: r.family === null ? null : String(r.family),
+    active: Boolean(Number(r.active)),
+    version: Number(r.version),
+    createdAt: (r.created_at as Date).toISOString(),
+    updatedAt: (r.updated_at as Date).toISOString(),
+  }));
+}
+
 export async function findProductById(db: EntityManager, id: number): Promise<Product | null> {
   const row = await db.getRepository(ProductEntity).findOneBy({ id });
   return row ? toProduct(row) : null;

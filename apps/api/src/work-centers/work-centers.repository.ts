@@ -91,19 +91,19 @@ function toCalendarWeek(r: { weekStart: string; holidayDays: number; downtimeHou
   return { weekStart: r.weekStart, holidayDays: r.holidayDays, downtimeHours: r.downtimeHours, extraShifts: r.extraShifts, note: r.note };
 }
 
+const calendarColumns =
+  "work_center_id AS workCenterId, DATE_FORMAT(week_start, '%Y-%m-%d') AS weekStart, holiday_days AS holidayDays, downtime_hours AS downtimeHours, extra_shifts AS extraShifts, note";
+type RawCalendarWeek = { workCenterId: number; weekStart: string; holidayDays: number; downtimeHours: string; extraShifts: number; note: string | null };
+
 export async function listCalendarWeeks(db: EntityManager, workCenterId: number): Promise<CalendarWeek[]> {
-  const rows = await db.getRepository(CalendarWeekEntity).find({ where: { workCenterId }, order: { weekStart: 'ASC' } });
-  return rows.map(toCalendarWeek);
+  const rows = (await db.query(`SELECT ${calendarColumns} FROM work_center_week WHERE work_center_id = ? ORDER BY week_start`, [workCenterId])) as RawCalendarWeek[];
+  return rows.map((r) => toCalendarWeek({ ...r, downtimeHours: Number(r.downtimeHours) }));
 }
 
 /** Calendar weeks of every work center in [from, to) (planning data, home page). */
 export async function listCalendarWeeksBetween(db: EntityManager, from: string, to: string): Promise<Array<CalendarWeek & { workCenterId: number }>> {
-  const rows = await db
-    .getRepository(CalendarWeekEntity)
-    .createQueryBuilder('c')
-    .where('c.weekStart >= :from AND c.weekStart < :to', { from, to })
-    .getMany();
-  return rows.map((r) => ({ ...toCalendarWeek(r), workCenterId: r.workCenterId }));
+  const rows = (await db.query(`SELECT ${calendarColumns} FROM work_center_week WHERE week_start >= ? AND week_start < ? ORDER BY work_center_id, week_start`, [from, to])) as RawCalendarWeek[];
+  return rows.map((r) => ({ ...toCalendarWeek({ ...r, downtimeHours: Number(r.downtimeHours) }), workCenterId: r.workCenterId }));
 }
 
 export async function replaceCalendarWeeks(db: EntityManager, workCenterId: number, weeks: CalendarWeekInput[]): Promise<void> {
