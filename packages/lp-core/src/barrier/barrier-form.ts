@@ -5,8 +5,9 @@
  *   subject to  G x ≤ h      (one row per finite row or column bound, strict inside)
  *               E x = d      (equality rows and fixed columns)
  *
- * Each inequality and equality remembers where it came from, so multipliers map back to row duals
- * and reduced costs. Columns without a finite bound get an artificial one at ±R (see boxRadius). P is dense and symmetric (n×n, row-major) or absent for an LP.
+ * over the variables x (the columns that are not fixed). Each inequality and equality remembers where
+ * it came from, so multipliers map back to row duals and reduced costs. Every variable has a lower
+ * and an upper inequality; a missing bound is replaced by an artificial one at ∓R (see boxRadius). P is dense and symmetric (n×n, row-major) or absent for an LP.
  */
 import type { Problem } from '../problem/problem';
 
@@ -27,7 +28,16 @@ export interface ConstraintOrigin {
 }
 
 export interface BarrierForm {
+  /** number of variables: the problem's columns that are not fixed */
   n: number;
+  /** form variable → problem column */
+  columnOf: Int32Array;
+  /** problem column → form variable, −1 for a fixed column */
+  variableOf: Int32Array;
+  /** value of each fixed column (problem indexing; 0 elsewhere) */
+  fixedValue: Float64Array;
+  /** objective constant: c₀ plus the fixed columns' share of the objective */
+  constant: number;
   P?: Float64Array;
   q: Float64Array;
   G: SparseRows;
@@ -41,6 +51,8 @@ export interface BarrierForm {
   dependentRhs: Float64Array;
   /** R of the artificial box ±R on columns without finite bounds */
   boxRadius: number;
+  /** equality rows that fixed their only unfixed column, in the order applied */
+  singletonFixings: { row: number; col: number }[];
 }
 
 class RowsBuilder {
@@ -63,19 +75,32 @@ class RowsBuilder {
   }
 }
 
+/**
+ * Fixed columns are substituted out (see fixedColumns): they are constants, not variables, so every
+ * variable keeps two bounds (real or artificial) and H stays positive definite.
+ */
 export function barrierForm(problem: Problem, boxRadius: number): BarrierForm {
   const { A } = problem;
-  const n = A.n;
-  const rows = rowsOf(problem);
+  const { isFixed, fixedValue, singletonFixings } = fixedColumns(problem);
+  const variableOf = new Int32Array(A.n).fill(-1);
+  const columns: number[] = [];
+  for (let j = 0; j < A.n; j++) {
+    if (!isFixed[j]) {
+      variableOf[j] = columns.length;
+      columns.push(j);
+    }
+  }
+  const n = columns.length;
+  const rows = rowsOf(problem, variableOf, fixedValue);
   const G = new RowsBuilder();
   const E = new RowsBuilder();
   const inequalityOrigin: ConstraintOrigin[] = [];
   const equalityOrigin: ConstraintOrigin[] = [];
   for (let i = 0; i < A.m; i++) {
-    const l = problem.rowLower[i];
-    const u = problem.rowUpper[i];
     const r = rows[i];
-    if (l === u) {
+    const l = problem.rowLower[i] - r.offset;
+    const u = problem.rowUpper[i] - r.offset;
+    if (problem.rowLower[i] === problem.rowUpper[i]) {
       E.add(r.idx, r.val, 1, l);
       equalityOrigin.push({ kind: 'row', index: i, side: 'equal' });
       continue;
@@ -90,56 +115,116 @@ export function barrierForm(problem: Problem, boxRadius: number): BarrierForm {
     }
   }
   const R = boxRadius * Math.max(1, largestFiniteBound(problem));
-  for (let j = 0; j < n; j++) {
+  for (let v = 0; v < n; v++) {
+    const j = columns[v];
     const l = problem.colLower[j];
     const u = problem.colUpper[j];
-    if (l === -Infinity) {
-      G.add([j], [1], -1, R);
-      inequalityOrigin.push({ kind: 'col', index: j, side: 'lower', artificial: true });
-    }
-    if (u === Infinity) {
-      G.add([j], [1], 1, R);
-      inequalityOrigin.push({ kind: 'col', index: j, side: 'upper', artificial: true });
-    }
-    if (l === u) {
-      E.add([j], [1], 1, l);
-      equalityOrigin.push({ kind: 'col', index: j, side: 'equal' });
-      continue;
-    }
-    if (l > -Infinity) {
-      G.add([j], [1], -1, -l);
-      inequalityOrigin.push({ kind: 'col', index: j, side: 'lower' });
-    }
-    if (u < Infinity) {
-      G.add([j], [1], 1, u);
-      inequalityOrigin.push({ kind: 'col', index: j, side: 'upper' });
-    }
+    G.add([v], [1], -1, l > -Infinity ? -l : R);
+    inequalityOrigin.push({ kind: 'col', index: j, side: 'lower', ...(l > -Infinity ? {} : { artificial: true }) });
+    G.add([v], [1], 1, u < Infinity ? u : R);
+    inequalityOrigin.push({ kind: 'col', index: j, side: 'upper', ...(u < Infinity ? {} : { artificial: true }) });
   }
+  const { P, q, constant } = objectiveOnVariables(problem, columns, variableOf, fixedValue);
   const allE = E.build();
-  const box = { radius: R };
   const keep = independentRows(allE, n);
+  const dropped = complement(keep, allE.count);
   return {
     n,
-    P: problem.Q ? denseSymmetric(problem) : undefined,
-    q: Float64Array.from(problem.c),
+    columnOf: Int32Array.from(columns),
+    variableOf,
+    fixedValue,
+    constant,
+    P,
+    q,
     G: G.build(),
     h: Float64Array.from(G.rhs),
     E: selectRows(allE, keep),
     d: Float64Array.from(keep, (e) => E.rhs[e]),
     inequalityOrigin,
     equalityOrigin: keep.map((e) => equalityOrigin[e]),
-    dependentEqualities: selectRows(allE, complement(keep, allE.count)),
-    dependentRhs: Float64Array.from(complement(keep, allE.count), (e) => E.rhs[e]),
-    boxRadius: box.radius,
+    dependentEqualities: selectRows(allE, dropped),
+    dependentRhs: Float64Array.from(dropped, (e) => E.rhs[e]),
+    boxRadius: R,
+    singletonFixings,
   };
 }
 
-function largestFiniteBound(problem: Problem): number {
-  let largest = 0;
-  for (const bounds of [problem.rowLower, problem.rowUpper, problem.colLower, problem.colUpper]) {
-    for (const v of bounds) if (Number.isFinite(v)) largest = Math.max(largest, Math.abs(v));
+/**
+ * Columns that are constants: fixed by their bounds (l = u), or the only unfixed column of an
+ * equality row (x_j = (b − fixed part)/a_ij, when that lies within the column's bounds), repeated
+ * until no such row is left.
+ */
+function fixedColumns(problem: Problem) {
+  const { A } = problem;
+  const isFixed = new Uint8Array(A.n);
+  const fixedValue = new Float64Array(A.n);
+  for (let j = 0; j < A.n; j++) {
+    if (problem.colLower[j] === problem.colUpper[j]) {
+      isFixed[j] = 1;
+      fixedValue[j] = problem.colLower[j];
+    }
   }
-  return largest;
+  const rowEntries: { col: number; value: number }[][] = Array.from({ length: A.m }, () => []);
+  for (let j = 0; j < A.n; j++) {
+    for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) rowEntries[A.rowIdx[p]].push({ col: j, value: A.values[p] });
+  }
+  const singletonFixings: { row: number; col: number }[] = [];
+  for (let changed = true; changed; ) {
+    changed = false;
+    for (let i = 0; i < A.m; i++) {
+      if (problem.rowLower[i] !== problem.rowUpper[i]) continue;
+      let offset = 0;
+      let free: { col: number; value: number } | undefined;
+      let freeCount = 0;
+      for (const e of rowEntries[i]) {
+        if (isFixed[e.col]) offset += e.value * fixedValue[e.col];
+        else if (e.value !== 0) {
+          free = e;
+          freeCount++;
+        }
+      }
+      if (freeCount !== 1 || !free) continue;
+      const value = (problem.rowLower[i] - offset) / free.value;
+      if (!(value >= problem.colLower[free.col] && value <= problem.colUpper[free.col])) continue;
+      isFixed[free.col] = 1;
+      fixedValue[free.col] = value;
+      singletonFixings.push({ row: i, col: free.col });
+      changed = true;
+    }
+  }
+  return { isFixed, fixedValue, singletonFixings };
+}
+
+/** The problem's x for a vector of form variables. */
+export function expandToColumns(form: BarrierForm, x: Float64Array): Float64Array {
+  const full = Float64Array.from(form.fixedValue);
+  for (let v = 0; v < form.n; v++) full[form.columnOf[v]] = x[v];
+  return full;
+}
+
+/** ½xᵀPx + qᵀx + constant over the variables, with the fixed columns substituted. */
+function objectiveOnVariables(problem: Problem, columns: number[], variableOf: Int32Array, fixedValue: Float64Array) {
+  const n = columns.length;
+  const q = Float64Array.from(columns, (j) => problem.c[j]);
+  let constant = problem.c0;
+  for (let j = 0; j < problem.A.n; j++) if (variableOf[j] < 0) constant += problem.c[j] * fixedValue[j];
+  const Q = problem.Q;
+  if (!Q) return { P: undefined, q, constant };
+  const P = new Float64Array(n * n);
+  const add = (i: number, j: number, value: number) => {
+    const [vi, vj] = [variableOf[i], variableOf[j]];
+    if (vi >= 0 && vj >= 0) P[vi * n + vj] += value;
+    else if (vi >= 0) q[vi] += value * fixedValue[j];
+    else if (vj < 0) constant += 0.5 * value * fixedValue[i] * fixedValue[j];
+  };
+  for (let j = 0; j < Q.n; j++) {
+    for (let p = Q.colPtr[j]; p < Q.colPtr[j + 1]; p++) {
+      const i = Q.rowIdx[p];
+      add(i, j, Q.values[p]);
+      if (i !== j) add(j, i, Q.values[p]);
+    }
+  }
+  return { P, q, constant };
 }
 
 /** Relative norm below which an equality row counts as a combination of earlier ones. */
@@ -189,31 +274,21 @@ function complement(keep: number[], count: number): number[] {
   return Array.from({ length: count }, (_, e) => e).filter((e) => !kept.has(e));
 }
 
-/** Row-wise copy of A (each row's column indices and values). */
-function rowsOf(problem: Problem): { idx: number[]; val: number[] }[] {
+/** Row-wise copy of A over the variables, and each row's activity from the fixed columns. */
+function rowsOf(problem: Problem, variableOf: Int32Array, fixedValue: Float64Array): { idx: number[]; val: number[]; offset: number }[] {
   const { A } = problem;
-  const rows = Array.from({ length: A.m }, () => ({ idx: [] as number[], val: [] as number[] }));
+  const rows = Array.from({ length: A.m }, () => ({ idx: [] as number[], val: [] as number[], offset: 0 }));
   for (let j = 0; j < A.n; j++) {
+    const v = variableOf[j];
     for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) {
-      rows[A.rowIdx[p]].idx.push(j);
-      rows[A.rowIdx[p]].val.push(A.values[p]);
+      const row = rows[A.rowIdx[p]];
+      if (v >= 0) {
+        row.idx.push(v);
+        row.val.push(A.values[p]);
+      } else row.offset += A.values[p] * fixedValue[j];
     }
   }
   return rows;
-}
-
-function denseSymmetric(problem: Problem): Float64Array {
-  const Q = problem.Q!;
-  const n = Q.n;
-  const P = new Float64Array(n * n);
-  for (let j = 0; j < n; j++) {
-    for (let p = Q.colPtr[j]; p < Q.colPtr[j + 1]; p++) {
-      const i = Q.rowIdx[p];
-      P[i * n + j] = Q.values[p];
-      P[j * n + i] = Q.values[p];
-    }
-  }
-  return P;
 }
 
 /**
@@ -259,5 +334,18 @@ export function phaseOneForm(form: BarrierForm): BarrierForm {
     dependentEqualities: form.dependentEqualities,
     dependentRhs: form.dependentRhs,
     boxRadius: form.boxRadius,
+    columnOf: form.columnOf,
+    variableOf: form.variableOf,
+    fixedValue: form.fixedValue,
+    constant: 0,
+    singletonFixings: form.singletonFixings,
   };
+}
+
+function largestFiniteBound(problem: Problem): number {
+  let largest = 0;
+  for (const bounds of [problem.rowLower, problem.rowUpper, problem.colLower, problem.colUpper]) {
+    for (const v of bounds) if (Number.isFinite(v)) largest = Math.max(largest, Math.abs(v));
+  }
+  return largest;
 }

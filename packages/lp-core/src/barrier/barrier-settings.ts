@@ -32,7 +32,7 @@ export interface BarrierSettings {
   /**
    * Columns without a finite lower (upper) bound get an artificial one at ∓R, R = boxRadius ·
    * max(1, largest finite bound); this keeps every centering problem bounded (Boyd & Vandenberghe
-   * assume bounded sublevel sets). A solution with some |x_j| ≥ R/2 is reported unbounded. Default 1e6.
+   * assume bounded sublevel sets). An artificial bound that carries a significant multiplier at the end means unbounded. Default 1e3.
    */
   boxRadius: number;
   /** wall-clock limit in seconds, default Infinity */
@@ -52,7 +52,7 @@ export const DEFAULT_BARRIER_SETTINGS: Readonly<BarrierSettings> = {
   tolEquality: 1e-8,
   maxNewtonStepsPerCentering: 500,
   maxNewtonSteps: 5000,
-  boxRadius: 1e6,
+  boxRadius: 1e3,
   timeLimitSeconds: Infinity,
 };
 

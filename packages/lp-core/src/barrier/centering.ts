@@ -8,8 +8,9 @@
  *   [ H/t Eᵀ ] [ Δx ]   [ −∇φ_t/t ]        H = t P + Gᵀ diag(1/s²) G
  *   [ E   0  ] [ w  ] = [ d − E x ]        ∇φ_t = t (P x + q) + Gᵀ (1/s)
  *
- * No regularisation is needed: every column has two bounds (real or the artificial box), so H is
- * positive definite, and dependent equality rows were removed when the form was built.
+ * No regularisation is needed in exact arithmetic: every variable has two bounds (real or the
+ * artificial box), so H is positive definite, and dependent equality rows were removed when the
+ * form was built; a regularised fallback covers rounding.
  * (The right-hand side d − Ex keeps x on the equality set despite rounding; the first block row is
  * divided by t, so the system stays well scaled as t grows and w is ν directly), stops when the Newton
  * decrement λ² = ΔxᵀHΔx (= −∇φ_tᵀΔx on the equality set) satisfies λ²/2 ≤ tolNewton, and otherwise takes a backtracking step
@@ -30,6 +31,10 @@ export interface NewtonBudget {
   deadline: number;
 }
 
+/** Passes of iterative refinement after each KKT solve. */
+const REFINEMENT_PASSES = 2;
+/** Relative regularisation of the fallback KKT solve. */
+const FALLBACK_REGULARISATION = 1e-12;
 /** A step this small means the line search cannot make progress. */
 const MIN_STEP = 1e-14;
 
@@ -46,6 +51,10 @@ export class Centering {
   private readonly gdx: Float64Array;
   private readonly px: Float64Array;
   private readonly pdx: Float64Array;
+  /** copies of the KKT matrix and right-hand side for iterative refinement */
+  private readonly kkt: Float64Array;
+  private readonly kktRhs: Float64Array;
+  private readonly residual: Float64Array;
   private qdx = 0;
   private xpdx = 0;
   private dxpdx = 0;
@@ -57,6 +66,9 @@ export class Centering {
     const { n, G, E } = form;
     this.lu = new DenseLu(n + E.count);
     this.rhs = new Float64Array(n + E.count);
+    this.kkt = new Float64Array((n + E.count) * (n + E.count));
+    this.kktRhs = new Float64Array(n + E.count);
+    this.residual = new Float64Array(n + E.count);
     this.w = new Float64Array(E.count);
     this.slack = new Float64Array(G.count);
     this.grad = new Float64Array(n);
@@ -97,8 +109,17 @@ export class Centering {
     }
   }
 
-  /** Assembles and solves the KKT system at x; fills grad, dx and w. */
+  /**
+   * Assembles and solves the KKT system at x; fills grad, dx and w. Should rounding make the matrix
+   * singular (curvature of a far artificial bound lost next to large entries), the solve is repeated
+   * once with a small quasi-definite regularisation (+δ on H, −δ on the equality block).
+   */
   private newtonDirection(x: Float64Array, t: number): boolean {
+    if (this.factoriseKkt(x, t, 0)) return this.solveKkt();
+    return this.factoriseKkt(x, t, FALLBACK_REGULARISATION) && this.solveKkt();
+  }
+
+  private factoriseKkt(x: Float64Array, t: number, regularisation: number): boolean {
     const { n, P, q, G, E, d } = this.form;
     const size = n + E.count;
     const a = this.lu.a;
@@ -116,6 +137,13 @@ export class Centering {
         for (let r = G.ptr[k]; r < G.ptr[k + 1]; r++) a[i * size + G.idx[r]] += gi * G.val[r];
       }
     }
+    if (regularisation > 0) {
+      let maxDiag = 0;
+      for (let i = 0; i < n; i++) maxDiag = Math.max(maxDiag, Math.abs(a[i * size + i]));
+      const delta = regularisation * (1 + maxDiag);
+      for (let i = 0; i < n; i++) a[i * size + i] += delta;
+      for (let e = 0; e < E.count; e++) a[(n + e) * size + n + e] = -delta;
+    }
     for (let e = 0; e < E.count; e++) {
       let ex = 0;
       for (let p = E.ptr[e]; p < E.ptr[e + 1]; p++) {
@@ -127,8 +155,26 @@ export class Centering {
       this.rhs[n + e] = d[e] - ex;
     }
     for (let i = 0; i < n; i++) this.rhs[i] = -this.grad[i] / t;
-    if (!this.lu.factorise()) return false;
+    this.kkt.set(a);
+    this.kktRhs.set(this.rhs);
+    return this.lu.factorise();
+  }
+
+  /** Solves with the factors, then refines: sol += K⁻¹(b − K sol) (Golub & Van Loan §3.5.3). */
+  private solveKkt(): boolean {
+    const { n, E } = this.form;
+    const size = n + E.count;
+    const { kkt, kktRhs, residual } = this;
     this.lu.solve(this.rhs);
+    for (let pass = 0; pass < REFINEMENT_PASSES; pass++) {
+      for (let i = 0; i < size; i++) {
+        let r = kktRhs[i];
+        for (let j = 0; j < size; j++) r -= kkt[i * size + j] * this.rhs[j];
+        residual[i] = r;
+      }
+      this.lu.solve(residual);
+      for (let i = 0; i < size; i++) this.rhs[i] += residual[i];
+    }
     for (let i = 0; i < n; i++) this.dx[i] = this.rhs[i];
     for (let e = 0; e < E.count; e++) this.w[e] = this.rhs[n + e];
     return this.dx.every(Number.isFinite);

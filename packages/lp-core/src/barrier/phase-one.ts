@@ -31,7 +31,7 @@ const TIGHT_SLACK = 1e-7;
 const NEAR_ZERO_PHASE_ONE = 1e-6;
 
 export function findStrictlyFeasible(problem: Problem, form: BarrierForm, settings: BarrierSettings, budget: NewtonBudget): PhaseOneOutcome {
-  const x = referencePoint(problem);
+  const x = referencePoint(problem, form);
   projectOntoEqualities(form, x);
   const residual = Math.max(equalityResidual(form.E, form.d, x), equalityResidual(form.dependentEqualities, form.dependentRhs, x));
   if (residual > settings.tolEquality) {
@@ -50,7 +50,7 @@ export function findStrictlyFeasible(problem: Problem, form: BarrierForm, settin
   for (let centerings = 1; ; centerings++) {
     const outcome = centering.run(z, t, budget);
     const s = z[form.n];
-    if (outcome === 'stalled' && s <= NEAR_ZERO_PHASE_ONE) {
+    if ((outcome === 'stalled' || outcome === 'singular') && s <= NEAR_ZERO_PHASE_ONE) {
       // Rounding stops phase I at an optimum ≈ 0: no strict interior.
       const x = z.subarray(0, form.n).slice();
       return { kind: 'no_interior', x, tight: tightInequalities(form, x, 10 * Math.max(s, 0)) };
@@ -84,8 +84,8 @@ function tightInequalities(form: BarrierForm, x: Float64Array, atLeast = 0): num
 }
 
 /** A point inside the column bounds: midpoint when both are finite, one unit inside otherwise. */
-function referencePoint(problem: Problem): Float64Array {
-  return Float64Array.from({ length: problem.A.n }, (_, j) => {
+function referencePoint(problem: Problem, form: BarrierForm): Float64Array {
+  return Float64Array.from(form.columnOf, (j) => {
     const l = problem.colLower[j];
     const u = problem.colUpper[j];
     if (l > -Infinity && u < Infinity) return (l + u) / 2;

@@ -15,7 +15,7 @@ import type { Problem } from '../problem/problem';
 import { certify } from '../solution/certificate';
 import { validateProblem } from '../validate';
 import type { SolveResult, SolveStatus } from '../solution/result';
-import { type BarrierForm, barrierForm } from './barrier-form';
+import { type BarrierForm, barrierForm, expandToColumns } from './barrier-form';
 import { type BarrierSettings, resolveBarrierSettings } from './barrier-settings';
 import { Centering, type CenteringOutcome, type NewtonBudget, dot } from './centering';
 import { findStrictlyFeasible } from './phase-one';
@@ -36,10 +36,10 @@ export function solveBarrier(problem: Problem, overrides: Partial<BarrierSetting
   }
   const phaseOneSeconds = (performance.now() - start) / 1000;
   if (phaseOne.kind === 'no_interior') {
-    return result(problem, phaseOne.x, null, 'numerical_trouble', budget, start, 'the feasible set has no strict interior even after fixing implicit equalities', { phaseOne: phaseOneSeconds });
+    return result(problem, expandToColumns(form, phaseOne.x), null, 'numerical_trouble', budget, start, 'the feasible set has no strict interior even after fixing implicit equalities', { phaseOne: phaseOneSeconds });
   }
   if (phaseOne.kind === 'stopped') {
-    return result(problem, phaseOne.x, null, phaseOne.status, budget, start, phaseOne.message, { phaseOne: phaseOneSeconds });
+    return result(problem, expandToColumns(form, phaseOne.x), null, phaseOne.status, budget, start, phaseOne.message, { phaseOne: phaseOneSeconds });
   }
 
   const x = phaseOne.x;
@@ -49,7 +49,7 @@ export function solveBarrier(problem: Problem, overrides: Partial<BarrierSetting
   for (let outer = 1; ; outer++) {
     const outcome = centering.run(x, t, budget);
     const lastGap = outer > 1 ? (m * settings.barrierMu) / t : Infinity; // m/t of the last completed centre
-    if ((outcome === 'stalled' || outcome === 'singular') && lastGap <= settings.tolGapReduced * Math.max(1, Math.abs(objectiveOf(form, x) + problem.c0))) {
+    if ((outcome === 'stalled' || outcome === 'singular') && lastGap <= settings.tolGapReduced * Math.max(1, Math.abs(objectiveOf(form, x)))) {
       return result(problem, x, { centering, t }, 'optimal', budget, start, `rounding stopped centering at t = ${t.toExponential(2)}; optimal within the gap bound m/t = ${lastGap.toExponential(2)} of the last centre`, {
         phaseOne: phaseOneSeconds,
         phaseTwo: (performance.now() - start) / 1000 - phaseOneSeconds,
@@ -60,7 +60,7 @@ export function solveBarrier(problem: Problem, overrides: Partial<BarrierSetting
         phaseOne: phaseOneSeconds,
       });
     }
-    const objective = objectiveOf(form, x) + problem.c0;
+    const objective = objectiveOf(form, x);
     report(settings, problem, form, x, centering, t, outer, objective, start);
     if (m / t <= settings.tolGap * Math.max(1, Math.abs(objective))) {
       const onBox = pressedAgainstBox(problem, form, centering, x, t);
@@ -127,9 +127,9 @@ function statusOf(outcome: CenteringOutcome): SolveStatus {
   }
 }
 
-/** f₀(x) = ½ xᵀPx + qᵀx */
+/** f₀(x) = ½ xᵀPx + qᵀx + constant */
 function objectiveOf(form: BarrierForm, x: Float64Array): number {
-  let value = dot(form.q, x);
+  let value = dot(form.q, x) + form.constant;
   const { P, n } = form;
   if (P) {
     for (let i = 0; i < n; i++) {
@@ -141,7 +141,11 @@ function objectiveOf(form: BarrierForm, x: Float64Array): number {
   return value;
 }
 
-/** Row duals y and reduced costs z from the barrier multipliers at the current centre. */
+/**
+ * Row duals y and reduced costs z from the barrier multipliers at the current centre; a fixed
+ * column's z is c + Qx − Aᵀy (its bound is an equality substituted out of the form), except that a
+ * column fixed by a singleton equality row passes its reduced cost to that row's dual.
+ */
 function multipliers(problem: Problem, form: BarrierForm, x: Float64Array, centering: Centering, t: number) {
   centering.computeSlack(x);
   const y = new Float64Array(problem.A.m);
@@ -155,6 +159,17 @@ function multipliers(problem: Problem, form: BarrierForm, x: Float64Array, cente
     const target = origin.kind === 'row' ? y : z;
     target[origin.index] -= centering.w[e];
   });
+  const columns = expandToColumns(form, x);
+  // A row that fixed its only column carries that column's whole reduced cost (undo in reverse order).
+  for (let k = form.singletonFixings.length - 1; k >= 0; k--) {
+    const { row, col } = form.singletonFixings[k];
+    const reduced = certify(problem, columns, y).reducedCosts[col];
+    for (let p = problem.A.colPtr[col]; p < problem.A.colPtr[col + 1]; p++) {
+      if (problem.A.rowIdx[p] === row) y[row] += reduced / problem.A.values[p];
+    }
+  }
+  const computed = certify(problem, columns, y).reducedCosts;
+  for (let j = 0; j < problem.A.n; j++) if (form.variableOf[j] < 0) z[j] = computed[j];
   return { y, z };
 }
 
@@ -164,7 +179,7 @@ function report(
 ): void {
   if (!settings.onIteration) return;
   const { y } = multipliers(problem, form, x, centering, t);
-  const measured = certify(problem, x, y);
+  const measured = certify(problem, expandToColumns(form, x), y);
   settings.onIteration({
     iteration: outer,
     primalObjective: objective,
@@ -183,14 +198,15 @@ function result(
   problem: Problem, x: Float64Array, centre: { centering: Centering; t: number } | null, status: SolveStatus,
   budget: NewtonBudget, start: number, message: string | undefined, timings: Record<string, number>,
 ): SolveResult {
-  const form = centre ? barrierFormOf(centre.centering) : null;
+  const form = centre ? centre.centering.form : null;
   const { y, z } = centre && form ? multipliers(problem, form, x, centre.centering, centre.t) : { y: new Float64Array(problem.A.m), z: null };
-  const measured = certify(problem, x, y);
+  const columns = form ? expandToColumns(form, x) : x;
+  const measured = certify(problem, columns, y);
   const sense = problem.maximise ? -1 : 1;
   return {
     status,
     objective: sense * measured.primalObjective,
-    x,
+    x: columns,
     rowActivity: measured.rowActivity,
     rowDuals: y,
     reducedCosts: z ?? measured.reducedCosts,
@@ -200,8 +216,4 @@ function result(
     ...(message ? { message } : {}),
     timings,
   };
-}
-
-function barrierFormOf(centering: Centering): BarrierForm {
-  return centering.form;
 }
