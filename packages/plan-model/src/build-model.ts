@@ -8,6 +8,7 @@ import { holdingCostPerUnitWeek, standardCosts } from './standard-cost';
 import { LpBuilder } from './model/lp-builder';
 import { modelName, type ColInfo, type ColKind, type ModelIndex, type RowInfo, type RowKind } from './model/model-index';
 import { demandByWeek } from './demand';
+import { supplyCap } from './material-supply';
 
 /**
  * The weekly planning LP/QP (DESIGN.md "The planning model"; DOMAIN.md §1, multi-period
@@ -178,11 +179,10 @@ export function buildModel(data: PlanningData, options: BuildOptions): BuiltMode
       const rhs = receipts + (t === 1 ? m.onHand : 0);
       row.material[j][t - 1] = addRow('material', 'mat', m.code, t, rhs, rhs, terms);
     }
-    if (m.weeklySupplyCap !== null) {
-      for (const t of weeks) {
-        const b = col.buy[j][t - 1];
-        if (b >= 0) row.supply[j][t - 1] = addRow('supply', 'sup', m.code, t, -Infinity, m.weeklySupplyCap, [[b, 1]]);
-      }
+    for (const t of weeks) {
+      const b = col.buy[j][t - 1];
+      const cap = supplyCap(m, t);
+      if (b >= 0 && cap !== null) row.supply[j][t - 1] = addRow('supply', 'sup', m.code, t, -Infinity, cap, [[b, 1]]);
     }
   });
 

@@ -4,6 +4,7 @@ import { componentUsePerUnit } from './bom-graph';
 import { availableHours, overtimeCapHours } from './capacity';
 import { demandByWeek } from './demand';
 import { loadHoursPerUnit } from './routing-load';
+import { supplyCap } from './material-supply';
 
 /**
  * Independent plan checker: re-verifies a plan's quantities against the planning data, never
@@ -140,8 +141,9 @@ export function checkPlan(data: PlanningData, plan: Plan, options: CheckOptions 
         add('material_negative', m.code, t, stock, `material ${m.code} week ${t}: use ${use} exceeds what is on hand (short ${-stock})`);
       if (off(l.stock - stock, Math.max(use, stock)))
         add('material_balance', m.code, t, l.stock - stock, `material ${m.code} week ${t}: stock reported ${l.stock}, receipts, purchases and use give ${stock}`);
-      if (m.weeklySupplyCap !== null && l.buy > m.weeklySupplyCap + tol * (1 + m.weeklySupplyCap))
-        add('supply_cap_exceeded', m.code, t, l.buy - m.weeklySupplyCap, `material ${m.code} week ${t}: buys ${l.buy} above the supply cap of ${m.weeklySupplyCap}`);
+      const cap = supplyCap(m, t);
+      if (cap !== null && l.buy > cap + tol * (1 + cap))
+        add('supply_cap_exceeded', m.code, t, l.buy - cap, `material ${m.code} week ${t}: buys ${l.buy} above the supply cap of ${cap}`);
       if (off(l.use - use, use))
         add('reported_value', m.code, t, l.use - use, `material ${m.code} week ${t}: use reported ${l.use}, BOM gives ${use}`);
     }

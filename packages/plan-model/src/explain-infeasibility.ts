@@ -4,6 +4,7 @@ import type { BuiltModel } from './build-model';
 import type { ColInfo, RowInfo } from './model/model-index';
 import { availableHours, overtimeCapHours } from './capacity';
 import { qty } from './format';
+import { supplyCap } from './material-supply';
 
 /**
  * Infeasible model → the conflicting requirements in words. The rows (and column bounds) with a
@@ -62,7 +63,7 @@ function rowSentence(data: PlanningData, T: number, r: RowInfo): { order: number
       };
     case 'supply':
       if (!mat) return undefined;
-      return { order: 3, text: `${mat.name} purchases are capped at ${qty(mat.weeklySupplyCap ?? 0)} ${mat.unit} in week ${r.week}.` };
+      return { order: 3, text: `${mat.name} purchases are capped at ${qty(supplyCap(mat, r.week) ?? 0)} ${mat.unit} in week ${r.week}.` };
     case 'balance':
       if (!product) return undefined;
       {

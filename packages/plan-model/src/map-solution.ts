@@ -6,6 +6,7 @@ import { availableHours, overtimeCapHours } from './capacity';
 import { componentUsePerUnit } from './bom-graph';
 import { demandByWeek } from './demand';
 import { loadHoursPerUnit } from './routing-load';
+import { supplyCap } from './material-supply';
 import { planMargin } from './plan-margin';
 import { explainUnmetOrders } from './explain-unmet';
 import { explainInfeasibility } from './explain-infeasibility';
@@ -162,7 +163,7 @@ function materialLines(
         scheduledReceipt: m.scheduledReceipts.filter((r) => r.week === t).reduce((a, r) => a + r.qty, 0),
         use: users.reduce((a, b) => a + componentUsePerUnit(b) * (makeOf.get(`${b.parent}|${t}`) ?? 0), 0),
         stock: x(index.col.mstock[j][t - 1]),
-        supplyCap: m.weeklySupplyCap,
+        supplyCap: supplyCap(m, t),
         bottleneckValue: dualValue(index.row.material[j][t - 1]),
         supplyCapValue: dualValue(index.row.supply[j][t - 1]),
       });

@@ -140,6 +140,8 @@ export interface Material {
   leadTimeWeeks: number;
   /** most that can be ordered per week; null = no cap */
   weeklySupplyCap: number | null;
+  /** caps for single weeks that replace weeklySupplyCap there (e.g. a scenario's supply cut) */
+  supplyCapByWeek?: { week: number; cap: number }[];
   lotRule: LotRule;
   /** order quantity for fixed/minimum order quantity; periods covered for period order quantity */
   lotSize?: number;

@@ -129,6 +129,10 @@ export function validatePlanningData(data: PlanningData, horizonWeeks: number): 
     if (m.holdingCostPerUnitWeek !== undefined) nonNegative(item, 'holdingCostPerUnitWeek', m.holdingCostPerUnitWeek);
     if (m.lotRule !== 'lot_for_lot' && !(isNum(m.lotSize) && m.lotSize > 0))
       add('invalid_value', item, `${item}: lot rule ${m.lotRule} needs a positive lot size`);
+    for (const c of m.supplyCapByWeek ?? []) {
+      weekOk(`${item} supply cap`, c.week);
+      nonNegative(`${item} supply cap week ${c.week}`, 'cap', c.cap);
+    }
     for (const r of m.scheduledReceipts) {
       weekOk(`${item} receipt`, r.week);
       nonNegative(`${item} receipt week ${r.week}`, 'qty', r.qty);

@@ -1,0 +1,232 @@
+import type { PlanningData } from './planning-data';
+import type { MaterialWeekLine, Plan, ProductWeekLine, WorkCenterWeekLine } from './plan';
+import { bomDescendants, lowLevelCodes } from './bom-graph';
+import { supplyCap } from './material-supply';
+import { PlanRecompute, type PlanDecisions } from './plan-recompute';
+import { planMargin } from './plan-margin';
+import { explainUnmetOrders } from './explain-unmet';
+import { checkPlan, type PlanViolation } from './check-plan';
+
+/**
+ * Whole units and batch multiples by a repair pass (issue 4 item 3):
+ *
+ *  1. round every product's production down to a multiple of its batch (1 = whole units) and
+ *     the forecast served down to whole units; purchases stay as solved (materials are bought
+ *     by measure);
+ *  2. where a sub-assembly no longer covers its parents' use in a week, take batches off the
+ *     parents in that week, deepest items first, until every balance holds;
+ *  3. add batches back greedily — largest rounding loss first, repeated while something was
+ *     added — wherever capacity (regular time + capped overtime), material stock, sub-assembly
+ *     stock and every balance still hold and the margin goes up (or a must-ship order needs it);
+ *  4. recompute stock, backlog and overtime, check the result with the independent checker and
+ *     report the gap to the LP's margin, which bounds every whole-unit plan from above when the
+ *     model has no smoothing term.
+ */
+
+export type RoundingOutcome = 'repaired' | 'violations_remain';
+
+export interface RoundingReport {
+  outcome: RoundingOutcome;
+  /** margin of the LP plan: an upper bound for any whole-unit plan (without smoothing) */
+  lpMargin: number;
+  roundedMargin: number;
+  /** lpMargin − roundedMargin */
+  gap: number;
+  /** gap as % of |lpMargin|; null when the LP margin is 0 */
+  gapPct: number | null;
+  batchesRemoved: number;
+  batchesAdded: number;
+  violations: PlanViolation[];
+}
+
+const EPS = 1e-7;
+
+type Change = { kind: 'make' | 'buy'; item: string; week: number; qty: number };
+
+export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; report: RoundingReport } {
+  if (lpPlan.outcome !== 'optimal') throw new Error(`only a solved plan can be rounded (this one is ${lpPlan.outcome})`);
+  const T = lpPlan.horizonWeeks;
+  const rc = new PlanRecompute(data, T);
+  const batch = new Map(data.products.map((p) => [p.code, p.batchMultiple]));
+  const lpMake = new Map<string, number[]>(data.products.map((p) => [p.code, new Array<number>(T).fill(0)]));
+  const d: PlanDecisions = { make: new Map(), sell: new Map(), buy: new Map() };
+  for (const p of data.products) {
+    d.make.set(p.code, new Array<number>(T).fill(0));
+    d.sell.set(p.code, new Array<number>(T).fill(0));
+  }
+  for (const l of lpPlan.products) {
+    const b = batch.get(l.product) ?? 1;
+    lpMake.get(l.product)![l.week - 1] = l.make;
+    d.make.get(l.product)![l.week - 1] = Math.floor(l.make / b + 1e-6) * b;
+    d.sell.get(l.product)![l.week - 1] = Math.floor(l.shipForecast + 1e-6);
+  }
+  for (const m of data.materials) d.buy.set(m.code, new Array<number>(T).fill(0));
+  for (const l of lpPlan.materials) d.buy.get(l.material)![l.week - 1] = l.buy;
+
+  const demand = rc.demand;
+  /** first week in which a product's backlog grows by more than its ordinary firm orders */
+  const balanceBreak = (product: string): { week: number; excess: number } | null => {
+    const dem = demand.get(product)!;
+    let latePrev = 0;
+    for (const l of rc.productLines(product, d)) {
+      const excess = l.late - latePrev - (dem.firm[l.week - 1] - dem.mustShip[l.week - 1]);
+      if (excess > EPS) return { week: l.week, excess };
+      latePrev = l.late;
+    }
+    return null;
+  };
+
+  // 2. sub-assembly shortages: take batches off parents, deepest items first
+  const llc = lowLevelCodes(
+    data.products.map((p) => p.code),
+    data.bom.filter((b) => b.componentProduct !== undefined).map((b) => ({ parent: b.parent, component: b.componentProduct! })),
+  );
+  const byDepth = [...data.products].sort((a, b) => llc.get(b.code)! - llc.get(a.code)!);
+  let batchesRemoved = 0;
+  for (const p of byDepth) {
+    if (!data.bom.some((b) => b.componentProduct === p.code)) continue;
+    for (let guard = 0; guard < 10_000; guard++) {
+      const br = balanceBreak(p.code);
+      if (!br) break;
+      const parents = data.bom
+        .filter((b) => b.componentProduct === p.code)
+        .map((b) => b.parent)
+        .filter((q) => d.make.get(q)![br.week - 1] > EPS)
+        .sort((a, b) => d.make.get(b)![br.week - 1] - d.make.get(a)![br.week - 1]);
+      if (parents.length === 0) break;
+      const q = parents[0];
+      d.make.get(q)![br.week - 1] = Math.max(0, d.make.get(q)![br.week - 1] - (batch.get(q) ?? 1));
+      batchesRemoved++;
+    }
+  }
+
+  // 3. add batches back where everything still holds and the margin improves
+  const affected = (product: string) => {
+    const products = [product, ...bomDescendants(data.bom, product).products];
+    return {
+      products,
+      materials: [...new Set(products.flatMap((p) => rc.materialsOf(p)))],
+      workCenters: [...new Set(products.flatMap((p) => rc.workCentersOf(p)))],
+    };
+  };
+  const localMargin = (a: ReturnType<typeof affected>, week: number) =>
+    planMargin(data, T, {
+      products: a.products.flatMap((p) => rc.productLines(p, d)),
+      workCenters: a.workCenters.map((w) => rc.workCenterLine(w, week, d)),
+      materials: a.materials.flatMap((m) => rc.materialLines(m, d)),
+    }).margin;
+  const fits = (a: ReturnType<typeof affected>, week: number) =>
+    a.workCenters.every((w) => rc.loadHours(w, week, d) <= rc.maxHours(w, week) * (1 + 1e-9) + EPS) &&
+    a.materials.every((m) => rc.materialLines(m, d).every((l) => l.stock >= -EPS)) &&
+    a.products.slice(1).every((c) => balanceBreak(c) === null);
+  /**
+   * one more batch of a product in a week, plus the batches of its sub-assemblies (all levels)
+   * that the same week then needs; returns what was added so it can be taken back
+   */
+  const addWithComponents = (product: string, week: number): Change[] => {
+    const b = batch.get(product) ?? 1;
+    d.make.get(product)![week - 1] += b;
+    const added: Change[] = [{ kind: 'make', item: product, week, qty: b }];
+    for (const c of new Set(rc.componentsOf(product))) {
+      for (let guard = 0; guard < 1000 && balanceBreak(c) !== null; guard++) added.push(...addWithComponents(c, week));
+    }
+    for (const m of new Set(rc.materialsOf(product))) added.push(...buyFor(m));
+    return added;
+  };
+  /** buy more of a material, as late as its lead time and supply cap allow, until no week runs short */
+  const buyFor = (material: string): Change[] => {
+    const m = data.materials.find((x) => x.code === material)!;
+    const buys = d.buy.get(material)!;
+    const out: Change[] = [];
+    for (;;) {
+      const short = rc.materialLines(material, d).find((l) => l.stock < -EPS);
+      if (!short) return out;
+      let need = -short.stock;
+      for (let r = short.week - m.leadTimeWeeks; r >= 1 && need > EPS; r--) {
+        const cap = supplyCap(m, r);
+        const room = cap === null ? need : Math.max(0, cap - buys[r - 1]);
+        const q = Math.min(room, need);
+        if (q <= EPS) continue;
+        buys[r - 1] += q;
+        need -= q;
+        out.push({ kind: 'buy', item: material, week: r, qty: q });
+      }
+      if (need > EPS) return out; // cannot be covered: the caller's feasibility check rejects the change
+    }
+  };
+  const undoChanges = (changes: Change[]) => {
+    for (const c of changes) (c.kind === 'make' ? d.make : d.buy).get(c.item)![c.week - 1] -= c.qty;
+  };
+  let batchesAdded = 0;
+  for (let pass = 0; pass < 5; pass++) {
+    // where rounding took units away, and — for products now short of orders — every week up to
+    // the last short one, so lost units can also be made earlier where capacity is free
+    const candidates: { product: string; week: number; loss: number }[] = [];
+    for (const p of data.products) {
+      const lines = rc.productLines(p.code, d);
+      const lpLate = lpPlan.products.filter((l) => l.product === p.code);
+      const lastShort = Math.max(0, ...lines.filter((l) => l.late > (lpLate[l.week - 1]?.late ?? 0) + EPS).map((l) => l.week));
+      for (let t = 1; t <= T; t++) {
+        const loss = lpMake.get(p.code)![t - 1] - d.make.get(p.code)![t - 1];
+        if (loss > EPS || t <= lastShort) candidates.push({ product: p.code, week: t, loss });
+      }
+    }
+    candidates.sort((a, b) => b.loss - a.loss || b.week - a.week);
+    let added = 0;
+    for (const c of candidates) {
+      const a = affected(c.product);
+      const before = localMargin(a, c.week);
+      const brokenBefore = balanceBreak(c.product) !== null;
+      const undo = addWithComponents(c.product, c.week);
+      const all = undo.filter((u) => u.kind === 'make').map((u) => affected(u.item));
+      const ok = all.every((x) => fits(x, c.week));
+      const better = localMargin(a, c.week) > before + 1e-9;
+      const repairs = brokenBefore && balanceBreak(c.product) === null;
+      if (ok && (better || repairs)) added += undo.filter((u) => u.kind === 'make').length;
+      else undoChanges(undo);
+    }
+    batchesAdded += added;
+    if (added === 0) break;
+  }
+
+  // purchases no longer needed after rounding: trim them, latest first, keeping every week covered
+  for (const m of data.materials) {
+    const buys = d.buy.get(m.code)!;
+    for (let r = T; r >= 1; r--) {
+      if (buys[r - 1] <= EPS) continue;
+      const lines = rc.materialLines(m.code, d);
+      const slack = Math.min(...lines.filter((l) => l.week >= r + m.leadTimeWeeks).map((l) => l.stock));
+      if (slack > EPS) buys[r - 1] -= Math.min(buys[r - 1], slack);
+    }
+  }
+
+  // 4. the rounded plan, checked independently
+  const wcValues = new Map(lpPlan.workCenters.map((l) => [`${l.workCenter}|${l.week}`, l]));
+  const matValues = new Map<string, Map<number, MaterialWeekLine>>();
+  for (const l of lpPlan.materials) matValues.set(l.material, (matValues.get(l.material) ?? new Map()).set(l.week, l));
+  const products: ProductWeekLine[] = data.products.flatMap((p) => rc.productLines(p.code, d));
+  const workCenters: WorkCenterWeekLine[] = data.workCenters.flatMap((w) =>
+    Array.from({ length: T }, (_, i) => rc.workCenterLine(w.code, i + 1, d, wcValues.get(`${w.code}|${i + 1}`))),
+  );
+  const materials = data.materials.flatMap((m) => rc.materialLines(m.code, d, matValues.get(m.code)));
+  const lines = { products, workCenters, materials };
+  const margin = planMargin(data, T, lines);
+  // the smoothing term is a modelling device of the LP; the rounded plan reports its margin only
+  const plan: Plan = { ...lpPlan, margin, smoothingCost: 0, products, workCenters, materials, unmetOrders: explainUnmetOrders(data, T, lines) };
+  const violations = checkPlan(data, plan);
+  const lpMargin = lpPlan.margin.margin;
+  const gap = lpMargin - margin.margin;
+  return {
+    plan,
+    report: {
+      outcome: violations.length === 0 ? 'repaired' : 'violations_remain',
+      lpMargin,
+      roundedMargin: margin.margin,
+      gap,
+      gapPct: lpMargin !== 0 ? (100 * gap) / Math.abs(lpMargin) : null,
+      batchesRemoved,
+      batchesAdded,
+      violations,
+    },
+  };
+}
