@@ -31,13 +31,14 @@ export const scenarioOverrideSchema = z.discriminatedUnion('kind', [
     ...weekRange,
     /** multiplies demand quantities (0.5 = half, 1.2 = 20 % more) */
     factor: z.number().min(0, 'The factor cannot be negative.').max(10, 'Use a factor of at most 10.'),
+    /** only firm orders or only forecasts; absent = both */
+    demandKind: z.enum(['firm', 'forecast']).optional(),
   }),
   z.strictObject({
     kind: z.literal('maintenance'),
+    /** the work center is down (closed) for maintenance in these weeks */
     workCenter: code,
     ...weekRange,
-    /** hours down per week; absent = closed the whole week */
-    downtimeHours: z.number().positive('Downtime must be more than 0 hours.').max(168).optional(),
   }),
 ]);
 export type ScenarioOverride = z.infer<typeof scenarioOverrideSchema>;

@@ -6,6 +6,7 @@ import type { SignedInPerson } from '../auth/current-person';
 import { AppError } from '../http/app-error';
 import { assertWeekStarts } from '../master-data/week-alignment';
 import { loadPlanningData } from '../planning-data/load-planning-data';
+import { applyScenarioOverrides } from '../scenarios/apply-scenario-overrides';
 import { findScenario } from '../scenarios/scenarios.repository';
 import { appendAudit } from '../sign-off/audit.repository';
 import { canonicalJson, hashOf } from './canonical-hash';
@@ -25,10 +26,7 @@ export async function createPlan(ds: DataSource, input: PlanCreate, person: Sign
 
     if (request.firstWeek) await assertWeekStarts(db, [{ path: 'firstWeek', date: request.firstWeek }]);
     const current = await loadPlanningData(db, request.horizonWeeks, request.firstWeek ? { from: request.firstWeek } : {});
-    // Loaded on use: plan-model's applyScenario is still landing (see the report).
-    const { data, issues: scenarioIssues } = scenario
-      ? (await import('../scenarios/apply-scenario-overrides')).applyScenarioOverrides(current, scenario.overrides)
-      : { data: current, issues: [] };
+    const { data, issues: scenarioIssues } = scenario ? applyScenarioOverrides(current, scenario.overrides) : { data: current, issues: [] };
     const issues: DataIssue[] = [...scenarioIssues, ...validatePlanningData(data, request.horizonWeeks).map(({ item, message }) => ({ item, message }))];
     if (issues.length > 0) {
       throw AppError.unprocessable(

@@ -1,5 +1,5 @@
 import type { DataIssue, ScenarioOverride } from '@millrace/contracts';
-import { applyScenario, type PlanningData, type ScenarioChange } from '@millrace/plan-model';
+import { applyScenario, ScenarioError, type PlanningData, type ScenarioOverride as ScenarioChange } from '@millrace/plan-model';
 
 /**
  * A scenario's overrides (weeks as ISO week-start dates) applied to the plant's current data:
@@ -25,18 +25,24 @@ export function applyScenarioOverrides(data: PlanningData, overrides: ScenarioOv
     const toWeek = Math.max(...weeks);
     switch (o.kind) {
       case 'extra_shift':
-        changes.push({ kind: 'extra_shift', workCenter: o.workCenter, fromWeek, toWeek, extraShiftsPerDay: o.extraShiftsPerDay });
+        changes.push({ kind: 'extra_shift', workCenter: o.workCenter, fromWeek, toWeek, shiftsPerDay: o.extraShiftsPerDay });
         break;
       case 'supply_cap':
-        changes.push({ kind: 'supply_cap', material: o.material, fromWeek, toWeek, weeklySupplyCap: o.weeklySupplyCap });
+        changes.push({ kind: 'supply_cap', material: o.material, fromWeek, toWeek, cap: o.weeklySupplyCap });
         break;
       case 'demand_scale':
-        changes.push({ kind: 'demand_scale', product: o.product, fromWeek, toWeek, factor: o.factor });
+        changes.push({ kind: 'demand_scale', product: o.product, fromWeek, toWeek, factor: o.factor, demandKind: o.demandKind });
         break;
       case 'maintenance':
-        changes.push({ kind: 'maintenance', workCenter: o.workCenter, fromWeek, toWeek, downtimeHours: o.downtimeHours });
+        changes.push({ kind: 'maintenance', workCenter: o.workCenter, fromWeek, toWeek });
         break;
     }
   });
-  return { data: issues.length > 0 ? data : applyScenario(data, changes), issues };
+  if (issues.length > 0) return { data, issues };
+  try {
+    return { data: applyScenario(data, changes), issues };
+  } catch (err) {
+    if (!(err instanceof ScenarioError)) throw err;
+    return { data, issues: err.issues.map((i) => ({ item: `scenario override ${i.override + 1}`, message: `scenario override ${i.override + 1}: ${i.message}` })) };
+  }
 }

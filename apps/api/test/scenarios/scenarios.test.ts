@@ -87,6 +87,43 @@ describe('scenarios', () => {
   });
 });
 
+describe('plans built from a scenario', () => {
+  it('when a plan is created from an extra-shift scenario, then it carries the overrides and compares as the what-if it is', async () => {
+    const s = (await planner.post('/api/scenarios').send({ ...extraShift, name: 'Extra shift for plans' })).body;
+    const base = await solved({ name: 'As is' });
+    const whatIf = await solved({ name: 'With a second shift', scenarioId: s.id });
+    const plan = (await planner.get(`/api/plans/${whatIf}`)).body;
+    expect(plan).toMatchObject({ scenarioId: s.id, scenarioName: 'Extra shift for plans', solveStatus: 'solved' });
+
+    const ra = planResultsSchema.parse((await planner.get(`/api/plans/${base}/results`)).body);
+    const rb = planResultsSchema.parse((await planner.get(`/api/plans/${whatIf}/results`)).body);
+    const asm = (r: typeof ra, week: number) => r.load.find((l) => l.workCenter === 'ASM' && l.week === week)!.availableHours;
+    // Shift arithmetic (common practice, no source): a second 8 h shift on 5 days doubles a one-shift week.
+    expect(asm(rb, 2)).toBeCloseTo(2 * asm(ra, 2), 9);
+    expect(asm(rb, 3)).toBeCloseTo(2 * asm(ra, 3), 9);
+    expect(asm(rb, 1)).toBeCloseTo(asm(ra, 1), 9);
+
+    const cmp = planComparisonSchema.parse((await planner.get(`/api/plans/compare?a=${base}&b=${whatIf}`)).body);
+    // More regular capacity relaxes the LP: its optimum cannot get worse (LP relaxation, any OR textbook).
+    expect(cmp.margin.b).toBeGreaterThanOrEqual(cmp.margin.a - 1e-6 * Math.abs(cmp.margin.a));
+    const used = scenarioSchema.parse((await planner.get(`/api/scenarios/${s.id}`)).body);
+    expect(used.usedByPlanIds).toEqual([whatIf]);
+    expect(used.locked).toBe(false); // a draft does not lock its scenario
+  });
+
+  it('when a scenario names a work center that no longer exists, then creating the plan answers 422 naming the override', async () => {
+    const s = (
+      await planner.post('/api/scenarios').send({
+        name: 'Gone machine',
+        overrides: [{ kind: 'maintenance', workCenter: 'LATHE9', fromWeek: WEEKS[0], toWeek: WEEKS[1] }],
+      })
+    ).body;
+    const res = await planner.post('/api/plans').send({ name: 'From gone', horizonWeeks: 4, firstWeek: FIRST_WEEK, scenarioId: s.id });
+    expect(res.status).toBe(422);
+    expect(res.body.error.issues).toEqual([{ item: 'scenario override 1 (maintenance)', message: expect.stringMatching(/work center LATHE9 does not exist/) }]);
+  });
+});
+
 describe('comparing two plan versions', () => {
   it('when two solved plans are compared, then margin, overtime, spend, unmet and load per work center come side by side', async () => {
     const a = await solved({ name: 'Compare A' });
