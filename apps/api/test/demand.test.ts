@@ -131,6 +131,17 @@ describe('demand grid and batch save', () => {
     expect(after.cells[0].firmOrders[0].qty).toBe(13);
   });
 
+  it('when two planners fill the same empty cell at the same moment, then one save lands and the other gets 409', async () => {
+    const [a, b] = await Promise.all([ctx.agentFor('planner'), ctx.agentFor('planner')]);
+    const week = addDays(thisWeek, 21);
+    const results = await Promise.all(
+      [a, b].map((agent, i) => agent.put('/api/demand').send({ changes: [{ kind: 'forecast', productId: table.id, weekStart: week, qty: 10 + i, version: null }] })),
+    );
+    expect(results.map((r) => r.status).sort()).toEqual([200, 409]);
+    const rows = (await ctx.dataSource.query('SELECT COUNT(*) AS n FROM demand_forecast WHERE product_id = ? AND week_start = ?', [table.id, week])) as Array<{ n: string }>;
+    expect(Number(rows[0].n)).toBe(1);
+  });
+
   it('when the same cell appears twice in a batch, or the batch is empty, then 400', async () => {
     const twice = await planner.put('/api/demand').send({
       changes: [

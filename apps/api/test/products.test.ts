@@ -54,6 +54,12 @@ describe('products: create, read, update, delete', () => {
     expect(res.body.error.fields).toEqual([{ path: 'code', message: expect.stringContaining('DUP-1') }]);
   });
 
+  it('when two planners create the same code at the same moment, then one gets 201 and the other 409, never 500', async () => {
+    const [a, b] = await Promise.all([ctx.agentFor('planner'), ctx.agentFor('planner')]);
+    const results = await Promise.all([a, b].map((agent) => agent.post('/api/products').send({ code: 'RACE-1', name: 'Race', unit: 'pcs', kind: 'finished' })));
+    expect(results.map((r) => r.status).sort()).toEqual([201, 409]);
+  });
+
   it('when two planners edit the same version, then the second gets 409 with the reload sentence and the first change stays', async () => {
     const planner = await ctx.agentFor('planner');
     const p = await createProduct(planner, { code: 'LOCK-1', price: 10 });

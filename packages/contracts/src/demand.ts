@@ -95,7 +95,7 @@ export type DemandChange = z.infer<typeof demandChangeSchema>;
 /** Body of PUT /api/demand: every change is written in one transaction, or none is. */
 export const demandBatchSchema = z
   .strictObject({
-    changes: z.array(demandChangeSchema).min(1, 'Send at least one change.').max(20000, 'At most 20,000 changes per save.'),
+    changes: z.array(demandChangeSchema).min(1, 'Send at least one change.').max(5000, 'At most 5,000 changes per save; save a large paste in parts.'),
   })
   .superRefine((b, ctx) => {
     const seen = new Map<string, number>();

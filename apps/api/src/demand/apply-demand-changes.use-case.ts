@@ -2,6 +2,7 @@ import type { DataSource } from 'typeorm';
 import { addDays, type DemandBatch, type DemandBatchResult, type DemandChange, type FieldError } from '@millrace/contracts';
 import { AppError } from '../http/app-error';
 import { changedSinceOpened } from '../master-data/conflict-messages';
+import { isDuplicateKey } from '../master-data/duplicate-key';
 import { assertWeekStarts } from '../master-data/week-alignment';
 import { findProductsByIds } from '../products/products.repository';
 import {
@@ -32,6 +33,22 @@ type Action =
  * A quantity of 0 removes the firm order or forecast.
  */
 export async function applyDemandChanges(dataSource: DataSource, batch: DemandBatch): Promise<DemandBatchResult> {
+  try {
+    return await writeBatch(dataSource, batch);
+  } catch (err) {
+    // Two saves of the same cells at the same moment: the unique key or InnoDB's deadlock check
+    // stops one of them; nothing of that batch was written.
+    if (isDuplicateKey(err) || isDeadlock(err)) throw changedSinceOpened('the demand you are saving');
+    throw err;
+  }
+}
+
+function isDeadlock(err: unknown): boolean {
+  const e = err as { code?: string; driverError?: { code?: string } } | null;
+  return e?.code === 'ER_LOCK_DEADLOCK' || e?.driverError?.code === 'ER_LOCK_DEADLOCK';
+}
+
+async function writeBatch(dataSource: DataSource, batch: DemandBatch): Promise<DemandBatchResult> {
   return dataSource.transaction(async (db) => {
     const changes = batch.changes;
     const productIds = [...new Set(changes.map((c) => c.productId))];
