@@ -166,6 +166,23 @@ describe('sign-off rules beyond the table', () => {
     expect(audit.at(-1).comment).toContain(`plan version ${second}`);
   });
 
+  it('when a plan puts crews above the plant working-time limit, then the review cautions per work center and week, deferring to labour law', async () => {
+    // Lower the plant's weekly limit to 42 h: one 8 h shift on 5 days is 40 h, so any overtime above 2 h per crew breaches it.
+    await ctx.dataSource.query('UPDATE plant_settings SET max_weekly_hours = 42 WHERE id = 1');
+    try {
+      const id = await createSolvedPlan('Overtime heavy');
+      const results = (await agents.supervisor.get(`/api/plans/${id}/results`)).body;
+      const over = results.load.filter((l: { overtimeHours: number }) => l.overtimeHours > 2 + 1e-6);
+      expect(over.length).toBeGreaterThan(0); // the assembly bench needs overtime in this plant
+      const review = planReviewSchema.parse((await agents.supervisor.get(`/api/plans/${id}/review`)).body);
+      const working = review.cautions.filter((c) => c.kind === 'working_time');
+      expect(working.map((c) => [c.item, c.week])).toEqual(over.map((l: { workCenter: string; week: number }) => [l.workCenter, l.week]));
+      for (const c of working) expect(c.message).toMatch(/above the plant's limit of 42 h.*local labour law/);
+    } finally {
+      await ctx.dataSource.query('UPDATE plant_settings SET max_weekly_hours = 48 WHERE id = 1');
+    }
+  });
+
   it('when a submitted plan is reviewed, then it is compared with the last approved version, with certificate and cautions', async () => {
     const approved = await createSolvedPlan('Approved baseline');
     await agents.planner.post(`/api/plans/${approved}/submit`).send({});
