@@ -22,3 +22,4 @@ export * from './check-plan';
 export * from './material-supply';
 export * from './scenario';
 export * from './compare-plans';
+export * from './must-ship-diagnosis';

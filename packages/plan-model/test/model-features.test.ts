@@ -5,6 +5,7 @@ import { buildModel } from '../src/build-model';
 import { mapSolution } from '../src/map-solution';
 import { checkPlan } from '../src/check-plan';
 import { materialCalls } from '../src/material-calls';
+import { diagnoseMustShip } from '../src/must-ship-diagnosis';
 import { sailboatPlant } from './support/sailboat';
 import { solveUnderTest, solverName } from './support/solver';
 
@@ -92,6 +93,21 @@ describe(`model features (solver: ${solverName})`, () => {
     expect(plan.infeasibility).toContain('Must-ship orders for Sailboat (Q2; 100 boat) must ship complete in week 2.');
     expect(plan.infeasibility).toContain('Boat yard in week 1 has 40 h of regular time and no overtime.');
     expect(plan.infeasibility).toContain('Boat yard in week 2 has 40 h of regular time and no overtime.');
+  });
+
+  it('the elastic must-ship check says how much cannot ship and what limits it (any solver status)', async () => {
+    // Same data: 10 in stock + 2 quarters × 40 boats = 90 can ship by quarter 2 against 100 (Winston §3.10 data, arithmetic).
+    const data = sailboatPlant();
+    data.workCenters[0].overtimeCapHoursPerWeek = 0;
+    data.demand[1] = { ...data.demand[1], qty: 100, mustShip: true };
+    const built = buildModel(data, { horizonWeeks: 4 });
+    const diagnosis = (await diagnoseMustShip(data, built, solveUnderTest))!;
+    expect(diagnosis.shortfalls).toEqual([{ product: 'BOAT', week: 2, orderRefs: ['Q2'], required: 100, short: expect.closeTo(10, 5) }]);
+    expect(diagnosis.sentences[0]).toBe('Must-ship order Q2 (Sailboat, 100 in week 2): at most 90 can ship — 10 short.');
+    expect(diagnosis.limits[0]).toMatch(/^Boat yard is full in weeks 1–2/);
+    // a must-ship order that fits gives no diagnosis
+    data.demand[1] = { ...data.demand[1], qty: 60 };
+    expect(await diagnoseMustShip(data, buildModel(data, { horizonWeeks: 4 }), solveUnderTest)).toBeNull();
   });
 
   it('a must-ship order is served before ordinary orders of the same product', async () => {
