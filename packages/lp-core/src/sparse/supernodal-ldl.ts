@@ -12,6 +12,9 @@
 import type { FactorOptions, FactorReport } from './ldl';
 import type { SupernodalSymbolic } from './supernodal-symbolic';
 
+/** columns per panel of the dense block factorisation */
+const PANEL = 32;
+
 export class SupernodalLdl {
   readonly Lx: Float64Array;
   readonly D: Float64Array;
@@ -132,10 +135,11 @@ export class SupernodalLdl {
         }
         d = dNext;
       }
-      // 3. dense LDLᵀ of the trapezoidal block, right-looking in panels of up to 4 columns:
-      //    factorise the panel, then update the trailing columns with it in one pass
-      for (let k0 = 0; k0 < ws; k0 += 4) {
-        const k1 = Math.min(k0 + 4, ws);
+      // 3. dense LDLᵀ of the trapezoidal block, blocked right-looking: factorise a panel of up
+      //    to PANEL columns, then update each trailing column with the whole panel (the panel
+      //    stays in cache while the trailing columns stream past once)
+      for (let k0 = 0; k0 < ws; k0 += PANEL) {
+        const k1 = Math.min(k0 + PANEL, ws);
         for (let k = k0; k < k1; k++) {
           const j = f + k;
           const kb = off + k * nrs;
@@ -149,7 +153,7 @@ export class SupernodalLdl {
           }
           D[j] = dk;
           const inv = 1 / dk;
-          // update the rest of the panel with column k (still unscaled: L·d)
+          // the rest of the panel, with column k still unscaled (L·d)
           for (let c = k + 1; c < k1; c++) {
             const fct = Lx[kb + c] * inv;
             if (fct === 0) continue;
@@ -157,27 +161,26 @@ export class SupernodalLdl {
             for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
           }
         }
-        // trailing update with the whole panel: column c −= Σ_k (L·d)_k · L_ck
-        const np = k1 - k0;
+        // trailing columns: column c −= Σ_k (L·d)_k · L_ck over the panel
         for (let c = k1; c < ws; c++) {
           const cb = off + c * nrs;
-          if (np === 4) {
-            const p0 = off + k0 * nrs;
+          let k = k0;
+          for (; k + 3 < k1; k += 4) {
+            const p0 = off + k * nrs;
             const p1 = p0 + nrs;
             const p2 = p1 + nrs;
             const p3 = p2 + nrs;
-            const f0 = Lx[p0 + c] / D[f + k0];
-            const f1 = Lx[p1 + c] / D[f + k0 + 1];
-            const f2 = Lx[p2 + c] / D[f + k0 + 2];
-            const f3 = Lx[p3 + c] / D[f + k0 + 3];
+            const f0 = Lx[p0 + c] / D[f + k];
+            const f1 = Lx[p1 + c] / D[f + k + 1];
+            const f2 = Lx[p2 + c] / D[f + k + 2];
+            const f3 = Lx[p3 + c] / D[f + k + 3];
             for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[p0 + r] * f0 + Lx[p1 + r] * f1 + Lx[p2 + r] * f2 + Lx[p3 + r] * f3;
-          } else {
-            for (let k = k0; k < k1; k++) {
-              const kb = off + k * nrs;
-              const fct = Lx[kb + c] / D[f + k];
-              if (fct === 0) continue;
-              for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
-            }
+          }
+          for (; k < k1; k++) {
+            const kb = off + k * nrs;
+            const fct = Lx[kb + c] / D[f + k];
+            if (fct === 0) continue;
+            for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
           }
         }
         // scale the panel's columns: L = (L·d) / d

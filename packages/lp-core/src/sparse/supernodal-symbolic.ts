@@ -46,28 +46,35 @@ export function supernodalSymbolic(n: number, Cp: Int32Array, Ci: Int32Array): S
     if (!joins) starts.push(j);
   }
   starts.push(n);
-  // relaxed amalgamation of a supernode with the next one when it is the next one's only child
-  // and the next one starts right after it (its parent in the supernodal tree)
+  // relaxed amalgamation (as in CHOLMOD): merge a supernode A into the next one B when B is
+  // A's parent in the tree and the explicit zeros this adds stay few. Heights count the rows of a
+  // supernode's first column including its own columns; merging gives B's columns plus A's on top.
   const merged: number[] = [0];
-  let curStart = 0;
+  let aStart = 0;
+  let aHeight = colCount[0] + 1;
+  let aZeros = 0;
   for (let s = 1; s < starts.length - 1; s++) {
-    const a0 = curStart;
-    const a1 = starts[s]; // end of the current (merged) supernode
+    const b0 = starts[s];
     const b1 = starts[s + 1];
-    const lastOfA = a1 - 1;
-    const wa = a1 - a0;
-    const wb = b1 - a1;
-    const onlyChild = parent[lastOfA] === a1 && childCount[a1] === 1;
-    if (onlyChild) {
-      // rows of merged block = rows of A's first column; A's structure below its columns ⊇ B's
-      const rowsA = colCount[a0] + 1;
-      const rowsB = colCount[a1] + 1;
-      const extra = (rowsA - wa - rowsB) * wb; // zeros added in B's columns
-      const total = rowsA * (wa + wb);
-      if (wa + wb <= 2 * RELAX_SMALL || extra <= RELAX_FRACTION * total) continue;
+    const wa = b0 - aStart;
+    const wb = b1 - b0;
+    const bHeight = colCount[b0] + 1;
+    if (parent[b0 - 1] === b0) {
+      const height = wa + bHeight;
+      const zeros = aZeros + (height - aHeight) * wa;
+      const w = wa + wb;
+      const entries = height * w - (w * (w - 1)) / 2;
+      const frac = zeros / entries;
+      if (w <= RELAX_SMALL || (w <= 16 && frac < 0.8) || (w <= 48 && frac < RELAX_FRACTION) || frac < 0.05) {
+        aHeight = height;
+        aZeros = zeros;
+        continue;
+      }
     }
-    merged.push(a1);
-    curStart = a1;
+    merged.push(b0);
+    aStart = b0;
+    aHeight = bHeight;
+    aZeros = 0;
   }
   merged.push(n);
   const count = merged.length - 1;
