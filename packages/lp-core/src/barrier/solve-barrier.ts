@@ -27,10 +27,12 @@ export function solveBarrier(problem: Problem, overrides: Partial<BarrierSetting
   const budget: NewtonBudget = { stepsUsed: 0, maxSteps: settings.maxNewtonSteps, deadline: start + settings.timeLimitSeconds * 1000 };
   // Phase I; inequalities that hold with equality at every feasible point become equalities.
   let working = problem;
+  let implicitEqualities = 0;
   let form = barrierForm(working, settings.boxRadius);
   let phaseOne = findStrictlyFeasible(working, form, settings, budget);
   for (let round = 0; phaseOne.kind === 'no_interior' && round < MAX_IMPLICIT_EQUALITY_ROUNDS; round++) {
     working = withImplicitEqualities(working, form, phaseOne.tight);
+    implicitEqualities += phaseOne.tight.length;
     form = barrierForm(working, settings.boxRadius);
     phaseOne = findStrictlyFeasible(working, form, settings, budget);
   }
@@ -67,7 +69,8 @@ export function solveBarrier(problem: Problem, overrides: Partial<BarrierSetting
       if (onBox >= 0) {
         return result(problem, x, { centering, t }, 'unbounded', budget, start, `column '${problem.colNames[onBox]}' is held by the artificial bound ±${form.boxRadius.toExponential(1)}: the objective is unbounded below (or the optimum lies beyond boxRadius)`, { phaseOne: phaseOneSeconds });
       }
-      return result(problem, x, { centering, t }, 'optimal', budget, start, undefined, {
+      const note = implicitEqualities > 0 ? `${implicitEqualities} inequalities hold with equality at every feasible point and were solved as equalities; their duals may carry the wrong sign (see the dual residual)` : undefined;
+      return result(problem, x, { centering, t }, 'optimal', budget, start, note, {
         phaseOne: phaseOneSeconds,
         phaseTwo: (performance.now() - start) / 1000 - phaseOneSeconds,
       });
