@@ -161,22 +161,56 @@ export class SupernodalLdl {
             for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
           }
         }
-        // trailing columns: column c −= Σ_k (L·d)_k · L_ck over the panel
-        for (let c = k1; c < ws; c++) {
-          const cb = off + c * nrs;
+        // trailing columns: column c −= Σ_k (L·d)_k · L_ck over the panel, two columns at a time
+        // so every panel value loaded serves two multiply–adds
+        let c = k1;
+        for (; c + 1 < ws; c += 2) {
+          const cb0 = off + c * nrs;
+          const cb1 = cb0 + nrs;
           let k = k0;
           for (; k + 3 < k1; k += 4) {
             const p0 = off + k * nrs;
             const p1 = p0 + nrs;
             const p2 = p1 + nrs;
             const p3 = p2 + nrs;
-            const f0 = Lx[p0 + c] / D[f + k];
-            const f1 = Lx[p1 + c] / D[f + k + 1];
-            const f2 = Lx[p2 + c] / D[f + k + 2];
-            const f3 = Lx[p3 + c] / D[f + k + 3];
-            for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[p0 + r] * f0 + Lx[p1 + r] * f1 + Lx[p2 + r] * f2 + Lx[p3 + r] * f3;
+            const i0 = 1 / D[f + k];
+            const i1 = 1 / D[f + k + 1];
+            const i2 = 1 / D[f + k + 2];
+            const i3 = 1 / D[f + k + 3];
+            const f00 = Lx[p0 + c] * i0;
+            const f10 = Lx[p1 + c] * i1;
+            const f20 = Lx[p2 + c] * i2;
+            const f30 = Lx[p3 + c] * i3;
+            const f01 = Lx[p0 + c + 1] * i0;
+            const f11 = Lx[p1 + c + 1] * i1;
+            const f21 = Lx[p2 + c + 1] * i2;
+            const f31 = Lx[p3 + c + 1] * i3;
+            Lx[cb0 + c] -= Lx[p0 + c] * f00 + Lx[p1 + c] * f10 + Lx[p2 + c] * f20 + Lx[p3 + c] * f30;
+            for (let r = c + 1; r < nrs; r++) {
+              const a0 = Lx[p0 + r];
+              const a1 = Lx[p1 + r];
+              const a2 = Lx[p2 + r];
+              const a3 = Lx[p3 + r];
+              Lx[cb0 + r] -= a0 * f00 + a1 * f10 + a2 * f20 + a3 * f30;
+              Lx[cb1 + r] -= a0 * f01 + a1 * f11 + a2 * f21 + a3 * f31;
+            }
           }
           for (; k < k1; k++) {
+            const kb = off + k * nrs;
+            const inv = 1 / D[f + k];
+            const g0 = Lx[kb + c] * inv;
+            const g1 = Lx[kb + c + 1] * inv;
+            Lx[cb0 + c] -= Lx[kb + c] * g0;
+            for (let r = c + 1; r < nrs; r++) {
+              const a = Lx[kb + r];
+              Lx[cb0 + r] -= a * g0;
+              Lx[cb1 + r] -= a * g1;
+            }
+          }
+        }
+        for (; c < ws; c++) {
+          const cb = off + c * nrs;
+          for (let k = k0; k < k1; k++) {
             const kb = off + k * nrs;
             const fct = Lx[kb + c] / D[f + k];
             if (fct === 0) continue;
