@@ -34,9 +34,10 @@ mr_db_socket() {
 }
 
 mr_db_init() {
-  local base="$1" data="$1/data" out
-  mkdir -p "$base/run" "$(dirname "$(mr_db_socket "$base")")"
-  chmod 700 "$base" "$base/run"
+  local base="$1" data="$1/data" out sockdir
+  sockdir="$(dirname "$(mr_db_socket "$base")")"
+  mkdir -p "$base/run" "$sockdir"
+  chmod 700 "$base" "$base/run" "$sockdir"
   if [ -f "$data/.millrace-initialised" ]; then
     return 0
   fi
