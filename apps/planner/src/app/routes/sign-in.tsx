@@ -11,6 +11,8 @@ export function safeNext(next: string | null): string {
 
 /** Someone already signed in goes straight on. */
 export const clientLoader = (queryClient: QueryClient) => async ({ request }: { request: Request }) => {
+  // Sent here because /api/me just answered 401: no need to ask again.
+  if (queryClient.getQueryState(meQueryOptions().queryKey)?.status === 'error') return null;
   try {
     await queryClient.ensureQueryData(meQueryOptions());
   } catch {

@@ -1,5 +1,5 @@
 import { useVirtualizer } from '@tanstack/react-virtual';
-import { useEffect, useRef, useState, type ClipboardEvent, type KeyboardEvent } from 'react';
+import { memo, useEffect, useMemo, useRef, useState, type ClipboardEvent, type KeyboardEvent } from 'react';
 import { formatNumber, formatWeek, formatWeekLong } from '@/lib/format';
 import { cellKey, isEditable, savedQty, shownQty, weekTotals, type GridLine, type PendingEdits } from './demand-edits';
 import { parsePastedBlock, parsePastedNumber } from './parse-pasted-block';
@@ -17,6 +17,110 @@ const overscanLines = 10;
 const pageLines = 10;
 
 const kindLabel = { firm: 'Firm', forecast: 'Forecast' } as const;
+
+/** The grid position of the cell an event happened in, from its `data-cell="row:col"`. */
+function cellAt(target: EventTarget): Position | null {
+  const cell = (target as HTMLElement).closest?.('[data-cell]') as HTMLElement | null;
+  if (!cell?.dataset.cell) return null;
+  const [r, c] = cell.dataset.cell.split(':').map(Number);
+  return { row: r, col: c };
+}
+
+type Editor = {
+  draft: string;
+  onChange: (value: string) => void;
+  onKeyDown: (e: KeyboardEvent<HTMLInputElement>) => void;
+  onBlur: () => void;
+};
+
+type GridRowProps = {
+  line: GridLine;
+  index: number;
+  weeks: string[];
+  weekNames: string[];
+  pending: PendingEdits;
+  cellErrors: ReadonlyMap<string, string>;
+  readOnly: boolean;
+  /** Column of the active cell when it is in this line, else -1. */
+  activeCol: number;
+  /** The open editor, when the active cell of this line is being edited. */
+  editor?: Editor;
+};
+
+/**
+ * One line of the grid. Memoised: moving the active cell or scrolling redraws only the lines
+ * whose props change (events are handled once, on the table).
+ */
+const GridRow = memo(function GridRow({ line, index, weeks, weekNames, pending, cellErrors, readOnly, activeCol, editor }: GridRowProps) {
+  const firstOfProduct = line.kind === 'firm';
+  return (
+    <tr role="row" aria-rowindex={index + 2} style={{ height: lineHeightPx }} className={firstOfProduct ? 'border-t border-line' : ''}>
+      <th role="rowheader" scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
+        {firstOfProduct ? (
+          <>
+            <span className="font-semibold">{line.row.productCode}</span> {line.row.productName}
+          </>
+        ) : (
+          <span className="sr-only">
+            {line.row.productCode} {line.row.productName}
+          </span>
+        )}
+      </th>
+      <th role="rowheader" scope="row" className="px-2 py-1 text-left font-normal text-ink-soft">
+        {kindLabel[line.kind]}
+      </th>
+      {weeks.map((w, c) => {
+        const key = cellKey(line.row.productId, w, line.kind);
+        const isActive = c === activeCol;
+        const qty = shownQty(line, c, pending);
+        const changed = qty !== savedQty(line, c);
+        const error = cellErrors.get(key);
+        const orders = line.kind === 'firm' ? line.row.cells[c].firmOrders.length : 0;
+        const editable = isEditable(line, c);
+        const name = `${line.row.productCode} ${kindLabel[line.kind].toLowerCase()}, ${weekNames[c]}`;
+        return (
+          <td
+            key={w}
+            role="gridcell"
+            data-cell={`${index}:${c}`}
+            tabIndex={isActive && !editor ? 0 : -1}
+            aria-selected={isActive}
+            aria-readonly={readOnly || !editable || undefined}
+            aria-label={`${name}: ${formatNumber(qty)}${changed ? ', changed' : ''}${orders > 1 ? `, ${orders} orders` : ''}${error ? `, problem: ${error}` : ''}`}
+            aria-invalid={error ? true : undefined}
+            title={error ?? (orders > 1 ? `${orders} firm orders` : undefined)}
+            className={`relative min-w-20 cursor-cell px-2 py-1 text-right tabular-nums outline-none ${isActive ? 'ring-2 ring-inset ring-race-700' : ''} ${
+              changed ? 'bg-race-100 font-semibold' : ''
+            } ${error ? 'bg-fault-50 text-fault-700' : ''} ${qty === 0 && !changed ? 'text-ink-soft' : ''}`}
+          >
+            {isActive && editor ? (
+              <input
+                autoFocus
+                aria-label={name}
+                inputMode="decimal"
+                value={editor.draft}
+                onChange={(e) => editor.onChange(e.target.value)}
+                onKeyDown={editor.onKeyDown}
+                onBlur={editor.onBlur}
+                className="w-full rounded border border-race-700 bg-white px-1 text-right"
+              />
+            ) : (
+              <>
+                {error ? <span aria-hidden="true">✕ </span> : changed ? <span aria-hidden="true">• </span> : null}
+                {orders > 1 ? (
+                  <span aria-hidden="true" className="mr-1 text-xs text-ink-soft">
+                    {orders}×
+                  </span>
+                ) : null}
+                {qty === 0 && !changed ? '·' : formatNumber(qty)}
+              </>
+            )}
+          </td>
+        );
+      })}
+    </tr>
+  );
+});
 
 export type DemandGridProps = {
   lines: GridLine[];
@@ -57,12 +161,21 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
   const row = Math.min(active.row, Math.max(0, rowCount - 1));
   const col = Math.min(active.col, Math.max(0, colCount - 1));
 
+  // After the editor closes its input is gone and focus with it: bring focus back to the grid.
+  const refocusAfterEdit = useRef(false);
+
   useEffect(() => {
-    if (!focusInside.current || draft !== null) return;
+    if ((!focusInside.current && !refocusAfterEdit.current) || draft !== null) return;
+    refocusAfterEdit.current = false;
     virtualizer.scrollToIndex(row, { align: 'auto' });
-    const frame = requestAnimationFrame(() => {
-      tableRef.current?.querySelector<HTMLElement>(`[data-cell="${row}:${col}"]`)?.focus();
-    });
+    const find = () => tableRef.current?.querySelector<HTMLElement>(`[data-cell="${row}:${col}"]`);
+    const cell = find();
+    if (cell) {
+      cell.focus();
+      return;
+    }
+    // the line is drawn once the virtualiser has scrolled to it
+    const frame = requestAnimationFrame(() => find()?.focus());
     return () => cancelAnimationFrame(frame);
   }, [row, col, draft, virtualizer]);
 
@@ -103,6 +216,7 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
   };
 
   const onCellKeyDown = (e: KeyboardEvent<HTMLElement>) => {
+    if (e.defaultPrevented) return;
     if (draft !== null) return;
     const k = e.key;
     const handled = () => e.preventDefault();
@@ -139,6 +253,7 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
     const k = e.key;
     if (k === 'Escape') {
       e.preventDefault();
+      refocusAfterEdit.current = true;
       setDraft(null);
       return;
     }
@@ -151,7 +266,9 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
     const to = next[k];
     if (!to) return;
     e.preventDefault();
+    refocusAfterEdit.current = true;
     if (commit()) move(to.row, to.col);
+    else refocusAfterEdit.current = false;
   };
 
   const onPaste = (e: ClipboardEvent<HTMLTableElement>) => {
@@ -192,7 +309,8 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
     });
   };
 
-  const totals = weekTotals(lines, colCount, pending);
+  const totals = useMemo(() => weekTotals(lines, colCount, pending), [lines, colCount, pending]);
+  const weekNames = useMemo(() => weeks.map(formatWeekLong), [weeks]);
   const items = virtualizer.getVirtualItems();
   const paddingTop = items.length ? items[0].start : 0;
   const paddingBottom = items.length ? virtualizer.getTotalSize() - items[items.length - 1].end : 0;
@@ -208,6 +326,19 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
         aria-readonly={readOnly || undefined}
         className="w-full border-collapse text-sm"
         onPaste={onPaste}
+        onKeyDown={(e) => {
+          if ((e.target as HTMLElement).dataset.cell !== undefined) onCellKeyDown(e);
+        }}
+        onClick={(e) => {
+          const at = cellAt(e.target);
+          if (!at) return;
+          if (draft !== null && !(at.row === row && at.col === col) && !commit()) return;
+          setActive(at);
+        }}
+        onDoubleClick={(e) => {
+          const at = cellAt(e.target);
+          if (at && at.row === row && at.col === col) startEdit(String(shownQty(lines[row], col, pending)));
+        }}
         onFocus={() => {
           focusInside.current = true;
         }}
@@ -239,91 +370,24 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
           {items.map((item) => {
             const r = item.index;
             const line = lines[r];
-            const firstOfProduct = line.kind === 'firm';
+            const isActiveRow = r === row;
             return (
-              <tr
+              <GridRow
                 key={`${line.row.productId}-${line.kind}`}
-                role="row"
-                aria-rowindex={r + 2}
-                style={{ height: lineHeightPx }}
-                className={firstOfProduct ? 'border-t border-line' : ''}
-              >
-                <th role="rowheader" scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
-                  {firstOfProduct ? (
-                    <>
-                      <span className="font-semibold">{line.row.productCode}</span> {line.row.productName}
-                    </>
-                  ) : (
-                    <span className="sr-only">
-                      {line.row.productCode} {line.row.productName}
-                    </span>
-                  )}
-                </th>
-                <th role="rowheader" scope="row" className="px-2 py-1 text-left font-normal text-ink-soft">
-                  {kindLabel[line.kind]}
-                </th>
-                {weeks.map((w, c) => {
-                  const key = cellKey(line.row.productId, w, line.kind);
-                  const isActive = r === row && c === col;
-                  const qty = shownQty(line, c, pending);
-                  const changed = qty !== savedQty(line, c);
-                  const error = cellErrors.get(key);
-                  const orders = line.kind === 'firm' ? line.row.cells[c].firmOrders.length : 0;
-                  const editable = isEditable(line, c);
-                  const name = `${line.row.productCode} ${kindLabel[line.kind].toLowerCase()}, ${formatWeekLong(w)}`;
-                  return (
-                    <td
-                      key={w}
-                      role="gridcell"
-                      data-cell={`${r}:${c}`}
-                      tabIndex={isActive && draft === null ? 0 : -1}
-                      aria-selected={isActive}
-                      aria-readonly={readOnly || !editable || undefined}
-                      aria-label={`${name}: ${formatNumber(qty)}${changed ? ', changed' : ''}${orders > 1 ? `, ${orders} orders` : ''}${error ? `, problem: ${error}` : ''}`}
-                      aria-invalid={error ? true : undefined}
-                      title={error ?? (orders > 1 ? `${orders} firm orders` : undefined)}
-                      onClick={() => {
-                        if (draft !== null && !(isActive)) {
-                          if (!commit()) return;
-                        }
-                        setActive({ row: r, col: c });
-                      }}
-                      onDoubleClick={() => startEdit(String(qty))}
-                      onKeyDown={onCellKeyDown}
-                      className={`relative min-w-20 cursor-cell px-2 py-1 text-right tabular-nums outline-none ${
-                        isActive ? 'ring-2 ring-inset ring-race-700' : ''
-                      } ${changed ? 'bg-race-100 font-semibold' : ''} ${error ? 'bg-fault-50 text-fault-700' : ''} ${
-                        qty === 0 && !changed ? 'text-ink-soft' : ''
-                      }`}
-                    >
-                      {isActive && draft !== null ? (
-                        <input
-                          autoFocus
-                          aria-label={name}
-                          inputMode="decimal"
-                          value={draft}
-                          onChange={(e) => setDraft(e.target.value)}
-                          onKeyDown={onEditorKeyDown}
-                          onBlur={() => {
-                            if (draft !== null) commit();
-                          }}
-                          className="w-full rounded border border-race-700 bg-white px-1 text-right"
-                        />
-                      ) : (
-                        <>
-                          {error ? <span aria-hidden="true">✕ </span> : changed ? <span aria-hidden="true">• </span> : null}
-                          {orders > 1 ? (
-                            <span aria-hidden="true" className="mr-1 text-xs text-ink-soft">
-                              {orders}×
-                            </span>
-                          ) : null}
-                          {qty === 0 && !changed ? '·' : formatNumber(qty)}
-                        </>
-                      )}
-                    </td>
-                  );
-                })}
-              </tr>
+                line={line}
+                index={r}
+                weeks={weeks}
+                weekNames={weekNames}
+                pending={pending}
+                cellErrors={cellErrors}
+                readOnly={readOnly}
+                activeCol={isActiveRow ? col : -1}
+                editor={
+                  isActiveRow && draft !== null
+                    ? { draft, onChange: setDraft, onKeyDown: onEditorKeyDown, onBlur: () => void commit() }
+                    : undefined
+                }
+              />
             );
           })}
           {paddingBottom > 0 ? (
@@ -342,7 +406,7 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
                 {kindLabel[kind]}
               </th>
               {weeks.map((w, c) => (
-                <td key={w} role="gridcell" aria-label={`${kindLabel[kind]} total, ${formatWeekLong(w)}: ${formatNumber(totals[kind][c])}`} className="px-2 py-1.5 text-right tabular-nums">
+                <td key={w} role="gridcell" aria-label={`${kindLabel[kind]} total, ${weekNames[c]}: ${formatNumber(totals[kind][c])}`} className="px-2 py-1.5 text-right tabular-nums">
                   {formatNumber(totals[kind][c])}
                 </td>
               ))}
