@@ -13,6 +13,10 @@ export const plantSettingsDefaults = {
   overtimePremium: 1.5,
 } as const;
 
+/** The line to show beside working-time limits and overtime figures (DOMAIN.md §5). */
+export const workingTimeCaution =
+  'Working-time defaults follow the EU Working Time Directive 2003/88/EC (at most 48 hours a week on average, at least 11 hours daily rest) and the US Fair Labor Standards Act overtime premium of 1.5×. Local labour law, collective agreements and licensed practice take precedence; Millrace gives no legal advice.';
+
 const fields = {
   plantName: z.string().trim().min(1, 'Enter the plant name.').max(120, 'Use at most 120 characters.'),
   currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, 'Use a three-letter currency code such as EUR.'),
