@@ -9,6 +9,7 @@
 #   mr_db_init BASE                      create the data directory once (keeps an existing one)
 #   mr_db_start BASE PORT PIDFILE [mariadbd options...]
 #                                        start mariadbd on 127.0.0.1:PORT and wait until it answers
+#   mr_db_secure BASE                    drop the password-less root accounts reachable over TCP
 #   mr_db_sql BASE SQL                   run SQL as the instance's root (socket only, no password)
 #   mr_db_stop BASE PIDFILE              SIGTERM by PID, wait until it has exited
 
@@ -86,6 +87,7 @@ mr_db_start() {
   for ((i = 0; i < 600; i++)); do
     if mariadb-admin --no-defaults --socket="$sock" -uroot --connect-timeout=1 ping >/dev/null 2>&1; then
       echo "[millrace] MariaDB is up on 127.0.0.1:$port (pid $pid)"
+      mr_db_secure "$base" || echo "[millrace] warning: could not drop MariaDB's password-less TCP root accounts" >&2
       return 0
     fi
     if ! mr_pid_running "$pid"; then
@@ -100,6 +102,18 @@ mr_db_start() {
   echo "[millrace] error: MariaDB did not answer within 60 s; see $run/mysqld.err" >&2
   mr_db_stop "$base" "$pidfile"
   return 1
+}
+
+# mariadb-install-db also creates root@127.0.0.1, root@::1 and root@<hostname> without a password,
+# reachable over TCP by any local program. Drop them: root stays reachable only through the
+# socket, which lives in a directory only our user may enter.
+mr_db_secure() {
+  local base="$1" host
+  while IFS= read -r host; do
+    [ -n "$host" ] || continue
+    mr_db_sql "$base" "DROP USER IF EXISTS 'root'@'${host//\'/}';" || return 1
+  done < <(mr_db_sql "$base" "SELECT host FROM mysql.user WHERE user = 'root' AND host <> 'localhost';")
+  mr_db_sql "$base" "DROP USER IF EXISTS ''@'localhost';"
 }
 
 mr_db_sql() {
