@@ -1,0 +1,98 @@
+/**
+ * Shift sheets: per work center, day and shift, the ordered jobs to run (issue 8). Times are
+ * plant-local wall-clock times "YYYY-MM-DDTHH:MM"; `*Minute` fields count minutes from the start
+ * of the plan week (its first day 00:00) for arithmetic and tests.
+ */
+export interface ShiftSheetJob {
+  /** position in the shift's run order, 1-based */
+  sequence: number;
+  product: string;
+  productName: string;
+  family: string | null;
+  /** routing step (operation) number */
+  operation: number;
+  quantity: number;
+  unit: string;
+  /** setup or changeover starts here (equals start when there is none) */
+  setupStart: string;
+  start: string;
+  end: string;
+  setupStartMinute: number;
+  startMinute: number;
+  endMinute: number;
+  setupMinutes: number;
+  /** part of the job runs in overtime added to the shift */
+  overtime: boolean;
+  /** this job continues a job begun in an earlier shift (no new setup) */
+  continued: boolean;
+  /** earliest week with firm orders this production serves, null if none */
+  dueWeek: number | null;
+  orderRefs: string[];
+  previousWorkCenter: string | null;
+  nextWorkCenter: string | null;
+}
+
+export interface ShiftSheet {
+  workCenter: string;
+  workCenterName: string;
+  week: number;
+  /** ISO date of the day the shift starts */
+  date: string;
+  weekday: string;
+  /** 1-based shift number of the day */
+  shift: number;
+  shiftStart: string;
+  shiftEnd: string;
+  /** end of overtime added to this shift, null without overtime */
+  overtimeEnd: string | null;
+  shiftStartMinute: number;
+  shiftEndMinute: number;
+  overtimeEndMinute: number | null;
+  availableMinutes: number;
+  overtimeMinutes: number;
+  /** setup + run minutes planned in this shift (overtime included) */
+  plannedMinutes: number;
+  jobs: ShiftSheetJob[];
+}
+
+/** work the week's open time could not hold (the weekly plan leaves setups to the floor) */
+export interface UnscheduledWork {
+  workCenter: string;
+  week: number;
+  product: string;
+  operation: number;
+  quantity: number;
+  hours: number;
+  reason: string;
+}
+
+export type WorkingTimeCautionKind = 'weekly_hours' | 'daily_rest' | 'night_run';
+
+export interface WorkingTimeCaution {
+  kind: WorkingTimeCautionKind;
+  workCenter: string;
+  week: number;
+  /** crew = the crew of this shift number */
+  shift: number;
+  limit: number;
+  actual: number;
+  message: string;
+  /** where the default limit comes from */
+  source: string;
+}
+
+export interface ShiftSheetSettings {
+  /** minutes between an operation's end and the next operation's start on another work center */
+  transferLagMinutes: number;
+  /** setup multiplier when the previous job on the work center is of the same family (1 = no saving) */
+  familySetupFactor: number;
+  /** consecutive night shifts that earn a fatigue caution */
+  nightRunDays: number;
+}
+
+export interface ShiftSheetResult {
+  sheets: ShiftSheet[];
+  unscheduled: UnscheduledWork[];
+  cautions: WorkingTimeCaution[];
+  settings: ShiftSheetSettings;
+}
