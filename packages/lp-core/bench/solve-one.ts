@@ -1,0 +1,74 @@
+/**
+ * Benchmark child process: builds one problem, solves it with one solver, reports time, iterations,
+ * objective and this process's peak memory over IPC, and exits. A tiny warm-up solve comes first. One process per solve, so the peak
+ * memory belongs to that solver alone (plus the problem and Node's own baseline, equal for all).
+ */
+import { readFileSync } from 'node:fs';
+import solver from 'javascript-lp-solver';
+import { fromLpSolverValues, toLpSolverModel } from '../src/adapters/lp-solver-model';
+import { solveWithHighs } from '../src/adapters/solve-with-highs';
+import { readMps } from '../src/mps/read-mps';
+import type { Problem } from '../src/problem/problem';
+import { solve } from '../src/solve';
+import type { BenchOutcome, BenchRequest } from './bench-case';
+import { PLANNING_SIZES, planningProblem } from './planning-lp';
+
+process.once('message', async (request: BenchRequest) => {
+  let outcome: BenchOutcome;
+  try {
+    outcome = await run(request);
+  } catch (error) {
+    outcome = { ...empty(), status: 'failed', message: error instanceof Error ? error.message : String(error) };
+  }
+  outcome.maxRssKb = process.resourceUsage().maxRSS;
+  process.send!(outcome, () => process.exit(0));
+});
+
+function empty(): BenchOutcome {
+  return { status: 'failed', objective: null, iterations: null, seconds: null, maxRssKb: null, rows: null, cols: null, nonzeros: null };
+}
+
+function buildProblem(request: BenchRequest): Problem {
+  const p = request.problem;
+  return p.kind === 'planning' ? planningProblem(PLANNING_SIZES[p.size], p.seed, `planning-${p.size}`) : readMps(readFileSync(p.file, 'utf8'));
+}
+
+/** A tiny LP solved once before timing, so that neither JIT nor WebAssembly start-up is timed. */
+async function warmUp(request: BenchRequest): Promise<void> {
+  const tiny = planningProblem({ products: 3, weeks: 2, workCenters: 1, materials: 2 }, 7, 'warm-up');
+  if (request.solver === 'lp-core') solve(tiny);
+  else if (request.solver === 'lp-solver') solver.Solve(toLpSolverModel(tiny).model);
+  else await solveWithHighs(tiny, { method: request.solver === 'highs-ipm' ? 'ipm' : 'simplex' });
+}
+
+async function run(request: BenchRequest): Promise<BenchOutcome> {
+  const problem = buildProblem(request);
+  await warmUp(request);
+  const dims = { rows: problem.A.m, cols: problem.A.n, nonzeros: problem.A.colPtr[problem.A.n] };
+  const limit = request.timeLimitSeconds;
+  const finite = (v: number) => (Number.isFinite(v) ? v : null);
+  switch (request.solver) {
+    case 'lp-core': {
+      const r = solve(problem, { timeLimitSeconds: limit });
+      return { ...dims, status: r.status, objective: finite(r.objective), iterations: r.iterations, seconds: r.seconds, maxRssKb: null, message: r.message };
+    }
+    case 'highs-simplex':
+    case 'highs-ipm': {
+      const method = request.solver === 'highs-ipm' ? 'ipm' : 'simplex';
+      // HiGHS's interior point without crossover, the closest match to lp-core's output
+      const r = await solveWithHighs(problem, { method, crossover: false, timeLimitSeconds: limit });
+      return { ...dims, status: r.status, objective: finite(r.objective), iterations: r.iterations, seconds: r.seconds, maxRssKb: null, message: r.message };
+    }
+    case 'lp-solver': {
+      const { model, shifts } = toLpSolverModel(problem);
+      const start = performance.now();
+      const raw = solver.Solve(model) as Record<string, number | boolean | undefined>;
+      const seconds = (performance.now() - start) / 1000;
+      fromLpSolverValues(raw, shifts);
+      const status = raw.feasible !== true ? 'infeasible' : raw.bounded === false ? 'unbounded' : 'optimal';
+      const minObjective = Number(raw.result) + shifts.constant + problem.c0;
+      const objective = status === 'optimal' ? (problem.maximise ? -minObjective : minObjective) : null;
+      return { ...dims, status, objective, iterations: null, seconds, maxRssKb: null };
+    }
+  }
+}
