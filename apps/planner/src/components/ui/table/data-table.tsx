@@ -5,11 +5,12 @@ import {
   getSortedRowModel,
   useReactTable,
   type ColumnDef,
+  type Row,
   type Updater,
   type RowData,
 } from '@tanstack/react-table';
 import { useVirtualizer } from '@tanstack/react-virtual';
-import { useId, useRef, type ReactNode } from 'react';
+import { memo, useId, useRef, type ReactNode } from 'react';
 import { useTableUrlState } from './use-table-url-state';
 
 declare module '@tanstack/react-table' {
@@ -30,6 +31,22 @@ const overscanRows = 12;
 function resolve<T>(updater: Updater<T>, current: T): T {
   return typeof updater === 'function' ? (updater as (old: T) => T)(current) : updater;
 }
+
+/**
+ * One body row, memoised so that scrolling draws only rows that come into view. `columnsKey`
+ * changes when columns are shown or hidden; new column definitions (e.g. with new actions) redraw too.
+ */
+const DataRow = memo(function DataRow<T>({ row, index }: { row: Row<T>; index: number; columnsKey: string; columns: unknown }) {
+  return (
+    <tr aria-rowindex={index + 2} className="border-b border-line/60 hover:bg-race-50" style={{ height: rowHeightPx }}>
+      {row.getVisibleCells().map((cell) => (
+        <td key={cell.id} className={`px-2 py-1.5 ${cell.column.columnDef.meta?.numeric ? 'text-right tabular-nums' : ''}`}>
+          {flexRender(cell.column.columnDef.cell, cell.getContext())}
+        </td>
+      ))}
+    </tr>
+  );
+}) as <T>(props: { row: Row<T>; index: number; columnsKey: string; columns: unknown }) => ReactNode;
 
 export type DataTableProps<T> = {
   /** Accessible name of the table (also its caption). */
@@ -84,7 +101,9 @@ export function DataTable<T>({ label, columns, data, empty, getRowId, maxHeightP
   const items = virtualizer.getVirtualItems();
   const paddingTop = items.length > 0 ? items[0].start : 0;
   const paddingBottom = items.length > 0 ? virtualizer.getTotalSize() - items[items.length - 1].end : 0;
-  const visibleColumnCount = table.getVisibleLeafColumns().length;
+  const visibleColumns = table.getVisibleLeafColumns();
+  const visibleColumnCount = visibleColumns.length;
+  const visibilityKey = visibleColumns.map((c) => c.id).join(',');
   const filterable = table.getAllLeafColumns().filter((c) => c.columnDef.meta?.filterOptions);
 
   if (data.length === 0) return <>{empty}</>;
@@ -185,18 +204,9 @@ export function DataTable<T>({ label, columns, data, empty, getRowId, maxHeightP
                 <td colSpan={visibleColumnCount} style={{ height: paddingTop, padding: 0 }} />
               </tr>
             ) : null}
-            {items.map((item) => {
-              const row = rows[item.index];
-              return (
-                <tr key={row.id} aria-rowindex={item.index + 2} className="border-b border-line/60 hover:bg-race-50" style={{ height: rowHeightPx }}>
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className={`px-2 py-1.5 ${cell.column.columnDef.meta?.numeric ? 'text-right tabular-nums' : ''}`}>
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
-                  ))}
-                </tr>
-              );
-            })}
+            {items.map((item) => (
+              <DataRow key={rows[item.index].id} row={rows[item.index]} index={item.index} columnsKey={visibilityKey} columns={columns} />
+            ))}
             {paddingBottom > 0 ? (
               <tr aria-hidden="true">
                 <td colSpan={visibleColumnCount} style={{ height: paddingBottom, padding: 0 }} />
