@@ -26,7 +26,12 @@ export interface ComputeHooks {
   shouldStop(): boolean;
 }
 
-export type ComputeOutcome = { kind: 'cancelled'; seconds: number } | { kind: 'finished'; record: Omit<SolveOutcomeRecord, 'crossCheck'> };
+/** Seconds spent per named stage of the computation (build, mps, solve, map, round, check, results). */
+export type StageTimings = Record<string, number>;
+
+export type ComputeOutcome =
+  | { kind: 'cancelled'; seconds: number }
+  | { kind: 'finished'; record: Omit<SolveOutcomeRecord, 'crossCheck'>; timings: StageTimings };
 
 /**
  * The whole solve of one plan version, as a story: build the LP from the snapshot, keep its exact
@@ -35,31 +40,37 @@ export type ComputeOutcome = { kind: 'cancelled'; seconds: number } | { kind: 'f
  * results. Pure computation (no database): it runs inside a worker thread.
  */
 export function computePlan(request: ComputeRequest, hooks: ComputeHooks): ComputeOutcome {
-  const built = buildModel(request.data, {
-    horizonWeeks: request.horizonWeeks,
-    smoothing: request.smoothing,
-    wholeUnits: request.wholeUnits,
-  });
+  const timings: StageTimings = {};
+  const stage = <T>(name: string, f: () => T): T => {
+    const start = performance.now();
+    const value = f();
+    timings[name] = (performance.now() - start) / 1000;
+    return value;
+  };
+  const built = stage('build', () =>
+    buildModel(request.data, { horizonWeeks: request.horizonWeeks, smoothing: request.smoothing, wholeUnits: request.wholeUnits }),
+  );
   const { problem } = built;
-  const mps = writeMps(problem);
+  const mps = stage('mps', () => writeMps(problem));
   const modelSize = { rows: problem.A.m, columns: problem.A.n, nonzeros: problem.A.colPtr[problem.A.n] };
 
-  const result = solve(problem, {
+  const result = stage('solve', () => solve(problem, {
     onIteration: (info) =>
       hooks.onProgress({ iteration: info.iteration, relativeGap: info.relativeGap, primalObjective: -info.primalObjective, elapsedSeconds: info.seconds }),
     shouldStop: hooks.shouldStop,
-  });
+  }));
   if (result.status === 'cancelled') return { kind: 'cancelled', seconds: result.seconds };
 
   const certificate = { ...result.certificate, iterations: result.iterations, seconds: result.seconds };
   const base = { certificate, modelSize, mps, checkViolations: [] as CheckViolation[], rounding: null, results: null, resultsHash: null };
-  const lpPlan = mapSolution(request.data, built, result);
+  const lpPlan = stage('map', () => mapSolution(request.data, built, result));
 
   if (result.status !== 'optimal') {
     const status = statusOf(result);
     const sentences = lpPlan.infeasibility;
     return {
       kind: 'finished',
+      timings,
       record: {
         ...base,
         solveStatus: status,
@@ -71,14 +82,18 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
   }
 
   const objective = -result.objective;
-  const rounded = request.wholeUnits ? roundPlan(request.data, lpPlan) : null;
+  const rounded = request.wholeUnits ? stage('round', () => roundPlan(request.data, lpPlan)) : null;
   const shown: Plan = rounded ? rounded.plan : lpPlan;
   const rounding = rounded ? roundingOf(rounded.report) : null;
-  const violations = checkPlan(request.data, shown).map((v) => ({ kind: v.kind, item: v.item, week: v.week, message: v.message }));
-  const results = planResultsFromPlan(request.planId, request.data, shown, materialCalls(request.data, request.horizonWeeks, shown.products));
+  const violations = stage('check', () => checkPlan(request.data, shown)).map((v) => ({ kind: v.kind, item: v.item, week: v.week, message: v.message }));
+  const results = stage('results', () =>
+    planResultsFromPlan(request.planId, request.data, shown, materialCalls(request.data, request.horizonWeeks, shown.products)),
+  );
   results.objective = objective;
+  const resultsHash = stage('hash', () => hashOf(results));
   return {
     kind: 'finished',
+    timings,
     record: {
       ...base,
       solveStatus: violations.length > 0 ? 'check_failed' : 'solved',
@@ -87,7 +102,7 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
       rounding,
       infeasibility: null,
       results,
-      resultsHash: hashOf(results),
+      resultsHash,
       message:
         violations.length > 0
           ? `The independent check found ${violations.length} violation(s) against the planning data; the plan is not valid.`

@@ -104,6 +104,9 @@ export class SolverJobRunner {
         return;
       }
       const record = outcome.record;
+      const stages = Object.entries(outcome.timings)
+        .map(([name, seconds]) => `${name} ${seconds.toFixed(2)} s`)
+        .join(', ');
       const checkable = record.solveStatus === 'solved' || record.solveStatus === 'check_failed';
       const crossCheck: CrossCheck | null =
         checkable && record.mps
@@ -119,7 +122,7 @@ export class SolverJobRunner {
           : null;
       await this.ds.transaction(async (db) => {
         await storeSolveOutcome(db, job.planId, { ...record, crossCheck });
-        await finishJob(db, job.id, 'finished', record.message);
+        await finishJob(db, job.id, 'finished', [record.message, `Stages: ${stages}.`].filter(Boolean).join(' '));
         await db.query('UPDATE solve_job SET elapsed_seconds = ?, iteration = ?, relative_gap = ? WHERE id = ?', [
           (performance.now() - started) / 1000,
           record.certificate?.iterations ?? 0,
