@@ -18,6 +18,7 @@ export const navItems: readonly NavItem[] = [
   { label: 'Scenarios', href: paths.scenarios.getHref(), roles: rolesWith('read:plans') },
   { label: 'People', href: paths.people.getHref(), roles: rolesWith('manage:people') },
   { label: 'Plant settings', href: paths.settings.getHref(), roles: rolesWith('read:settings') },
+  { label: 'Mail', href: paths.mail.getHref(), roles: rolesWith('read:outbox') },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

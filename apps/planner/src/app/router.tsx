@@ -73,6 +73,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
         page(paths.demand.path, rolesWith('read:demand'), 'Demand', () => import('./routes/app/demand')),
         page(paths.settings.path, rolesWith('read:settings'), 'Plant settings', () => import('./routes/app/settings')),
         page(paths.people.path, rolesWith('manage:people'), 'People', () => import('./routes/app/people')),
+        page(paths.mail.path, rolesWith('read:outbox'), 'Outgoing mail', () => import('./routes/app/mail')),
         page(paths.plans.path, rolesWith('read:plans'), 'Plan versions', () => import('./routes/app/plans')),
         page(paths.planNew.path, rolesWith('write:plans'), 'New plan version', () => import('./routes/app/plan-new')),
         page(paths.planCompare.path, rolesWith('read:plans'), 'Compare plan versions', () => import('./routes/app/plan-compare')),

@@ -20,6 +20,7 @@ export const paths = {
   demand: { path: '/demand', getHref: () => '/demand' },
   settings: { path: '/settings', getHref: () => '/settings' },
   people: { path: '/people', getHref: () => '/people' },
+  mail: { path: '/mail', getHref: () => '/mail' },
   plans: { path: '/plans', getHref: () => '/plans' },
   planNew: { path: '/plans/new', getHref: () => '/plans/new' },
   planCompare: {

@@ -10,6 +10,7 @@ export type Permission =
   | 'read:settings'
   | 'write:settings'
   | 'manage:people'
+  | 'read:outbox'
   | 'read:demand'
   | 'write:demand'
   | 'read:plans'
@@ -22,6 +23,7 @@ const policy: Record<Permission, readonly Role[]> = {
   'read:settings': ['admin', 'planner', 'supervisor'],
   'write:settings': ['admin', 'planner'],
   'manage:people': ['admin'],
+  'read:outbox': ['admin'],
   'read:demand': ['admin', 'planner', 'supervisor'],
   'write:demand': ['planner'],
   // Plans, scenarios and sign-off (apps/api/src/plans, scenarios, sign-off routers).

@@ -11,13 +11,13 @@ afterEach(() => vi.unstubAllGlobals());
 /**
  * What each role may open, from DESIGN.md "Who uses it" and API.md "Roles": planners keep master
  * data and demand; supervisors read them; floor leads get their home page only (shift sheets come
- * with plans); admins run people and plant settings and read the data.
+ * with plans); admins run people, plant settings and outgoing mail and read the data.
  */
 const expectedLinks: Record<Role, string[]> = {
   planner: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Scenarios', 'Plant settings'],
   supervisor: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Scenarios', 'Plant settings'],
   floor_lead: ['Home'],
-  admin: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Scenarios', 'People', 'Plant settings'],
+  admin: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Scenarios', 'People', 'Plant settings', 'Mail'],
 };
 
 describe('role-dependent navigation', () => {

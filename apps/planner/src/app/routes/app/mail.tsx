@@ -1,0 +1,5 @@
+import { MailPage } from '@/features/mail';
+
+export default function MailRoute() {
+  return <MailPage />;
+}
