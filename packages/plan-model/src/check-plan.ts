@@ -36,7 +36,7 @@ export interface PlanViolation {
 }
 
 export interface CheckOptions {
-  /** absolute tolerance, scaled by 1 + |size of the quantities compared| (default 1e-6) */
+  /** tolerance relative to 1 + the size of the quantities in each check (default 1e-6) */
   tolerance?: number;
 }
 
@@ -61,8 +61,9 @@ export function checkPlan(data: PlanningData, plan: Plan, options: CheckOptions 
         add('missing_line', p.code, t, 0, `product ${p.code} has no plan line for week ${t}`);
         continue;
       }
+      const size = Math.max(Math.abs(l.make), Math.abs(l.stock), Math.abs(l.late), Math.abs(l.ship), Math.abs(l.usedInParents));
       for (const f of ['make', 'stock', 'late', 'shipFirm', 'shipForecast'] as const)
-        if (l[f] < -tol) add('negative_quantity', p.code, t, l[f], `product ${p.code} week ${t}: ${f} is negative (${l[f]})`);
+        if (l[f] < -tol * (1 + size)) add('negative_quantity', p.code, t, l[f], `product ${p.code} week ${t}: ${f} is negative (${l[f]})`);
     }
   for (const w of data.workCenters)
     for (let t = 1; t <= T; t++) {
@@ -90,10 +91,10 @@ export function checkPlan(data: PlanningData, plan: Plan, options: CheckOptions 
       const used = parents.reduce((a, b) => a + componentUsePerUnit(b) * make(b.parent, t), 0);
       const lhs = l.stock - l.late;
       const rhs = stockPrev - latePrev + l.make - d.firm[t - 1] - l.shipForecast - used;
-      if (off(lhs - rhs, Math.max(Math.abs(l.make), d.firm[t - 1], used)))
+      if (off(lhs - rhs, Math.max(Math.abs(l.make), d.firm[t - 1], used, Math.abs(l.stock), l.late, stockPrev, latePrev)))
         add('product_balance', p.code, t, lhs - rhs, `product ${p.code} week ${t}: stock − backlog is ${lhs} but production, demand and use give ${rhs}`);
       const shipFirm = d.firm[t - 1] + latePrev - l.late;
-      if (off(l.shipFirm - shipFirm, d.firm[t - 1] + latePrev))
+      if (off(l.shipFirm - shipFirm, d.firm[t - 1] + latePrev + l.late))
         add('firm_shipment', p.code, t, l.shipFirm - shipFirm, `product ${p.code} week ${t}: firm shipment ${l.shipFirm} does not match orders and backlog (${shipFirm})`);
       if (l.shipForecast > d.forecast[t - 1] + tol * (1 + d.forecast[t - 1]))
         add('forecast_exceeded', p.code, t, l.shipForecast - d.forecast[t - 1], `product ${p.code} week ${t}: ships ${l.shipForecast} against a forecast of ${d.forecast[t - 1]}`);
@@ -136,10 +137,11 @@ export function checkPlan(data: PlanningData, plan: Plan, options: CheckOptions 
       const receipts = m.scheduledReceipts.filter((r) => r.week === t).reduce((a, r) => a + r.qty, 0);
       const release = t - m.leadTimeWeeks;
       const arriving = release >= 1 ? (ml.get(`${m.code}|${release}`)?.buy ?? 0) : 0;
+      const scale = Math.max(use, receipts, arriving, Math.abs(stock));
       stock = stock + receipts + arriving - use;
-      if (stock < -tol * (1 + use))
+      if (stock < -tol * (1 + scale))
         add('material_negative', m.code, t, stock, `material ${m.code} week ${t}: use ${use} exceeds what is on hand (short ${-stock})`);
-      if (off(l.stock - stock, Math.max(use, stock)))
+      if (off(l.stock - stock, Math.max(scale, Math.abs(stock))))
         add('material_balance', m.code, t, l.stock - stock, `material ${m.code} week ${t}: stock reported ${l.stock}, receipts, purchases and use give ${stock}`);
       const cap = supplyCap(m, t);
       if (cap !== null && l.buy > cap + tol * (1 + cap))

@@ -9,6 +9,7 @@ import { loadHoursPerUnit } from './routing-load';
 import { supplyCap } from './material-supply';
 import { planMargin } from './plan-margin';
 import { explainUnmetOrders } from './explain-unmet';
+import { materialCalls } from './material-calls';
 import { explainInfeasibility } from './explain-infeasibility';
 import { money, qty } from './format';
 import { snap, TOLERANCES } from './tolerances';
@@ -36,6 +37,7 @@ export function mapSolution(data: PlanningData, built: BuiltModel, result: Solve
     bottlenecks: [],
     productMarginals: [],
     unmetOrders: [],
+    materialCalls: [],
     infeasibility: [],
   };
   if (result.status === 'infeasible') return { ...empty, outcome: 'infeasible', infeasibility: explainInfeasibility(data, built, result.ray) };
@@ -65,6 +67,7 @@ export function mapSolution(data: PlanningData, built: BuiltModel, result: Solve
     bottlenecks: bottleneckValues(data, workCenters, materials),
     productMarginals: productMarginals(data, built, result, products),
     unmetOrders: explainUnmetOrders(data, T, lines),
+    materialCalls: materialCalls(data, T, products).calls,
   };
 }
 

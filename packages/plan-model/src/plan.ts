@@ -1,3 +1,5 @@
+import type { MaterialCall } from './material-calls';
+
 /**
  * A plan: what the solution of the planning model (or a rounded/edited version of it) says to
  * do, in plain JSON. Quantities per product and week, load per work center and week, material
@@ -142,6 +144,8 @@ export interface Plan {
   bottlenecks: BottleneckValue[];
   productMarginals: ProductMarginal[];
   unmetOrders: UnmetOrder[];
+  /** purchase suggestions from MRP on the plan's production (see material-calls.ts) */
+  materialCalls: MaterialCall[];
   /** sentences naming the conflicting requirements when the model is infeasible */
   infeasibility: string[];
 }

@@ -5,6 +5,7 @@ import { supplyCap } from './material-supply';
 import { PlanRecompute, type PlanDecisions } from './plan-recompute';
 import { planMargin } from './plan-margin';
 import { explainUnmetOrders } from './explain-unmet';
+import { materialCalls } from './material-calls';
 import { checkPlan, type PlanViolation } from './check-plan';
 
 /**
@@ -212,7 +213,7 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
   const lines = { products, workCenters, materials };
   const margin = planMargin(data, T, lines);
   // the smoothing term is a modelling device of the LP; the rounded plan reports its margin only
-  const plan: Plan = { ...lpPlan, margin, smoothingCost: 0, products, workCenters, materials, unmetOrders: explainUnmetOrders(data, T, lines) };
+  const plan: Plan = { ...lpPlan, margin, smoothingCost: 0, products, workCenters, materials, unmetOrders: explainUnmetOrders(data, T, lines), materialCalls: materialCalls(data, T, products).calls };
   const violations = checkPlan(data, plan);
   const lpMargin = lpPlan.margin.margin;
   const gap = lpMargin - margin.margin;

@@ -49,6 +49,8 @@ describe(`generated plants (solver: ${solverName})`, () => {
     it(`${label}: the independent checker passes on the mapped plan and the margin matches the objective`, async () => {
       const { data, plan, objective } = await solvedPlant(seed, size);
       expect(checkPlan(data, plan)).toEqual([]);
+      // the plan is plain JSON (kept with the plan version): nothing is lost in a round trip
+      expect(JSON.parse(JSON.stringify(plan))).toEqual(plan);
       // margin recomputed from the data and the plan's quantities = −objective (no smoothing)
       expect(relDiff(plan.margin.margin, -objective)).toBeLessThan(1e-6);
       // every firm order short in its week is listed with at least one cause in words

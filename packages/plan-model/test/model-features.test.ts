@@ -77,6 +77,7 @@ describe(`model features (solver: ${solverName})`, () => {
     expect(plan.margin.materialSpend).toBeCloseTo(250, 5);
     expect(checkPlan(data, plan)).toEqual([]);
     const calls = materialCalls(data, 3, plan.products).calls;
+    expect(plan.materialCalls).toEqual(calls);
     expect(calls).toEqual([{ material: 'OAK', releaseWeek: 2, receiptWeek: 3, qty: expect.closeTo(25, 5), pastDue: false, cost: expect.closeTo(250, 4) }]);
   });
 
