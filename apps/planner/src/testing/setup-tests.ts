@@ -1,5 +1,5 @@
 import '@testing-library/jest-dom/vitest';
-import { cleanup } from '@testing-library/react';
+import { cleanup, configure } from '@testing-library/react';
 import { afterEach } from 'vitest';
 
 /**
@@ -8,5 +8,11 @@ import { afterEach } from 'vitest';
  */
 Object.defineProperty(HTMLElement.prototype, 'clientHeight', { configurable: true, get: () => 600 });
 Object.defineProperty(HTMLElement.prototype, 'clientWidth', { configurable: true, get: () => 1024 });
+
+/**
+ * The first render of a route compiles its lazily loaded module; on a busy 2-core machine that
+ * can take longer than Testing Library's default 1 s wait.
+ */
+configure({ asyncUtilTimeout: 5000 });
 
 afterEach(() => cleanup());
