@@ -10,7 +10,7 @@ import { supplyCap } from './material-supply';
  * Rebuilds plan lines from decisions — how much of each product is made and how much forecast
  * is served each week, how much of each material is bought — by walking the balances forward:
  * the net position of a product (stock − backlog) moves by production − firm orders − use in
- * parents − forecast served; forecast is served only from stock on hand, never into backlog;
+ * parents − forecast served; forecast is served as decided, as far as goods are on hand;
  * overtime is what the load needs beyond regular time. Used by the rounding repair pass and by
  * edits of a plan; the checker verifies the result independently.
  */
@@ -63,9 +63,12 @@ export class PlanRecompute {
     for (let t = 1; t <= this.horizonWeeks; t++) {
       const m = make[t - 1] ?? 0;
       const used = this.usedInParents(product, t, d);
-      net += m - dem.firm[t - 1] - used;
-      const served = Math.max(0, Math.min(sell[t - 1] ?? 0, dem.forecast[t - 1], net));
-      net -= served;
+      // what is physically on hand this week after use in parents; forecast is served from it as
+      // the plan says (even while firm orders wait, as the LP may choose), but never from goods
+      // that must-ship orders need
+      const physical = Math.max(0, net) + m - used;
+      const served = Math.max(0, Math.min(sell[t - 1] ?? 0, dem.forecast[t - 1], physical - dem.mustShip[t - 1]));
+      net += m - dem.firm[t - 1] - used - served;
       const stock = Math.max(0, net);
       const late = Math.max(0, -net);
       out.push({

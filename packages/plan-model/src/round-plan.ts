@@ -165,8 +165,12 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
     const candidates: { product: string; week: number; loss: number }[] = [];
     for (const p of data.products) {
       const lines = rc.productLines(p.code, d);
-      const lpLate = lpPlan.products.filter((l) => l.product === p.code);
-      const lastShort = Math.max(0, ...lines.filter((l) => l.late > (lpLate[l.week - 1]?.late ?? 0) + EPS).map((l) => l.week));
+      const lpLines = lpPlan.products.filter((l) => l.product === p.code);
+      const worse = (l: ProductWeekLine) => {
+        const o = lpLines[l.week - 1];
+        return o !== undefined && (l.late > o.late + EPS || l.shipForecast < Math.floor(o.shipForecast + 1e-6) - EPS);
+      };
+      const lastShort = Math.max(0, ...lines.filter(worse).map((l) => l.week));
       for (let t = 1; t <= T; t++) {
         const loss = lpMake.get(p.code)![t - 1] - d.make.get(p.code)![t - 1];
         if (loss > EPS || t <= lastShort) candidates.push({ product: p.code, week: t, loss });
