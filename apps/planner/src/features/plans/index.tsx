@@ -41,6 +41,9 @@ export function PlansListPage({ canCreate }: { canCreate: boolean }) {
         description="Each version is one solved plan over a horizon, taken through sign-off."
         actions={
           <>
+            <Link className={linkSecondaryClass} to={paths.scenarios.getHref()}>
+              Scenarios
+            </Link>
             <Link className={linkSecondaryClass} to={paths.planCompare.getHref()}>
               Compare two versions
             </Link>
@@ -135,13 +138,13 @@ export function PlanPage({ planId, role }: { planId: number; role: Role }) {
               </h2>
               {canSolve(p.state, role) ? (
                 <Button variant="primary" busy={solve.isPending} busyLabel="Starting…" disabled={running} onClick={() => solve.mutate(p.id)}>
-                  {p.solveStatus === 'not_solved' ? 'Solve' : 'Solve again'}
+                  {running ? 'Solving…' : p.solveStatus === 'not_solved' || p.solveStatus === 'cancelled' ? 'Solve' : 'Solve again'}
                 </Button>
               ) : null}
             </div>
             {solve.isError ? <ErrorState error={solve.error} title="The solve did not start" /> : null}
             {runId !== null ? <RunProgressPanel key={runId} planId={p.id} runId={runId} canCancel={role === 'planner'} /> : null}
-            <SolveOutcome plan={p} />
+            {running ? null : <SolveOutcome plan={p} />}
           </section>
           <SignOffActions plan={p} role={role} />
           <section aria-labelledby="audit-heading" className="flex flex-col gap-2">

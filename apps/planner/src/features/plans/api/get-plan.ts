@@ -8,4 +8,15 @@ export const getPlan = (id: number): Promise<PlanDetail> => api.get<PlanDetail>(
 
 export const planQueryOptions = (id: number) => queryOptions({ queryKey: [...plansKey, 'detail', id], queryFn: () => getPlan(id) });
 
-export const usePlan = (id: number) => useQuery(planQueryOptions(id));
+/** How often an open plan is read again while its solve or cross-check is still going (common practice, no source). */
+export const planPollIntervalMs = 2000;
+
+/** True while something about the plan will still change by itself. */
+export function isPlanSettling(plan: PlanDetail | undefined): boolean {
+  if (!plan) return false;
+  return plan.solveStatus === 'queued' || plan.solveStatus === 'solving' || plan.certificate?.crossCheck?.status === 'running';
+}
+
+/** The plan, read again while its solve or cross-check runs so the page follows it. */
+export const usePlan = (id: number) =>
+  useQuery({ ...planQueryOptions(id), refetchInterval: (query) => (isPlanSettling(query.state.data) ? planPollIntervalMs : false) });

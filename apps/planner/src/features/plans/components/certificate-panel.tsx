@@ -55,7 +55,7 @@ export function CertificatePanel({ certificate, currency }: { certificate: Certi
             <dt>Second solver</dt>
             <dd>{solverNames[check.solver]}</dd>
             <dt>Its margin</dt>
-            <dd>{check.objective === null ? 'not reached' : `${formatNumber(check.objective)} ${currency}`}</dd>
+            <dd>{check.objective === null ? (check.status === 'running' ? 'not yet' : 'not reached') : `${formatNumber(check.objective)} ${currency}`}</dd>
             <dt>Plan's margin</dt>
             <dd>{check.planObjective === null ? '—' : `${formatNumber(check.planObjective)} ${currency}`}</dd>
             <dt>Relative difference</dt>

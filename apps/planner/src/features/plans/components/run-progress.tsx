@@ -95,7 +95,6 @@ export function RunProgressPanel({ planId, runId, canCancel }: { planId: number;
       </div>
       <p className="text-sm tabular-nums" aria-live="polite">
         {describe(r)}
-        {r.primalObjective !== null ? ` · objective ${formatNumber(r.primalObjective)}` : ''}
       </p>
       {r.message ? <p className="text-sm text-ink-soft">{r.message}</p> : null}
       {cancel.isError ? <ErrorState error={cancel.error} /> : null}

@@ -7,7 +7,9 @@ import { ChartFrame, ChartTable } from './chart-frame';
 
 /** Bottleneck values of work centers, week by week: the value of one more hour. */
 export function BottleneckChart({ bottlenecks, currency }: { bottlenecks: Bottleneck[]; currency: string }) {
-  const binding = bottlenecks.filter((b) => b.kind === 'capacity' && bindingWeeks(b).length > 0);
+  const peak = (b: Bottleneck) => Math.max(...bindingWeeks(b).map((w) => w.value));
+  // Strongest first, so it gets the first colour and the first place in the legend.
+  const binding = bottlenecks.filter((b) => b.kind === 'capacity' && bindingWeeks(b).length > 0).sort((x, y) => peak(y) - peak(x));
   if (binding.length === 0) {
     return <EmptyState title="No work center is fully used">The value of one more hour is zero everywhere in this plan.</EmptyState>;
   }
