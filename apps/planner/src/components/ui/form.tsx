@@ -100,7 +100,9 @@ export function Form<S extends z.ZodType<FieldValues, FieldValues>>({
       else form.reset(form.getValues());
       setOutcome({ kind: 'saved', message: savedMessage });
     } catch (error) {
-      if (isApiError(error) && error.status === 409) {
+      // 409 is either "someone else saved first" (optimistic lock) or a clash of a value on screen
+      // with another record (a code already used), which carries the field's path.
+      if (isApiError(error) && error.status === 409 && !error.fields.some((f) => registry.has(f.path))) {
         setOutcome({ kind: 'conflict', message: error.message });
         return;
       }

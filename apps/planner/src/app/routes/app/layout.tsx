@@ -33,17 +33,17 @@ export default function AppLayout() {
         Skip to content
       </a>
       <header className="border-b border-line bg-race-800 text-white">
-        <div className="mx-auto flex max-w-screen-2xl items-center gap-6 px-4 py-2">
+        <div className="mx-auto flex max-w-screen-2xl items-center gap-4 px-3 py-2">
           <span className="text-lg font-semibold tracking-wide">Millrace</span>
           <nav aria-label="Main" className="flex-1">
-            <ul className="flex flex-wrap gap-1">
+            <ul className="flex flex-wrap gap-0.5 text-sm">
               {navItemsFor(role).map((item) => (
                 <li key={item.href}>
                   <NavLink
                     to={item.href}
                     end={item.href === paths.home.getHref()}
                     className={({ isActive }) =>
-                      `block rounded px-2 py-1 ${isActive ? 'bg-white font-semibold text-race-800 underline decoration-2 underline-offset-4' : 'hover:bg-race-700'}`
+                      `block rounded px-1.5 py-1 ${isActive ? 'bg-white font-semibold text-race-800 underline decoration-2 underline-offset-4' : 'hover:bg-race-700'}`
                     }
                   >
                     {item.label}

@@ -51,6 +51,24 @@ describe('product editor (master-data form)', () => {
     expect(sent).toMatchObject({ code: 'T-2', name: 'Test table', version: 4 });
   });
 
+  it('when the code clashes with another product (409 with the field), then the message is on Code, not a reload banner', async () => {
+    mockApi({
+      'GET /api/me': () => json(people.planner),
+      'GET /api/products/7': () => json(product),
+      'PATCH /api/products/7': () =>
+        apiError(409, 'conflict', 'Another product already has the code C-1.', { fields: [{ path: 'code', message: 'The code C-1 is already used.' }] }),
+    });
+    renderApp('/products/7');
+    const user = userEvent.setup();
+    const code = await screen.findByRole('textbox', { name: 'Code' });
+    await user.clear(code);
+    await user.type(code, 'C-1');
+    await user.click(screen.getByRole('button', { name: 'Save product' }));
+    await waitFor(() => expect(code).toHaveAccessibleDescription(/The code C-1 is already used\./));
+    expect(screen.getByRole('alert')).toHaveTextContent('Not saved');
+    expect(screen.queryByRole('button', { name: 'Reload their version' })).not.toBeInTheDocument();
+  });
+
   it('when a server error names no field on screen, then it is listed in the banner by its path', async () => {
     mockApi({
       'GET /api/me': () => json(people.planner),

@@ -121,7 +121,7 @@ export function CalendarEditor({
     >
       <p className="text-sm text-ink-soft">
         A normal week has {p.shiftsPerDay} shift{p.shiftsPerDay === 1 ? '' : 's'} × {p.hoursPerShift} h × {p.daysPerWeek} days ={' '}
-        {formatHours(p.shiftsPerDay * p.hoursPerShift * p.daysPerWeek)} of clock time. Weeks start on {weekStart}; today is in the{' '}
+        {formatHours(p.shiftsPerDay * p.hoursPerShift * p.daysPerWeek)} of clock time. Weeks start on {weekStart[0].toUpperCase() + weekStart.slice(1)}; today is in the{' '}
         {formatWeekLong(weekStartOf(todayIso(), weekStart))}.
       </p>
       <CalendarWeeks readOnly={readOnly} weekStart={weekStart} />
