@@ -13,12 +13,13 @@ import { SolveJobEntity } from './entities/solve-job.entity';
 import { PlanAuditEntity } from './entities/plan-audit.entity';
 import { OutboxMessageEntity } from './entities/outbox-message.entity';
 import { PlansAndSignOff1764720000000 } from './migrations/1764720000000-plans-and-sign-off';
+import { PlanVersionPlan1764723600000 } from './migrations/1764723600000-plan-version-plan';
 
 /** Every entity (EntitySchema objects, no decorators). Areas append theirs here. */
 export const entities: EntitySchema<any>[] = [PersonEntity, SessionEntity, SignInAttemptEntity, PlanVersionEntity, ScenarioEntity, SolveJobEntity, PlanAuditEntity, OutboxMessageEntity, ...masterDataEntities];
 
 /** Every migration, in order. Areas append theirs here (timestamps keep the order). */
-export const migrations: MixedList<Function> = [PeopleAndSessions1764633600000, MasterData1764637200000, PlansAndSignOff1764720000000];
+export const migrations: MixedList<Function> = [PeopleAndSessions1764633600000, MasterData1764637200000, PlansAndSignOff1764720000000, PlanVersionPlan1764723600000];
 
 /** How long a query may wait for a free pooled connection or a new connection (ms). */
 const connectTimeoutMs = 5_000;

@@ -11,7 +11,7 @@ import type {
   Rounding,
   SolveStatus,
 } from '@millrace/contracts';
-import type { PlanningData } from '@millrace/plan-model';
+import type { Plan, PlanningData } from '@millrace/plan-model';
 
 /** Columns of a plan version without the large documents (inputs, results, MPS). */
 const summaryColumns = `
@@ -144,6 +144,12 @@ export async function loadPlanResults(db: EntityManager, id: number): Promise<Pl
   return rows[0] ? parse<PlanResults>(rows[0].results) : null;
 }
 
+/** plan-model's Plan the version shows (for shift sheets and comparisons); null before a valid solve. */
+export async function loadPlanModelPlan(db: EntityManager, id: number): Promise<Plan | null> {
+  const rows: { plan: string | null }[] = await db.query('SELECT plan FROM plan_version WHERE id = ?', [id]);
+  return rows[0] ? parse<Plan>(rows[0].plan) : null;
+}
+
 export async function loadPlanMps(db: EntityManager, id: number): Promise<string | null> {
   const rows: { mps: string | null }[] = await db.query('SELECT mps FROM plan_version WHERE id = ?', [id]);
   return rows[0]?.mps ?? null;
@@ -212,7 +218,7 @@ export async function setPlanState(db: EntityManager, id: number, state: PlanSta
 export async function markPlanQueued(db: EntityManager, id: number, runId: number): Promise<void> {
   await db.query(
     `UPDATE plan_version SET solve_status = 'queued', latest_run_id = ?, objective = NULL, certificate = NULL, cross_check = NULL,
-       results = NULL, results_hash = NULL, check_violations = NULL, rounding = NULL, infeasibility = NULL, solve_message = NULL,
+       results = NULL, results_hash = NULL, plan = NULL, check_violations = NULL, rounding = NULL, infeasibility = NULL, solve_message = NULL,
        model_rows = NULL, model_columns = NULL, model_nonzeros = NULL, mps = NULL, version = version + 1, updated_at = ?
      WHERE id = ?`,
     [runId, new Date(), id],
@@ -230,6 +236,8 @@ export interface SolveOutcomeRecord {
   certificate: Omit<Certificate, 'crossCheck'> | null;
   results: PlanResults | null;
   resultsHash: string | null;
+  /** plan-model's Plan shown (rounded when asked) */
+  plan: Plan | null;
   checkViolations: CheckViolation[];
   rounding: Rounding | null;
   infeasibility: Infeasibility | null;
@@ -242,7 +250,7 @@ export interface SolveOutcomeRecord {
 export async function storeSolveOutcome(db: EntityManager, id: number, o: SolveOutcomeRecord): Promise<void> {
   const json = (v: unknown) => (v === null ? null : JSON.stringify(v));
   await db.query(
-    `UPDATE plan_version SET solve_status = ?, objective = ?, certificate = ?, results = ?, results_hash = ?, check_violations = ?,
+    `UPDATE plan_version SET solve_status = ?, objective = ?, certificate = ?, results = ?, results_hash = ?, plan = ?, check_violations = ?,
        rounding = ?, infeasibility = ?, solve_message = ?, model_rows = ?, model_columns = ?, model_nonzeros = ?, mps = ?, cross_check = ?,
        version = version + 1, updated_at = ?
      WHERE id = ?`,
@@ -252,6 +260,7 @@ export async function storeSolveOutcome(db: EntityManager, id: number, o: SolveO
       json(o.certificate),
       json(o.results),
       o.resultsHash,
+      json(o.plan),
       JSON.stringify(o.checkViolations),
       json(o.rounding),
       json(o.infeasibility),

@@ -58,3 +58,12 @@ export async function lastApprovedPlanId(db: EntityManager, exceptId: number): P
   );
   return rows[0]?.plan_id ?? null;
 }
+
+/** Who approved a plan version and when (the latest approval), for shift-sheet headers; null if never approved. */
+export async function findApproval(db: EntityManager, planId: number): Promise<{ by: string; at: string } | null> {
+  const rows: { actor_name: string; at: Date }[] = await db.query(
+    `SELECT actor_name, at FROM plan_audit WHERE plan_id = ? AND action = 'approve' ORDER BY id DESC LIMIT 1`,
+    [planId],
+  );
+  return rows[0] ? { by: rows[0].actor_name, at: rows[0].at.toISOString() } : null;
+}

@@ -62,7 +62,7 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
   if (result.status === 'cancelled') return { kind: 'cancelled', seconds: result.seconds };
 
   const certificate = { ...result.certificate, iterations: result.iterations, seconds: result.seconds };
-  const base = { certificate, modelSize, mps, checkViolations: [] as CheckViolation[], rounding: null, results: null, resultsHash: null };
+  const base = { certificate, modelSize, mps, checkViolations: [] as CheckViolation[], rounding: null, results: null, resultsHash: null, plan: null };
   const lpPlan = stage('map', () => mapSolution(request.data, built, result));
 
   if (result.status !== 'optimal') {
@@ -103,6 +103,7 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
       infeasibility: null,
       results,
       resultsHash,
+      plan: shown,
       message:
         violations.length > 0
           ? `The independent check found ${violations.length} violation(s) against the planning data; the plan is not valid.`

@@ -119,6 +119,14 @@ describe('plan versions', () => {
     expect(tbl.map((l) => l.demand)).toEqual([15, 20, 25, 20]);
   });
 
+  it('when a plan is solved, then the plan-model plan it shows is stored with it (for shift sheets)', async () => {
+    const { loadPlanModelPlan } = await import('../../src/plans/plans.repository');
+    const stored = await loadPlanModelPlan(ctx.dataSource.manager, planId);
+    const results = planResultsSchema.parse((await planner.get(`/api/plans/${planId}/results`)).body);
+    expect(stored?.outcome).toBe('optimal');
+    expect(stored!.products.map((l) => [l.product, l.week, l.make])).toEqual(results.lines.map((l) => [l.product, l.week, l.make]));
+  });
+
   it('when lines.csv is read, then it is a CSV attachment with one row per product and week', async () => {
     const res = await planner.get(`/api/plans/${planId}/lines.csv`);
     expect(res.status).toBe(200);

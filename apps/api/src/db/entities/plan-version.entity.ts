@@ -28,6 +28,8 @@ export interface PlanVersionRow {
   crossCheck: string | null;
   results: string | null;
   resultsHash: string | null;
+  /** plan-model's Plan shown (JSON) */
+  plan: string | null;
   checkViolations: string | null;
   rounding: string | null;
   infeasibility: string | null;
@@ -68,6 +70,7 @@ export const PlanVersionEntity = new EntitySchema<PlanVersionRow>({
     crossCheck: { name: 'cross_check', type: 'longtext', nullable: true },
     results: { type: 'longtext', nullable: true },
     resultsHash: { name: 'results_hash', type: 'char', length: 64, nullable: true },
+    plan: { type: 'longtext', nullable: true },
     checkViolations: { name: 'check_violations', type: 'longtext', nullable: true },
     rounding: { type: 'longtext', nullable: true },
     infeasibility: { type: 'longtext', nullable: true },
