@@ -326,9 +326,13 @@ export const planComparisonSchema = z.object({
   a: planSummarySchema,
   b: planSummarySchema,
   margin: pair,
-  overtimeHours: pair,
-  overtimeCost: pair,
+  revenue: pair,
   materialSpend: pair,
+  overtimeCost: pair,
+  overtimeHours: pair,
+  holdingCost: pair,
+  latePenalties: pair,
+  unmetOrderCount: pair,
   unmetQty: pair,
   loadByWorkCenter: z.array(
     z.object({
@@ -337,8 +341,24 @@ export const planComparisonSchema = z.object({
       loadHours: pair,
       overtimeHours: pair,
       peakPercent: z.object({ a: z.number().nullable(), b: z.number().nullable() }),
+      bindingWeeks: z.object({ a: z.array(z.number().int()), b: z.array(z.number().int()) }),
     }),
   ),
+  /** every firm order short in either plan, with its shortfall in each */
+  unmetOrders: z.array(z.object({ orderRef: z.string(), product: z.string(), week: z.number().int(), shortA: z.number(), shortB: z.number() })),
   unmet: z.object({ a: z.array(unmetOrderSchema), b: z.array(unmetOrderSchema) }),
+  /** product-weeks whose make, ship or late differ */
+  quantityDifferences: z.array(
+    z.object({
+      product: z.string(),
+      week: z.number().int(),
+      makeA: z.number(),
+      makeB: z.number(),
+      shipA: z.number(),
+      shipB: z.number(),
+      lateA: z.number(),
+      lateB: z.number(),
+    }),
+  ),
 });
 export type PlanComparison = z.infer<typeof planComparisonSchema>;

@@ -148,6 +148,9 @@ describe('comparing two plan versions', () => {
     expect(asm.overtimeHours.b).toBeCloseTo(sum(rb, 'overtimeHours'), 9);
     expect(cmp.unmet.a).toEqual(ra.unmet);
     expect(cmp.unmet.b).toEqual(rb.unmet);
+    expect(cmp.unmetQty).toEqual({ a: ra.totals.unmetQty, b: rb.totals.unmetQty, delta: rb.totals.unmetQty - ra.totals.unmetQty });
+    // The changed order shows among the differing quantities: table production differs somewhere.
+    expect(cmp.quantityDifferences.some((d) => d.product === 'TBL')).toBe(true);
     // More table demand in week 3 cannot lower the work booked on the assembly bench here.
     expect(asm.loadHours.b).toBeGreaterThanOrEqual(asm.loadHours.a - 1e-6);
   });
