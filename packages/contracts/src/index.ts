@@ -18,3 +18,5 @@ export * from './work-centers';
 export * from './materials';
 export * from './demand';
 export * from './home';
+export * from './imports';
+export * from './invitations';

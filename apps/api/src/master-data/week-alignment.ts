@@ -15,11 +15,15 @@ export async function plantWeekStart(db: EntityManager): Promise<Weekday> {
  */
 export async function assertWeekStarts(db: EntityManager, dates: Array<{ path: string; date: string }>): Promise<void> {
   if (dates.length === 0) return;
-  const weekStart = await plantWeekStart(db);
-  const fields: FieldError[] = dates
-    .filter((d) => weekdayOf(d.date) !== weekStart)
-    .map((d) => ({ path: d.path, message: `${d.date} is a ${weekdayOf(d.date)}; weeks start on ${weekStart}.` }));
+  const fields = weekStartErrors(await plantWeekStart(db), dates);
   if (fields.length > 0) {
     throw AppError.validation(fields.length === 1 ? 'One week does not start on the plant week start.' : `${fields.length} weeks do not start on the plant week start.`, fields);
   }
+}
+
+/** The dates that do not fall on the plant's week start day, each with the message to show. */
+export function weekStartErrors(weekStart: Weekday, dates: Array<{ path: string; date: string }>): FieldError[] {
+  return dates
+    .filter((d) => weekdayOf(d.date) !== weekStart)
+    .map((d) => ({ path: d.path, message: `${d.date} is a ${weekdayOf(d.date)}; weeks start on ${weekStart}.` }));
 }

@@ -77,3 +77,31 @@ export async function listProductEdges(db: EntityManager): Promise<Array<{ paren
 export async function lockBomStructure(db: EntityManager): Promise<void> {
   await db.query('SELECT id FROM plant_settings WHERE id = 1 FOR UPDATE');
 }
+
+/** Every BOM line of every parent, with codes and units, in parent code and saved order (exports, imports). */
+export async function listAllBomLines(db: EntityManager): Promise<Array<BomLine & { parentProductId: number; parentCode: string }>> {
+  const rows = (await db.query(
+    `SELECT b.id, b.parent_product_id, pp.code AS parent_code, b.position, b.component_product_id, cp.code AS cp_code, cp.name AS cp_name, cp.unit AS cp_unit,
+            b.material_id, m.code AS m_code, m.name AS m_name, m.unit AS m_unit, b.qty_per, b.scrap_pct
+       FROM bom_line b
+       JOIN product pp ON pp.id = b.parent_product_id
+       LEFT JOIN product cp ON cp.id = b.component_product_id
+       LEFT JOIN material m ON m.id = b.material_id
+      ORDER BY pp.code, b.position, b.id`,
+  )) as Array<BomLineJoined & { parent_product_id: number; parent_code: string }>;
+  return rows.map((r) => ({
+    id: r.id,
+    parentProductId: r.parent_product_id,
+    parentCode: r.parent_code,
+    position: r.position,
+    componentProductId: r.component_product_id,
+    componentProductCode: r.cp_code,
+    componentProductName: r.cp_name,
+    materialId: r.material_id,
+    materialCode: r.m_code,
+    materialName: r.m_name,
+    unit: r.cp_unit ?? r.m_unit ?? '',
+    qtyPer: Number(r.qty_per),
+    scrapPct: Number(r.scrap_pct),
+  }));
+}

@@ -28,3 +28,23 @@ export async function replaceRoutingSteps(db: EntityManager, productId: number, 
   if (steps.length === 0) return;
   await repo.insert(steps.map((s) => ({ productId, sequence: s.sequence, workCenterId: s.workCenterId, hoursPerUnit: s.hoursPerUnit, setupHours: s.setupHours })));
 }
+
+/** Every routing step of every product, in product code and sequence order (exports, imports). */
+export async function listAllRoutingSteps(db: EntityManager): Promise<Array<RoutingStep & { productId: number; productCode: string }>> {
+  const rows = (await db.query(
+    `SELECT r.id, r.product_id, p.code AS product_code, r.sequence, r.work_center_id, w.code, w.name, r.hours_per_unit, r.setup_hours
+       FROM routing_step r JOIN work_center w ON w.id = r.work_center_id JOIN product p ON p.id = r.product_id
+      ORDER BY p.code, r.sequence`,
+  )) as Array<{ id: number; product_id: number; product_code: string; sequence: number; work_center_id: number; code: string; name: string; hours_per_unit: string; setup_hours: string }>;
+  return rows.map((r) => ({
+    id: r.id,
+    productId: r.product_id,
+    productCode: r.product_code,
+    sequence: r.sequence,
+    workCenterId: r.work_center_id,
+    workCenterCode: r.code,
+    workCenterName: r.name,
+    hoursPerUnit: Number(r.hours_per_unit),
+    setupHours: Number(r.setup_hours),
+  }));
+}
