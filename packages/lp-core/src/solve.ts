@@ -15,6 +15,11 @@ import { interiorPointMethod, type IpmOutcome } from './ipm/interior-point-metho
 import { elasticProblem } from './infeasibility/elastic-problem';
 
 export function solve(problem: Problem, partial: Partial<IpmSettings> = {}): SolveResult {
+  return runSolve(problem, partial, true);
+}
+
+/** allowElastic: whether a stalled solve may be settled by the elastic problem (never nested) */
+function runSolve(problem: Problem, partial: Partial<IpmSettings>, allowElastic: boolean): SolveResult {
   const settings = resolveSettings(partial);
   validateProblem(problem);
   const start = performance.now();
@@ -30,7 +35,7 @@ export function solve(problem: Problem, partial: Partial<IpmSettings> = {}): Sol
   const pre: PresolveOutcome = stage('presolve', () => presolve(problem, settings.presolve));
   if (pre.status !== 'reduced') {
     // presolve proved infeasible/unbounded: solve the original for a certificate ray
-    const again = solve(problem, { ...partial, presolve: false });
+    const again = runSolve(problem, { ...partial, presolve: false }, allowElastic);
     return { ...again, message: `${pre.message}; ${again.message ?? ''}`.trim(), seconds: (performance.now() - start) / 1000 };
   }
   const reduced = pre.reduced;
@@ -57,14 +62,14 @@ export function solve(problem: Problem, partial: Partial<IpmSettings> = {}): Sol
       Object.entries(outcome.timings).forEach(([k, v]) => (timings[`ipm.${k}`] = v));
       ({ x: xr, y: yr } = unscale(outcome, scaling));
       if ((status === 'infeasible' || status === 'unbounded') && settings.presolve) {
-        const again = solve(problem, { ...partial, presolve: false });
+        const again = runSolve(problem, { ...partial, presolve: false }, allowElastic);
         return { ...again, seconds: (performance.now() - start) / 1000 };
       }
       if (status === 'infeasible') ray = dualRay(problem, outcome, scaling);
       if (status === 'unbounded') ray = primalRay(problem, outcome, scaling);
     }
   }
-  if (status === 'numerical_trouble' || status === 'iteration_limit') {
+  if (allowElastic && outcome !== null && outcome.iterations > 0 && (status === 'numerical_trouble' || status === 'iteration_limit')) {
     // the method stalled: settle feasibility with the elastic problem, which always converges
     const verdict = stage('feasibility', () => elasticVerdict(problem, partial, clock));
     if (verdict) return { ...verdict, seconds: (performance.now() - start) / 1000, timings };
@@ -155,12 +160,12 @@ function normalised(values: { name: string; value: number }[]): { name: string; 
 function elasticVerdict(p: Problem, partial: Partial<IpmSettings>, clock: { start: number; deadline: number }): SolveResult | null {
   const remaining = (clock.deadline - performance.now()) / 1000;
   if (!(remaining > 0)) return null;
-  const e = solve(elasticProblem(p), {
+  const e = runSolve(elasticProblem(p), {
     ...partial,
     onIteration: undefined,
     timeLimitSeconds: Math.min(remaining, partial.timeLimitSeconds ?? Infinity),
     maxIterations: Math.max(partial.maxIterations ?? 100, 100),
-  });
+  }, false);
   if (e.status !== 'optimal') return null;
   let bNorm = 0;
   for (const a of [p.rowLower, p.rowUpper, p.colLower, p.colUpper]) for (const v of a) if (Number.isFinite(v)) bNorm = Math.max(bNorm, Math.abs(v));

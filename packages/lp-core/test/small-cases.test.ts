@@ -177,6 +177,16 @@ describe('limits and hooks', () => {
     expect(r.iterations).toBe(2);
     expect(Array.from(r.x).every(Number.isFinite)).toBe(true);
   });
+  it('a factor above maxFactorMegabytes ends at once with numerical_trouble and says why', () => {
+    const r = solve(p, { presolve: false, maxFactorMegabytes: 1e-6 });
+    expect(r.status).toBe('numerical_trouble');
+    expect(r.iterations).toBe(0);
+    expect(r.message).toMatch(/the Cholesky factor would hold \d+ entries .* \(maxFactorMegabytes = 0.000001\)/);
+  });
+  it('a time limit is honoured', () => {
+    const r = solve(p, { presolve: false, timeLimitSeconds: 1e-9 });
+    expect(r.status).toBe('time_limit');
+  });
   it('shouldStop ends with status cancelled; onIteration sees every iteration', () => {
     const seen: number[] = [];
     const r = solve(p, { presolve: false, onIteration: (i) => seen.push(i.iteration), shouldStop: () => seen.length >= 3 });

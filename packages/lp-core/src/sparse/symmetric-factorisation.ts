@@ -66,7 +66,12 @@ export class SymmetricFactorisation {
     const first = ordering === 'amd' ? approximateMinimumDegree(n, ...patternCsc(n, rows, cols)) : identity(n);
     // postorder the elimination tree so supernodes are runs of consecutive columns
     const up0 = permutedPattern(n, rows, cols, first, 'upper');
-    const post = postorder(eliminationTree(n, up0.Cp, up0.Ci).parent);
+    const tree = eliminationTree(n, up0.Cp, up0.Ci);
+    // fail fast: the column counts give nnz(L) before any symbolic structure is built
+    let count = n;
+    for (let j = 0; j < n; j++) count += tree.colCount[j];
+    if (count > maxEntries) throw new FactorTooLargeError(count, maxEntries);
+    const post = postorder(tree.parent);
     this.perm = new Int32Array(n);
     for (let k = 0; k < n; k++) this.perm[k] = first[post[k]];
     this.pinv = new Int32Array(n);
