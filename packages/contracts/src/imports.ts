@@ -110,8 +110,8 @@ export const importFields: Record<ImportKind, readonly ImportFieldDef[]> = {
     f('setupHours', 'setup hours', 'number', false, ['setup', 'setup time', 'changeover hours']),
   ],
   demand: [
-    f('product', 'product', 'code', true, ['product code', 'item', 'item code', 'part', 'part number', 'sku', 'article']),
-    f('weekStart', 'week start', 'date', true, ['week', 'date', 'due', 'due date', 'ship date', 'week of', 'period']),
+    f('product', 'product', 'code', true, ['product code', 'item', 'item code', 'part', 'part number', 'sku', 'article', 'artikel', 'artikelnummer']),
+    f('weekStart', 'week start', 'date', true, ['week', 'date', 'due', 'due date', 'ship date', 'week of', 'period', 'woche', 'datum']),
     f('type', 'type', 'choice', true, ['demand type', 'kind', 'firm or forecast'], ['firm', 'forecast']),
     f('orderRef', 'order reference', 'text', false, ['order', 'order ref', 'customer order', 'so', 'sales order', 'reference']),
     f('qty', 'quantity', 'number', true, ['qty', 'amount', 'demand', 'menge']),
@@ -165,7 +165,7 @@ export type ImportSummary = z.infer<typeof importSummarySchema>;
 export const mappingSourceSchema = z.enum(['sent', 'saved', 'suggested']);
 export type MappingSource = z.infer<typeof mappingSourceSchema>;
 
-/** Answer of POST /api/imports/:kind/preview. */
+/** Answer of POST /api/imports/:kind (the preview). */
 export const importPreviewSchema = z.object({
   kind: importKindSchema,
   fileName: z.string(),
