@@ -44,8 +44,8 @@ export interface IpmSettings {
   refinementSteps: number;
   /** largest Cholesky factor allowed, in megabytes of values; a bigger one ends the solve before it starts */
   maxFactorMegabytes: number;
-  /** fill-reducing ordering of the normal equations */
-  ordering: 'amd' | 'natural';
+  /** fill-reducing ordering: 'auto' tries AMD and nested dissection and keeps the cheaper factorisation */
+  ordering: 'auto' | 'amd' | 'nd' | 'natural';
   /** called after every iteration (progress bars) */
   onIteration?: (info: IterationInfo) => void;
   /** polled once per iteration; returning true ends the solve with status 'cancelled' */
@@ -73,7 +73,7 @@ export const defaultIpmSettings: Readonly<IpmSettings> = Object.freeze({
   maxDenseColumns: 40,
   refinementSteps: 3,
   maxFactorMegabytes: 1536,
-  ordering: 'amd',
+  ordering: 'auto',
 });
 
 /** Merges with the defaults and checks every field; throws one Error listing what is wrong. */
@@ -106,7 +106,7 @@ export function resolveSettings(partial: Partial<IpmSettings> = {}): IpmSettings
   for (const k of ['presolve', 'scaling'] as const) {
     if (typeof s[k] !== 'boolean') problems.push(`${k} must be true or false, got ${String(s[k])}`);
   }
-  if (s.ordering !== 'amd' && s.ordering !== 'natural') problems.push(`ordering must be "amd" or "natural", got ${String(s.ordering)}`);
+  if (!['auto', 'amd', 'nd', 'natural'].includes(s.ordering)) problems.push(`ordering must be "auto", "amd", "nd" or "natural", got ${String(s.ordering)}`);
   for (const k of ['onIteration', 'shouldStop'] as const) {
     if (s[k] !== undefined && typeof s[k] !== 'function') problems.push(`${k} must be a function`);
   }

@@ -1,7 +1,8 @@
 /**
  * A symmetric sparse matrix M, given as a list of entries (i, j) in its original numbering,
- * factorised as P M Pᵀ = L D Lᵀ. The pattern, ordering (AMD, then an elimination-tree
- * postorder) and symbolic factor are fixed at construction; afterwards a caller writes values
+ * factorised as P M Pᵀ = L D Lᵀ. The pattern, the ordering (AMD or nested dissection, whichever
+ * needs fewer flops, then an elimination-tree postorder) and the symbolic factor are fixed at
+ * construction; afterwards a caller writes values
  * through `slot` (entry t adds into Cx[slot[t]]), calls factorise() and solves as often as
  * needed. No allocation after the constructor.
  *
@@ -10,6 +11,7 @@
  * rows ≥ column) for the supernodal kernel and the permuted upper triangle for the simplicial one.
  */
 import { approximateMinimumDegree } from './amd';
+import { nestedDissection } from './nested-dissection';
 import { eliminationTree } from './etree';
 import { postorder } from './postorder';
 import { symbolicFactor, type SymbolicFactor } from './symbolic';
@@ -18,7 +20,8 @@ import { ldlSolve } from './triangular';
 import { supernodalSymbolic, type SupernodalSymbolic } from './supernodal-symbolic';
 import { SupernodalLdl } from './supernodal-ldl';
 
-export type Ordering = 'amd' | 'natural';
+/** 'auto' computes both AMD and nested dissection and keeps the one with fewer factorisation flops */
+export type Ordering = 'auto' | 'amd' | 'nd' | 'natural';
 
 /** thrown by the constructor, before the numeric arrays are allocated, when L would be too large */
 export class FactorTooLargeError extends Error {
@@ -35,6 +38,8 @@ export type Kernel = 'supernodal' | 'simplicial';
 export class SymmetricFactorisation {
   readonly n: number;
   readonly kernel: Kernel;
+  /** the ordering actually used */
+  readonly ordering: Ordering;
   /** perm[k] = original index at position k; pinv is its inverse */
   readonly perm: Int32Array;
   readonly pinv: Int32Array;
@@ -56,17 +61,34 @@ export class SymmetricFactorisation {
     n: number,
     rows: Int32Array,
     cols: Int32Array,
-    ordering: Ordering = 'amd',
+    ordering: Ordering = 'auto',
     kernel: Kernel = 'supernodal',
     maxEntries = Infinity,
   ) {
     this.n = n;
     this.kernel = kernel;
     const T = rows.length;
-    const first = ordering === 'amd' ? approximateMinimumDegree(n, ...patternCsc(n, rows, cols)) : identity(n);
+    const candidates: Int32Array[] = [];
+    if (ordering === 'natural') candidates.push(identity(n));
+    else {
+      const [Ap, Ai] = patternCsc(n, rows, cols);
+      if (ordering === 'amd' || ordering === 'auto') candidates.push(approximateMinimumDegree(n, Ap, Ai));
+      if (ordering === 'nd' || ordering === 'auto') candidates.push(nestedDissection(n, Ap, Ai));
+    }
+    let first = candidates[0];
+    let up0 = permutedPattern(n, rows, cols, first, 'upper');
+    let tree = eliminationTree(n, up0.Cp, up0.Ci);
+    for (let c = 1; c < candidates.length; c++) {
+      const up = permutedPattern(n, rows, cols, candidates[c], 'upper');
+      const t = eliminationTree(n, up.Cp, up.Ci);
+      if (flopsOf(t.colCount) < flopsOf(tree.colCount)) {
+        first = candidates[c];
+        up0 = up;
+        tree = t;
+      }
+    }
+    this.ordering = first === candidates[0] ? (ordering === 'auto' ? 'amd' : ordering) : 'nd';
     // postorder the elimination tree so supernodes are runs of consecutive columns
-    const up0 = permutedPattern(n, rows, cols, first, 'upper');
-    const tree = eliminationTree(n, up0.Cp, up0.Ci);
     // fail fast: the column counts give nnz(L) before any symbolic structure is built
     let count = n;
     for (let j = 0; j < n; j++) count += tree.colCount[j];
@@ -157,6 +179,13 @@ function up0Upper(n: number, Lp: Int32Array, Li: Int32Array): { Cp: Int32Array; 
   const Ci = new Int32Array(Li.length);
   for (let j = 0; j < n; j++) for (let p = Lp[j]; p < Lp[j + 1]; p++) Ci[fill[Li[p]]++] = j;
   return { Cp, Ci };
+}
+
+/** multiply–adds of a factorisation with these column counts */
+function flopsOf(colCount: Int32Array): number {
+  let f = 0;
+  for (let j = 0; j < colCount.length; j++) f += colCount[j] * colCount[j];
+  return f;
 }
 
 function identity(n: number): Int32Array {
