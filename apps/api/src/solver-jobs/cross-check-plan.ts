@@ -40,7 +40,7 @@ export async function crossCheckPlan(request: CrossCheckRequest, settings: Cross
   const reference = await runReference(solver, problem, settings);
   const seconds = (performance.now() - started) / 1000;
   const planObjective = request.planObjective;
-  const label = solverLabel(solver);
+  const label = crossCheckSolverLabel(solver);
   if (reference.status !== 'optimal') {
     const stopped = reference.status === 'time_limit' || reference.status === 'iteration_limit' || reference.status === 'cancelled';
     return {
@@ -88,6 +88,7 @@ async function runReference(solver: CrossCheckSolver, problem: Problem, settings
   }
 }
 
-function solverLabel(solver: CrossCheckSolver): string {
+/** The checking solver in words. */
+export function crossCheckSolverLabel(solver: CrossCheckSolver): string {
   return { 'javascript-lp-solver': 'The simplex library javascript-lp-solver', highs: 'HiGHS', barrier: 'The log-barrier method' }[solver];
 }

@@ -4,7 +4,7 @@ import type { CrossCheck, CrossCheckSolver } from '@millrace/contracts';
 import type { SolveJobKind } from '../db/entities/solve-job.entity';
 import { findPlan, findPlanDetail, loadPlanInputs, loadPlanMps, setSolveStatus, storeCrossCheck, storeSolveOutcome } from '../plans/plans.repository';
 import type { ComputeProgress } from './compute-plan';
-import { chooseCrossCheckSolver, defaultCrossCheckSettings, type CrossCheckSettings } from './cross-check-plan';
+import { chooseCrossCheckSolver, crossCheckSolverLabel, defaultCrossCheckSettings, type CrossCheckSettings } from './cross-check-plan';
 import { SolverThread, type RunningTask } from './solver-thread';
 import { cancelRequested, claimNextJob, enqueueJob, finishJob, writeProgress, type ClaimedJob } from './solve-jobs.repository';
 import { readMps } from '@millrace/lp-core';
@@ -142,6 +142,16 @@ export class SolverJobRunner {
     if (!plan || !mps || plan.objective === null) {
       return finishJob(this.ds.manager, job.id, 'failed', 'The plan has no solved model to check.');
     }
+    const solver = chooseCrossCheckSolver(readMps(mps));
+    await storeCrossCheck(this.ds.manager, job.planId, {
+      solver,
+      status: 'running',
+      objective: null,
+      planObjective: plan.objective,
+      relativeDifference: null,
+      seconds: null,
+      message: `${crossCheckSolverLabel(solver)} is re-solving the exported model.`,
+    });
     const worker = this.threads.cross_check.run({ kind: 'cross_check', request: { mps, planObjective: plan.objective }, settings: this.settings.crossCheck }, () => {});
     const heartbeat = setInterval(() => {
       void writeProgress(this.ds, job.id, { iteration: 0, relativeGap: null, primalObjective: null, elapsedSeconds: 0 }).catch(() => {});
