@@ -9,6 +9,7 @@ import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
 import { ReadOnlyNote } from '@/components/ui/read-only-note';
 import { isApiError } from '@/lib/api-client';
+import { useUrlTextParam } from '@/lib/use-url-text-param';
 import { formatWeekLong } from '@/lib/format';
 import { useDemand } from './api/get-demand';
 import { useSaveDemand } from './api/save-demand';
@@ -27,7 +28,7 @@ export function DemandPage({ canEdit }: { canEdit: boolean }) {
   const asked = Number(params.get('weeks'));
   const weeks = (weekChoices as readonly number[]).includes(asked) ? asked : defaultWeeks;
   const from = /^\d{4}-\d{2}-\d{2}$/.test(params.get('from') ?? '') ? params.get('from')! : undefined;
-  const q = params.get('q') ?? '';
+  const [q, setQ] = useUrlTextParam('q');
   const kind = (params.get('kind') ?? '') as ProductKind | '';
 
   const demand = useDemand({ from, weeks });
@@ -163,7 +164,7 @@ export function DemandPage({ canEdit }: { canEdit: boolean }) {
       />
       {!canEdit ? <ReadOnlyNote who="planners" /> : null}
       <div className="mb-3 flex flex-wrap items-end gap-3">
-        <Input label="Find product" type="search" value={q} onChange={(e) => setParam('q', e.target.value)} fieldClassName="w-56" />
+        <Input label="Find product" type="search" value={q} onChange={(e) => setQ(e.target.value)} fieldClassName="w-56" />
         <label className="flex flex-col gap-1 text-sm font-semibold">
           Kind
           <select value={kind} onChange={(e) => setParam('kind', e.target.value)} className="rounded border border-line bg-panel px-2 py-1.5 font-normal">

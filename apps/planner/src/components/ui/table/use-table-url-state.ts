@@ -1,16 +1,17 @@
 import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
+import { useUrlTextParam } from '@/lib/use-url-text-param';
 import type { ColumnFiltersState, SortingState, VisibilityState } from '@tanstack/react-table';
 
 /**
  * A table's view (search text, column filters, sorting, hidden columns) kept in the URL so a view
- * can be shared and survives a reload. Keys: `q`, `sort=col` / `sort=-col`, `hide=a,b`,
+ * can be shared and survives a reload. The search text is typed into a local copy first. Keys: `q`, `sort=col` / `sort=-col`, `hide=a,b`,
  * `f.<column>=value`.
  */
 export function useTableUrlState() {
   const [params, setParams] = useSearchParams();
 
-  const globalFilter = params.get('q') ?? '';
+  const [globalFilter, setGlobalFilter] = useUrlTextParam('q');
   const sorting: SortingState = useMemo(() => {
     const raw = params.get('sort');
     if (!raw) return [];
@@ -43,10 +44,6 @@ export function useTableUrlState() {
     [setParams],
   );
 
-  const setGlobalFilter = useCallback(
-    (value: string) => update((next) => (value ? next.set('q', value) : next.delete('q'))),
-    [update],
-  );
   const setSorting = useCallback(
     (value: SortingState) =>
       update((next) => {

@@ -49,6 +49,7 @@ describe('products table (view kept in the URL)', () => {
     await user.click(screen.getByText('Columns'));
     await user.click(screen.getByRole('checkbox', { name: 'Family' }));
 
+    await waitFor(() => expect(new URLSearchParams(view.location().search).get('q')).toBe('ash'));
     const params = new URLSearchParams(view.location().search);
     expect(params.get('sort')).toBe('name');
     expect(params.get('f.kind')).toBe('subassembly');
