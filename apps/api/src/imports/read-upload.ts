@@ -11,6 +11,8 @@ export interface Upload {
 
 const upload = multer({
   storage: multer.memoryStorage(),
+  // Keep the name as sent (with any folders) so a name with path characters is refused, not silently cut.
+  preservePath: true,
   limits: { fileSize: importLimits.maxFileBytes, files: 1, fields: 8, fieldSize: 64 * 1024, parts: 10 },
 }).single('file');
 

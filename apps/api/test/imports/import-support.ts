@@ -24,7 +24,8 @@ export function upload(
   if (options.sheet !== undefined) req = req.field('sheet', options.sheet);
   if (options.headerRow !== undefined) req = req.field('headerRow', String(options.headerRow));
   if (options.mapping !== undefined) req = req.field('mapping', JSON.stringify(options.mapping));
-  return req.attach('file', typeof content === 'string' ? Buffer.from(content, 'utf8') : content, fileName);
+  // `filepath` makes the form library send the name as given (it would cut it to its last part).
+  return req.attach('file', typeof content === 'string' ? Buffer.from(content, 'utf8') : content, { filename: fileName, filepath: fileName } as never);
 }
 
 /** An XLSX workbook written by exceljs: `build` fills it. */
