@@ -137,3 +137,11 @@ export async function activeJobs(db: EntityManager, planId: number, kind: SolveJ
 function finiteOrNull(v: number | null): number | null {
   return v !== null && Number.isFinite(v) ? v : null;
 }
+
+/** Puts a job this process could not finish (it is shutting down) back in the queue, and its plan with it. */
+export async function requeueJob(ds: DataSource, job: ClaimedJob): Promise<void> {
+  await ds.transaction(async (db) => {
+    await db.query(`UPDATE solve_job SET state = 'queued', claimed_by = NULL, heartbeat_at = NULL, started_at = NULL WHERE id = ? AND state = 'running'`, [job.id]);
+    if (job.kind === 'solve') await db.query(`UPDATE plan_version SET solve_status = 'queued' WHERE id = ? AND latest_run_id = ?`, [job.planId, job.id]);
+  });
+}

@@ -6,7 +6,7 @@ import { findPlan, findPlanDetail, loadPlanInputs, loadPlanMps, setSolveStatus, 
 import type { ComputeProgress } from './compute-plan';
 import { chooseCrossCheckSolver, crossCheckSolverLabel, defaultCrossCheckSettings, type CrossCheckSettings } from './cross-check-plan';
 import { SolverThread, type RunningTask } from './solver-thread';
-import { cancelRequested, claimNextJob, enqueueJob, finishJob, writeProgress, type ClaimedJob } from './solve-jobs.repository';
+import { cancelRequested, claimNextJob, enqueueJob, finishJob, requeueJob, writeProgress, type ClaimedJob } from './solve-jobs.repository';
 import { readMps } from '@millrace/lp-core';
 
 export interface SolverJobRunnerSettings {
@@ -37,6 +37,7 @@ export class SolverJobRunner {
   private readonly lanes: Lane[];
   /** one long-lived worker thread per lane */
   private readonly threads: Record<SolveJobKind, SolverThread>;
+  private stopping = false;
 
   constructor(
     private readonly ds: DataSource,
@@ -52,10 +53,19 @@ export class SolverJobRunner {
     for (const lane of this.lanes) lane.start();
   }
 
-  /** Stops claiming; waits for the jobs in hand to end. */
+  /**
+   * Stops claiming and ends the solver threads; a job cut short is put back in the queue, so
+   * this or another process takes it up again at once (not after the heartbeat goes stale).
+   */
   async stop(): Promise<void> {
-    await Promise.all(this.lanes.map((lane) => lane.stop()));
-    await Promise.all(Object.values(this.threads).map((t) => t.close()));
+    this.stopping = true;
+    try {
+      const lanesStopped = this.lanes.map((lane) => lane.stop());
+      await Promise.all(Object.values(this.threads).map((t) => t.close()));
+      await Promise.all(lanesStopped);
+    } finally {
+      this.stopping = false;
+    }
   }
 
   /** Claims and runs one job; false when the queue was empty. */
@@ -66,6 +76,10 @@ export class SolverJobRunner {
       if (job.kind === 'solve') await this.runSolve(job);
       else await this.runCrossCheck(job);
     } catch (err) {
+      if (this.stopping) {
+        await requeueJob(this.ds, job);
+        return true;
+      }
       const message = err instanceof Error ? err.message : String(err);
       console.error(`solver jobs: job ${job.id} (${job.kind}, plan ${job.planId}) failed:`, message);
       await this.ds.transaction(async (db) => {

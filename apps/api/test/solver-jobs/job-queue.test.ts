@@ -84,3 +84,32 @@ describe('the solve queue', () => {
     expect(job).toEqual({ claimed_by: 'a-live-process', state: 'running' });
   });
 });
+
+describe('shutting down', () => {
+  it('when a runner stops in the middle of a solve, then the job goes back to the queue and the next runner finishes it', async () => {
+    const id = await newPlan('Interrupted');
+    const runId = (await planner.post(`/api/plans/${id}/solve`)).body.runId as number;
+    const first = new SolverJobRunner(ctx.dataSource, { pollMs: 20 });
+    first.start();
+    const until = Date.now() + 30_000;
+    let state = 'queued';
+    while (state !== 'running' && Date.now() < until) {
+      state = (await planner.get(`/api/plans/${id}/runs/${runId}`)).body.state;
+      await new Promise((r) => setTimeout(r, 5));
+    }
+    expect(state).toBe('running');
+    await first.stop();
+    const after = (await planner.get(`/api/plans/${id}/runs/${runId}`)).body;
+    // Stopped right after the claim (the solver thread is still loading): back in the queue, untouched.
+    expect(after.state).toBe('queued');
+    expect((await planner.get(`/api/plans/${id}`)).body.solveStatus).toBe('queued');
+    const second = new SolverJobRunner(ctx.dataSource, { pollMs: 20 });
+    second.start();
+    try {
+      expect((await waitForRun(planner, id, runId)).state).toBe('finished');
+    } finally {
+      await second.stop();
+    }
+    expect((await planner.get(`/api/plans/${id}`)).body.solveStatus).toBe('solved');
+  });
+});
