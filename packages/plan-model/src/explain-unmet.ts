@@ -22,13 +22,35 @@ export function explainUnmetOrders(
   lines: { products: ProductWeekLine[]; workCenters: WorkCenterWeekLine[]; materials: MaterialWeekLine[] },
 ): UnmetOrder[] {
   const out: UnmetOrder[] = [];
+  const group = <T,>(xs: T[], key: (x: T) => string) => {
+    const m = new Map<string, T[]>();
+    for (const x of xs) {
+      const k = key(x);
+      const list = m.get(k);
+      if (list) list.push(x);
+      else m.set(k, [x]);
+    }
+    return m;
+  };
+  const indexed = {
+    workCenters: group(lines.workCenters, (l) => l.workCenter),
+    materials: group(lines.materials, (l) => l.material),
+  };
+  const demandOf = group(data.demand, (d) => d.product);
+  const linesOf = group(lines.products, (l) => l.product);
+  const causesMemo = new Map<string, ShortageCause[]>();
+  const causesFor = (product: string, week: number) => {
+    const key = `${product}|${week}`;
+    if (!causesMemo.has(key)) causesMemo.set(key, shortageCauses(data, product, week, indexed));
+    return causesMemo.get(key)!;
+  };
   for (const p of data.products) {
-    const all = data.demand
-      .filter((d) => d.product === p.code && d.kind === 'firm' && d.week <= horizonWeeks && d.qty > 0)
+    const all = (demandOf.get(p.code) ?? [])
+      .filter((d) => d.kind === 'firm' && d.week <= horizonWeeks && d.qty > 0)
       .map((d, k) => ({ ...d, ref: d.orderRef ?? `${p.code}/week ${d.week}#${k + 1}` }))
       .sort((a, b) => a.week - b.week || a.ref.localeCompare(b.ref));
     if (all.length === 0) continue;
-    const lateBy = new Map(lines.products.filter((l) => l.product === p.code).map((l) => [l.week, l.late]));
+    const lateBy = new Map((linesOf.get(p.code) ?? []).map((l) => [l.week, l.late]));
     const cum = (list: typeof all, t: number) => list.filter((o) => o.week <= t).reduce((a, o) => a + o.qty, 0);
     const others = all.filter((o) => !o.mustShip);
     const must = all.filter((o) => o.mustShip);
@@ -51,7 +73,7 @@ export function explainUnmetOrders(
               completeWeek = t;
               break;
             }
-          const causes = shortageCauses(data, p.code, o.week, lines);
+          const causes = causesFor(p.code, o.week);
           const when = completeWeek === null ? 'not complete within the horizon' : `complete in week ${completeWeek}`;
           out.push({
             orderRef: o.ref,
@@ -75,7 +97,7 @@ function shortageCauses(
   data: PlanningData,
   product: string,
   dueWeek: number,
-  lines: { workCenters: WorkCenterWeekLine[]; materials: MaterialWeekLine[] },
+  lines: { workCenters: Map<string, WorkCenterWeekLine[]>; materials: Map<string, MaterialWeekLine[]> },
 ): ShortageCause[] {
   const below = bomDescendants(data.bom, product);
   const made = new Set([product, ...below.products]);
@@ -83,7 +105,7 @@ function shortageCauses(
   const causes: ShortageCause[] = [];
   for (const w of data.workCenters) {
     if (!wcs.has(w.code)) continue;
-    const binding = lines.workCenters.filter((l) => l.workCenter === w.code && l.week <= dueWeek && l.binding);
+    const binding = (lines.workCenters.get(w.code) ?? []).filter((l) => l.week <= dueWeek && l.binding);
     if (binding.length === 0) continue;
     const weeks = binding.map((l) => l.week);
     const value = Math.max(...binding.map((l) => l.bottleneckValue));
@@ -99,7 +121,7 @@ function shortageCauses(
   }
   for (const m of data.materials) {
     if (!below.materials.has(m.code)) continue;
-    const ml = lines.materials.filter((l) => l.material === m.code && l.week <= dueWeek);
+    const ml = (lines.materials.get(m.code) ?? []).filter((l) => l.week <= dueWeek);
     const capped = ml.filter((l) => l.supplyCapValue > TOLERANCES.value);
     if (capped.length > 0) {
       causes.push({ kind: 'supply_cap', item: m.code, weeks: capped.map((l) => l.week), text: `${m.name} limited by supply cap (${weekRanges(capped.map((l) => l.week))})` });

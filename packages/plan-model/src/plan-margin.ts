@@ -13,8 +13,9 @@ export function planMargin(
   data: PlanningData,
   horizonWeeks: number,
   lines: { products: ProductWeekLine[]; workCenters: WorkCenterWeekLine[]; materials: MaterialWeekLine[] },
+  /** rolled-up standard costs when the caller already has them (repeated calls) */
+  std: Map<string, number> = standardCosts(data),
 ): MarginBreakdown {
-  const std = standardCosts(data);
   const product = new Map(data.products.map((p) => [p.code, p]));
   const wc = new Map(data.workCenters.map((w) => [w.code, w]));
   const mat = new Map(data.materials.map((m) => [m.code, m]));

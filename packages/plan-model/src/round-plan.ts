@@ -4,6 +4,7 @@ import { bomDescendants, lowLevelCodes } from './bom-graph';
 import { supplyCap } from './material-supply';
 import { PlanRecompute, type PlanDecisions } from './plan-recompute';
 import { planMargin } from './plan-margin';
+import { standardCosts } from './standard-cost';
 import { explainUnmetOrders } from './explain-unmet';
 import { materialCalls } from './material-calls';
 import { checkPlan, type PlanViolation } from './check-plan';
@@ -110,12 +111,18 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
       workCenters: [...new Set(products.flatMap((p) => rc.workCentersOf(p)))],
     };
   };
+  const std = standardCosts(data);
   const localMargin = (a: ReturnType<typeof affected>, week: number) =>
-    planMargin(data, T, {
-      products: a.products.flatMap((p) => rc.productLines(p, d)),
-      workCenters: a.workCenters.map((w) => rc.workCenterLine(w, week, d)),
-      materials: a.materials.flatMap((m) => rc.materialLines(m, d)),
-    }).margin;
+    planMargin(
+      data,
+      T,
+      {
+        products: a.products.flatMap((p) => rc.productLines(p, d)),
+        workCenters: a.workCenters.map((w) => rc.workCenterLine(w, week, d)),
+        materials: a.materials.flatMap((m) => rc.materialLines(m, d)),
+      },
+      std,
+    ).margin;
   const fits = (a: ReturnType<typeof affected>, week: number) =>
     a.workCenters.every((w) => rc.loadHours(w, week, d) <= rc.maxHours(w, week) * (1 + 1e-9) + EPS) &&
     a.materials.every((m) => rc.materialLines(m, d).every((l) => l.stock >= -EPS)) &&
