@@ -35,13 +35,18 @@ for (const { finished, weeks } of sizes) {
   const data = generatePlant(7, size);
   const [built, tBuild] = time(() => buildModel(data, { horizonWeeks: weeks }));
   const [result, tSolve] = time(() => solve(built.problem));
+  const head = `${finished}+${size.subassemblies} products × ${weeks} weeks: ${built.problem.colNames.length} columns, ${built.problem.rowNames.length} rows`;
+  if (result.status !== 'optimal') {
+    console.log(`${head}\n  build ${tBuild.toFixed(3)} s | solve ${tSolve.toFixed(3)} s ended ${result.status}: ${result.message ?? ''}`);
+    continue;
+  }
   const [plan, tMap] = time(() => mapSolution(data, built, result));
   const [violations, tCheck] = time(() => checkPlan(data, plan));
   const [rounded, tRound] = time(() => roundPlan(data, plan));
   const [sheets, tSheets] = time(() => buildShiftSheets(data, rounded.plan, { weeks: [1] }));
   console.log(
     [
-      `${finished}+${size.subassemblies} products × ${weeks} weeks: ${built.problem.colNames.length} columns, ${built.problem.rowNames.length} rows`,
+      head,
       `  build ${tBuild.toFixed(3)} s | solve ${tSolve.toFixed(3)} s (${result.status}, ${result.iterations} iterations, gap ${result.certificate.relativeGap.toExponential(1)})`,
       `  map ${tMap.toFixed(3)} s | check ${tCheck.toFixed(3)} s (${violations.length} violations) | round ${tRound.toFixed(3)} s (gap ${rounded.report.gapPct?.toFixed(2)} %) | shift sheets week 1 ${tSheets.toFixed(3)} s (${sheets.sheets.length} sheets)`,
     ].join('\n'),
