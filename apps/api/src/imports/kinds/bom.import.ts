@@ -7,7 +7,7 @@ import { listAllProducts, touchProductIfVersion } from '../../products/products.
 import { addError, hasErrors, type ImportRow } from '../import-row';
 import { CodeIndex, FirstRows, sameQty, unitMismatch } from './code-index';
 import { ImportConflict, type ImportKindHandler } from './import-kind';
-import { fieldOfPath } from './record-kind';
+import { addIssues } from './record-kind';
 
 /** Most lines one bill of materials may have (the BOM editor's limit). */
 const maxLinesPerBom = 500;
@@ -62,7 +62,7 @@ export const bomImport: ImportKindHandler = {
         qtyPer: row.data.qtyPer ?? 1,
         scrapPct: row.data.scrapPct ?? 0,
       });
-      if (!parsed.success) for (const issue of parsed.error.issues) addError(row, fieldOfPath(issue.path, fieldKeys, 'component'), issue.message);
+      if (!parsed.success) addIssues(row, parsed.error.issues, fieldKeys, 'component');
       if (!parent || !component || !parsed.success) continue;
       const first = firstRows.seen(`${parent.id}|${component.kind}${component.item.id}`, row.rowNumber);
       if (first !== null) addError(row, 'component', `${component.item.code} is already in the bill of materials of ${parent.code} on row ${first}; combine the quantities.`);

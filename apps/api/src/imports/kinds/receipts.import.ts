@@ -5,7 +5,7 @@ import { plantWeekStart, weekStartErrors } from '../../master-data/week-alignmen
 import { addError, hasErrors, type ImportRow } from '../import-row';
 import { CodeIndex, FirstRows, sameQty, unitMismatch } from './code-index';
 import { ImportConflict, type ImportKindHandler } from './import-kind';
-import { fieldOfPath } from './record-kind';
+import { addIssues } from './record-kind';
 
 /** Most receipts one material may have (the receipts editor's limit). */
 const maxReceiptsPerMaterial = 1000;
@@ -44,10 +44,7 @@ export const receiptsImport: ImportKindHandler = {
       }
       const parsed = scheduledReceiptInputSchema.safeParse({ weekStart: date ?? '', qty: row.data.qty ?? 0, reference: row.data.reference ?? null });
       if (!parsed.success) {
-        for (const issue of parsed.error.issues) {
-          const field = fieldOfPath(issue.path, fieldKeys, 'qty');
-          if (row.data[field] !== undefined) addError(row, field, issue.message);
-        }
+        addIssues(row, parsed.error.issues, fieldKeys, 'qty', (field) => row.data[field] !== undefined);
       }
       if (!material || !parsed.success) continue;
       const first = firstRows.seen(`${material.id}|${receiptKey(parsed.data.weekStart, parsed.data.reference)}`, row.rowNumber);

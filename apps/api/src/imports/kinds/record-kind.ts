@@ -45,6 +45,17 @@ export function fieldOfPath(path: readonly PropertyKey[], keys: readonly string[
   return fallback;
 }
 
+/** Adds a schema's issues to a row: the first issue of each field (one message per cell). */
+export function addIssues(row: ImportRow, issues: ReadonlyArray<{ path: readonly PropertyKey[]; message: string }>, keys: readonly string[], fallback: string, only?: (field: string) => boolean): void {
+  const done = new Set(row.errors.map((e) => e.field));
+  for (const issue of issues) {
+    const field = fieldOfPath(issue.path, keys, fallback);
+    if (done.has(field) || (only && !only(field))) continue;
+    done.add(field);
+    addError(row, field, issue.message);
+  }
+}
+
 function same(a: unknown, b: unknown): boolean {
   if (typeof a === 'number' && typeof b === 'number') return Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b));
   if (Array.isArray(a) && Array.isArray(b)) return a.length === b.length && a.every((x, i) => same(x, b[i]));
@@ -95,7 +106,7 @@ export function recordKind<Input>(config: RecordKindConfig<Input>, fieldKeys: re
         if (record) fileValues.code = record.code; // codes compare without case, as the database does
         const parsed = config.schema.safeParse(config.toInput(record ? { ...record.flat, ...fileValues } : fileValues));
         if (!parsed.success) {
-          for (const issue of parsed.error.issues) addError(row, fieldOfPath(issue.path, fieldKeys, 'code'), issue.message);
+          addIssues(row, parsed.error.issues, fieldKeys, 'code');
           continue;
         }
         if (!record) {

@@ -6,7 +6,7 @@ import { listAllWorkCenters } from '../../work-centers/work-centers.repository';
 import { addError, hasErrors, type ImportRow } from '../import-row';
 import { CodeIndex, FirstRows, sameQty } from './code-index';
 import { ImportConflict, type ImportKindHandler } from './import-kind';
-import { fieldOfPath } from './record-kind';
+import { addIssues } from './record-kind';
 
 /** Most steps one routing may have (the routing editor's limit). */
 const maxStepsPerRouting = 100;
@@ -41,7 +41,7 @@ export const routingsImport: ImportKindHandler = {
         hoursPerUnit: row.data.hoursPerUnit ?? 0,
         setupHours: row.data.setupHours ?? 0,
       });
-      if (!parsed.success) for (const issue of parsed.error.issues) addError(row, fieldOfPath(issue.path, fieldKeys, 'workCenter'), issue.message);
+      if (!parsed.success) addIssues(row, parsed.error.issues, fieldKeys, 'workCenter');
       if (!product || !workCenter || !parsed.success) continue;
       const first = firstRows.seen(`${product.id}|${parsed.data.sequence}`, row.rowNumber);
       if (first !== null) addError(row, 'sequence', `Step ${parsed.data.sequence} of ${product.code} is already on row ${first}.`);
