@@ -25,19 +25,20 @@ export default defineConfig({
     sourcemap: false,
     // dist/.vite/manifest.json lets scripts/print-bundle-sizes.mjs follow each route's imports.
     manifest: true,
-    // Route modules are split by hand with React Router's `lazy` (src/app/router.tsx).
-    // Large libraries that only some routes need get their own chunks so the sign-in
-    // route and the shell stay small.
-    rollupOptions: {
+    // Route modules are split by hand with React Router's `lazy` (src/app/router.tsx). Libraries
+    // get chunks of their own so the sign-in route and the shell load only what they use. A group
+    // also takes the dependencies its modules pull in that no group of higher priority has taken,
+    // so React is claimed first (else it would land in whichever library chunk reached it first).
+    rolldownOptions: {
       output: {
-        manualChunks(id: string) {
-          if (!id.includes('node_modules')) return undefined;
-          if (/node_modules\/(react|react-dom|scheduler|react-router|react-router-dom|@tanstack\/(react-query|query-core))\//.test(id)) return 'react';
-          if (/node_modules\/zod\//.test(id)) return 'zod';
-          if (/node_modules\/(recharts|d3-|victory-vendor|decimal\.js-light|es-toolkit)/.test(id)) return 'charts';
-          if (/node_modules\/@tanstack\/(react-table|table-core|react-virtual|virtual-core)/.test(id)) return 'table';
-          if (/node_modules\/(react-hook-form|@hookform)/.test(id)) return 'forms';
-          return undefined;
+        codeSplitting: {
+          groups: [
+            { name: 'react', priority: 50, test: /node_modules[\\/](react|react-dom|scheduler|react-router|react-router-dom|@tanstack[\\/](react-query|query-core))[\\/]/ },
+            { name: 'zod', priority: 40, test: /node_modules[\\/]zod[\\/]/ },
+            { name: 'forms', priority: 30, test: /node_modules[\\/](react-hook-form|@hookform)[\\/]/ },
+            { name: 'table', priority: 30, test: /node_modules[\\/]@tanstack[\\/](react-table|table-core|react-virtual|virtual-core)[\\/]/ },
+            { name: 'charts', priority: 20, test: /node_modules[\\/](recharts|d3-[^\\/]+|victory-vendor|decimal\.js-light|es-toolkit|@reduxjs|redux|reselect|immer|react-redux|use-sync-external-store|eventemitter3|clsx|tiny-invariant|react-is)[\\/]/ },
+          ],
         },
       },
     },
