@@ -69,6 +69,12 @@ describe(`shift sheets: properties over generated plans (solver: ${solverName})`
       }
       // 5. total time per shift within its length plus its overtime
       for (const s of sheets) expect(s.plannedMinutes).toBeLessThanOrEqual(s.availableMinutes + s.overtimeMinutes + 1e-9);
+      // the first operation of each job lists what to issue: quantity per (scrap included) × job quantity
+      for (const j of jobs.filter((x) => x.previousWorkCenter === null)) {
+        const lines = data.bom.filter((b) => b.parent === j.product);
+        expect(j.materials.map((m) => m.item)).toEqual(lines.map((b) => b.material ?? b.componentProduct));
+        j.materials.forEach((m, i) => expect(m.quantity).toBeCloseTo((lines[i].qtyPer / (1 - lines[i].scrapPct / 100)) * j.quantity, 9));
+      }
       // whole-unit plans are split in whole units
       if (whole) for (const j of jobs) expect(Math.abs(j.quantity - Math.round(j.quantity))).toBeLessThan(1e-9);
     });

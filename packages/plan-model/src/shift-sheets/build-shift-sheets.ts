@@ -5,6 +5,7 @@ import { shiftWindows, type ShiftWindow } from './shift-windows';
 import { weekOperations, type WeekOperation } from './week-operations';
 import { wallClock, weekdayOf } from './plant-clock';
 import { workingTimeCautions } from './working-time';
+import { componentUsePerUnit } from '../bom-graph';
 
 /**
  * Approved plan → shift sheets: for each work center, day and shift, the jobs in run order with
@@ -192,6 +193,17 @@ function scheduleWeek(
   return pieces;
 }
 
+/** what to issue to the first operation of a job: BOM components × quantity, scrap included */
+function issuesFor(data: PlanningData, product: string, quantity: number): ShiftSheetJob['materials'] {
+  return data.bom
+    .filter((b) => b.parent === product)
+    .map((b) => {
+      const code = (b.material ?? b.componentProduct)!;
+      const item = b.material !== undefined ? data.materials.find((m) => m.code === code) : data.products.find((p) => p.code === code);
+      return { item: code, name: item?.name ?? code, quantity: componentUsePerUnit(b) * quantity, unit: item?.unit ?? '' };
+    });
+}
+
 function toSheets(data: PlanningData, week: number, pieces: Piece[], windowsOf: Map<string, ShiftWindow[]>): ShiftSheet[] {
   const weekStartDate = data.weeks.find((w) => w.index === week)!.startDate;
   const product = new Map(data.products.map((p) => [p.code, p]));
@@ -221,6 +233,7 @@ function toSheets(data: PlanningData, week: number, pieces: Piece[], windowsOf: 
         orderRefs: p.op.orderRefs,
         previousWorkCenter: p.op.previousWorkCenter,
         nextWorkCenter: p.op.nextWorkCenter,
+        materials: p.op.previousWorkCenter === null ? issuesFor(data, p.op.product, p.quantity) : [],
       }));
       sheets.push({
         workCenter: wc.code,

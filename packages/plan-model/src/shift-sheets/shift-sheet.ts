@@ -30,6 +30,8 @@ export interface ShiftSheetJob {
   orderRefs: string[];
   previousWorkCenter: string | null;
   nextWorkCenter: string | null;
+  /** materials and sub-assemblies to issue for this job (first operation only; scrap included) */
+  materials: { item: string; name: string; quantity: number; unit: string }[];
 }
 
 export interface ShiftSheet {
