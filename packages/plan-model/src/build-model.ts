@@ -21,7 +21,7 @@ import { supplyCap } from './material-supply';
  * Rows:
  *  bal[p,t]   make + stock[t−1] − late[t−1] − stock[t] + late[t] − sell − Σ_parents use·make[parent,t]
  *             = firm[t]  (− opening stock in week 1)
- *  cap[w,t]   Σ_p hours[p,w]·make[p,t] − efficiency·overtime[w,t] ≤ available[w,t]
+ *  cap[w,t]   Σ_p hours[p,w]·make[p,t] − efficiency·overtime[w,t] ≤ available[w,t]·(1 − reserve)
  *  mat[m,t]   mstock[t] − mstock[t−1] − buy[t − lead] + Σ_p use[p,m]·make[p,t] = receipts[t] (+ on hand in week 1)
  *  sup[m,t]   buy[t] ≤ weekly supply cap
  *  bkl[p,t]   late[t] − late[t−1] ≤ firm[t] − mustShip[t]: the week's firm shipments cover at
@@ -43,6 +43,11 @@ export interface BuildOptions {
   smoothing?: { enabled: boolean; weight: number };
   /** round the plan to whole units and batch multiples afterwards (round-plan) */
   wholeUnits?: boolean;
+  /**
+   * % of regular time held back on every work center (default 0): an LP otherwise fills
+   * capacity to 100 % (DOMAIN.md §5, keep a capacity buffer)
+   */
+  capacityReservePct?: number;
 }
 
 export interface BuiltModel {
@@ -63,6 +68,8 @@ export function buildModel(data: PlanningData, options: BuildOptions): BuiltMode
   const smoothingWeight = options.smoothing?.enabled ? options.smoothing.weight : 0;
   if (!(smoothingWeight >= 0)) throw new Error(`smoothing weight must be ≥ 0, got ${options.smoothing?.weight}`);
 
+  const reserve = options.capacityReservePct ?? 0;
+  if (!(reserve >= 0 && reserve < 100)) throw new Error(`capacity reserve must be at least 0 % and below 100 %, got ${reserve}`);
   const T = options.horizonWeeks;
   const weeks = Array.from({ length: T }, (_, i) => i + 1);
   const lp = new LpBuilder();
@@ -162,7 +169,7 @@ export function buildModel(data: PlanningData, options: BuildOptions): BuiltMode
     for (const t of weeks) {
       const terms: [number, number][] = loaders.map(([i, h]) => [col.make[i][t - 1], h]);
       terms.push([col.overtime[k][t - 1], -w.efficiency]);
-      row.capacity[k][t - 1] = addRow('capacity', 'cap', w.code, t, -Infinity, availableHours(w, t), terms);
+      row.capacity[k][t - 1] = addRow('capacity', 'cap', w.code, t, -Infinity, availableHours(w, t) * (1 - reserve / 100), terms);
     }
   });
 

@@ -128,6 +128,21 @@ describe(`model features (solver: ${solverName})`, () => {
     expect(q1.text).toMatch(/^Order Q1: 10 short in week 1 \(complete in week 3\) — Boat yard over-loaded week 1 \(bottleneck value \d+\.\d\d\/h, no overtime allowed\)/);
   });
 
+  it('a capacity reserve holds back that share of regular time (Winston §3.10 data with 36 regular boats a quarter)', async () => {
+    const data = sailboatPlant();
+    const built = buildModel(data, { horizonWeeks: 4, capacityReservePct: 10 });
+    const result = await solveUnderTest(built.problem);
+    const plan = mapSolution(data, built, result);
+    // regular time 36 a quarter (10 % held back): quarter 1 carries 10 + 36 − 40 = 6 boats, so
+    // quarter 2 needs 60 − 6 − 36 = 18 on overtime and quarter 3 75 − 36 = 39 (overtime at 450
+    // beats building ahead at 450 + 20); cost 190 × 400 + 57 × 50 + 6 × 20 = 78,970 (arithmetic
+    // on the source's data)
+    expect(plan.workCenters.map((l) => l.overtimeHours)).toEqual([0, 18, 39, 0].map((v) => expect.closeTo(v, 5)));
+    expect(plan.products.map((l) => l.stock)).toEqual([6, 0, 0, 0].map((v) => expect.closeTo(v, 5)));
+    expect(plan.objective!).toBeCloseTo(78_970, 3);
+    expect(() => buildModel(data, { horizonWeeks: 4, capacityReservePct: 100 })).toThrow(/capacity reserve/);
+  });
+
   it('smoothing λ·Σ(make[t] − make[t−1])² keeps Q diagonal and evens production out', async () => {
     // Production smoothing after Holt, Modigliani, Muth & Simon (1960), with change variables
     // (DOMAIN.md §1): the Hessian is diagonal with 2λ on each change column.
