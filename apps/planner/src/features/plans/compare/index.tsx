@@ -129,11 +129,16 @@ function Comparison({ c }: { c: PlanComparison }) {
             {c.unmet[side].length === 0 ? (
               <p className="text-ink-soft">None.</p>
             ) : (
-              <ul className="mt-1 list-disc pl-5">
-                {c.unmet[side].map((o) => (
-                  <li key={`${o.orderRef}-${o.week}`}>{o.message}</li>
-                ))}
-              </ul>
+              <details open={c.unmet[side].length <= 5}>
+                <summary className="cursor-pointer font-semibold text-race-700">
+                  {c.unmet[side].length} orders, {formatNumber(c.unmet[side].reduce((t, o) => t + o.qtyShort, 0))} units short
+                </summary>
+                <ul className="mt-1 list-disc pl-5">
+                  {c.unmet[side].map((o) => (
+                    <li key={`${o.orderRef}-${o.week}`}>{o.message}</li>
+                  ))}
+                </ul>
+              </details>
             )}
           </section>
         ))}
@@ -185,7 +190,7 @@ export function PlanComparePage() {
           {a !== null && b !== null && a === b ? <p role="alert">Choose two different versions.</p> : null}
           {a === null || b === null ? <p className="text-ink-soft">Choose version A and version B.</p> : null}
           {comparison.isFetching && !comparison.data ? <Loading label="Comparing…" /> : null}
-          {comparison.isError ? <ErrorState error={comparison.error} onRetry={() => void comparison.refetch()} /> : null}
+          {comparison.isError ? <ErrorState error={comparison.error} title="These versions cannot be compared" onRetry={() => void comparison.refetch()} /> : null}
           {comparison.data && a !== b ? <Comparison c={comparison.data} /> : null}
         </div>
       ) : null}

@@ -10,7 +10,7 @@ export function PlanFacts({ plan }: { plan: PlanDetail }) {
     ['Smoothing', plan.smoothing.enabled ? `On, weight ${formatNumber(plan.smoothing.weight)}` : 'Off'],
     ['Whole units', plan.wholeUnits ? 'On (rounded after the solve)' : 'Off (fractional quantities)'],
     ['Solve', solveStatusWords[plan.solveStatus]],
-    ['Margin (objective)', plan.objective === null ? '—' : formatMoney(plan.objective, plan.currency)],
+    ['Margin, LP optimum (objective)', plan.objective === null ? '—' : formatMoney(plan.objective, plan.currency)],
     ['Created', `${formatDateTime(plan.createdAt)}${plan.createdBy ? ` by ${plan.createdBy.name}` : ''}`],
   ];
   if (plan.modelSize) rows.push(['Model size', `${plan.modelSize.rows} rows × ${plan.modelSize.columns} columns, ${plan.modelSize.nonzeros} nonzeros`]);

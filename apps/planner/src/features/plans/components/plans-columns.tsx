@@ -44,7 +44,7 @@ export const plansColumns: ColumnDef<PlanRow, any>[] = [
   },
   {
     accessorKey: 'objective',
-    header: 'Margin',
+    header: 'Margin (LP optimum)',
     meta: { numeric: true },
     sortUndefined: 'last',
     cell: ({ row }) => (row.original.objective === null ? '—' : formatMoney(row.original.objective, row.original.currency)),

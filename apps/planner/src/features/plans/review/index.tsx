@@ -128,7 +128,9 @@ export function PlanReviewPage({ planId, role }: { planId: number; role: Role })
   if (review.isError) return (<>{header}<ErrorState error={review.error} onRetry={() => void review.refetch()} /></>);
   const r = review.data;
   const c = r.changes;
-  const cautions = r.cautions.filter((x) => x.kind !== 'advisory');
+  // Overtime within the limit is listed together; everything else is a caution of its own.
+  const withinLimit = r.cautions.filter((x) => x.kind === 'overtime');
+  const cautions = r.cautions.filter((x) => x.kind !== 'advisory' && x.kind !== 'overtime');
   const advisory = r.cautions.find((x) => x.kind === 'advisory');
 
   return (
@@ -150,16 +152,32 @@ export function PlanReviewPage({ planId, role }: { planId: number; role: Role })
             )}
           </p>
           <Headline review={r} />
+          <SignOffActions plan={p} role={role} />
           <section aria-labelledby="cautions-heading" className="flex flex-col gap-2">
             <h2 id="cautions-heading" className="text-lg font-semibold">
-              Cautions ({cautions.length})
+              Cautions ({cautions.length + (withinLimit.length > 0 ? 1 : 0)})
             </h2>
-            {cautions.length === 0 ? <p className="text-sm text-ink-soft">No overtime, unmet orders or unverified results to flag.</p> : null}
+            {cautions.length === 0 && withinLimit.length === 0 ? (
+              <p className="text-sm text-ink-soft">No overtime, unmet orders or unverified results to flag.</p>
+            ) : null}
             {cautions.map((x, i) => (
-              <Caution key={i} title={x.kind === 'working_time' ? 'Above the working-time limit' : x.kind === 'overtime' ? 'Overtime' : x.kind === 'unmet_orders' ? 'Unmet firm orders' : 'Not verified'}>
+              <Caution key={i} title={x.kind === 'working_time' ? 'Above the working-time limit' : x.kind === 'unmet_orders' ? 'Unmet firm orders' : 'Not verified'}>
                 {x.message}
               </Caution>
             ))}
+            {withinLimit.length > 0 ? (
+              <Caution title={`Overtime in ${withinLimit.length} work-center week${withinLimit.length === 1 ? '' : 's'}, within the plant’s limit`}>
+                <p>Overtime rules, rest and pay follow local labour law, collective agreements and licensed practice.</p>
+                <details className="mt-1">
+                  <summary className="cursor-pointer font-semibold text-race-700">Show each week</summary>
+                  <ul className="mt-1 list-disc pl-5">
+                    {withinLimit.map((x, i) => (
+                      <li key={i}>{x.message}</li>
+                    ))}
+                  </ul>
+                </details>
+              </Caution>
+            ) : null}
             {advisory ? <Caution title="The plan is advice">{advisory.message}</Caution> : null}
           </section>
           <section aria-labelledby="quantities-heading" className="flex flex-col gap-2">
@@ -191,11 +209,16 @@ export function PlanReviewPage({ planId, role }: { planId: number; role: Role })
                   {r.unmet[side].length === 0 ? (
                     <p className="text-ink-soft">None.</p>
                   ) : (
-                    <ul className="mt-1 list-disc pl-5">
-                      {r.unmet[side].map((o) => (
-                        <li key={`${o.orderRef}-${o.week}`}>{o.message}</li>
-                      ))}
-                    </ul>
+                    <details open={r.unmet[side].length <= 5}>
+                      <summary className="cursor-pointer font-semibold text-race-700">
+                        {r.unmet[side].length} orders, {formatNumber(r.unmet[side].reduce((t, o) => t + o.qtyShort, 0))} units short
+                      </summary>
+                      <ul className="mt-1 list-disc pl-5">
+                        {r.unmet[side].map((o) => (
+                          <li key={`${o.orderRef}-${o.week}`}>{o.message}</li>
+                        ))}
+                      </ul>
+                    </details>
                   )}
                 </div>
               ))}
@@ -203,7 +226,6 @@ export function PlanReviewPage({ planId, role }: { planId: number; role: Role })
           </section>
         </div>
         <div className="flex flex-col gap-4">
-          <SignOffActions plan={p} role={role} />
           <CertificatePanel certificate={r.certificate} currency={p.currency} />
         </div>
       </div>

@@ -24,9 +24,9 @@ export function UnmetOrders({ unmet }: { unmet: UnmetOrder[] }) {
             Order {o.orderRef}: {o.product}, {formatNumber(o.qtyShort)} of {formatNumber(o.qty)} short in week {o.week} ({formatWeek(o.weekStart)})
             {o.completeWeek === null ? ' — not complete within the horizon' : ` — complete in week ${o.completeWeek}`}
           </p>
-          <p className="mt-1">{o.message}</p>
+          {o.causes.length === 0 ? <p className="mt-1">{o.message}</p> : null}
           {o.causes.length > 0 ? (
-            <ul className="mt-1 list-disc pl-5 text-sm">
+            <ul aria-label="Causes" className="mt-1 list-disc pl-5 text-sm">
               {o.causes.map((c, i) => (
                 <li key={i}>
                   <span className="font-semibold">{causeWords[c.kind]}:</span> {c.message}
