@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { importHistoryQuerySchema, importKindParamsSchema, importMappingSaveSchema, importOptionsSchema, importRunParamsSchema } from '@millrace/contracts';
+import { importFields, importHistoryQuerySchema, importKindParamsSchema, importMappingSaveSchema, importOptionsSchema, importRunParamsSchema } from '@millrace/contracts';
 import type { ApiContext } from '../app-context';
 import { currentPerson } from '../auth/current-person';
 import { allow } from '../auth/guard';
@@ -41,6 +41,9 @@ export function importsRouter({ dataSource }: ApiContext): Router {
   const mappingInput = validate({ params: importKindParamsSchema, body: importMappingSaveSchema });
   router.put('/api/imports/:kind/mapping', allow(...masterDataWriters), mappingInput, async (_req, res) => {
     const { params, body } = mappingInput.from(res);
+    const keys = new Set(importFields[params.kind].map((f) => f.key));
+    const unknown = Object.keys(body.mapping).find((k) => !keys.has(k));
+    if (unknown) throw AppError.validation(`The mapping names a field "${unknown}" that a ${params.kind} import does not have.`, [{ path: `mapping.${unknown}`, message: 'Not a field of this kind.' }]);
     await saveMapping(db(), params.kind, body.mapping, currentPerson(res).id);
     res.json(await findSavedMapping(db(), params.kind));
   });

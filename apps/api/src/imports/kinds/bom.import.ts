@@ -2,8 +2,8 @@ import type { EntityManager } from 'typeorm';
 import { bomLineInputSchema, type BomLineInput, type Material, type Product } from '@millrace/contracts';
 import { listAllMaterials } from '../../materials/materials.repository';
 import { findBomCycle } from '../../products/bom-cycle';
-import { listAllBomLines, listProductEdges, lockBomStructure, replaceBomLines } from '../../products/bom.repository';
-import { listAllProducts, touchProductIfVersion } from '../../products/products.repository';
+import { listAllBomLines, listBomLines, listProductEdges, lockBomStructure, replaceBomLines } from '../../products/bom.repository';
+import { findProductById, listAllProducts, touchProductIfVersion } from '../../products/products.repository';
 import { addError, hasErrors, type ImportRow } from '../import-row';
 import { CodeIndex, FirstRows, sameQty, unitMismatch } from './code-index';
 import { ImportConflict, type ImportKindHandler } from './import-kind';
@@ -16,9 +16,11 @@ const fieldKeys = ['qtyPer', 'scrapPct'];
 interface Entry {
   productId: number;
   code: string;
-  versionAfter: number;
   before: BomLineInput[];
+  after: BomLineInput[];
 }
+
+const lineList = (lines: BomLineInput[]) => lines.map((l) => `${componentKey(l)}=${l.qtyPer}/${l.scrapPct}`).join(';');
 
 type Component = { kind: 'product'; item: Product } | { kind: 'material'; item: Material };
 const componentKey = (l: { componentProductId: number | null; materialId: number | null }) => (l.componentProductId !== null ? `p${l.componentProductId}` : `m${l.materialId}`);
@@ -122,7 +124,7 @@ export const bomImport: ImportKindHandler = {
             throw new ImportConflict(`Someone else changed the product ${parent.code} meanwhile; preview the file again.`);
           }
           await replaceBomLines(wdb, parent.id, after);
-          entries.push({ productId: parent.id, code: parent.code, versionAfter: parent.version + 1, before });
+          entries.push({ productId: parent.id, code: parent.code, before, after });
         }
         return { kind: 'bom', entries };
       },
@@ -131,8 +133,10 @@ export const bomImport: ImportKindHandler = {
   async undo(db, raw) {
     await lockBomStructure(db);
     for (const entry of raw as Entry[]) {
-      if ((await touchProductIfVersion(db, entry.productId, entry.versionAfter)) === 'version_mismatch') {
-        throw new ImportConflict(`The product ${entry.code} was changed after the import; undo would lose that change.`);
+      const product = await findProductById(db, entry.productId);
+      const current = product ? (await listBomLines(db, entry.productId)).map((l) => ({ componentProductId: l.componentProductId, materialId: l.materialId, qtyPer: l.qtyPer, scrapPct: l.scrapPct })) : [];
+      if (!product || lineList(current) !== lineList(entry.after) || (await touchProductIfVersion(db, product.id, product.version)) === 'version_mismatch') {
+        throw new ImportConflict(`The bill of materials of ${entry.code} was changed after the import; undo would lose that change.`);
       }
       await replaceBomLines(db, entry.productId, entry.before);
     }

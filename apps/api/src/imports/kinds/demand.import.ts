@@ -28,10 +28,7 @@ interface Cell {
   weekStart: string;
   orderRef: string;
 }
-type Entry =
-  | (Cell & { op: 'created' })
-  | (Cell & { op: 'updated'; id: number; versionAfter: number; qtyBefore: number })
-  | (Cell & { op: 'deleted'; qtyBefore: number });
+type Entry = (Cell & { op: 'created'; qtyAfter: number }) | (Cell & { op: 'updated'; qtyBefore: number; qtyAfter: number }) | (Cell & { op: 'deleted'; qtyBefore: number });
 
 const cellKey = (c: Cell) => `${c.type}|${c.productId}|${c.weekStart}|${c.orderRef.toLowerCase()}`;
 
@@ -107,14 +104,14 @@ export const demandImport: ImportKindHandler = {
           if (!old) {
             if (cell.type === 'firm') newFirm.push({ productId: cell.productId, weekStart: cell.weekStart, orderRef: cell.orderRef, qty });
             else newForecast.push({ productId: cell.productId, weekStart: cell.weekStart, qty });
-            entries.push({ ...cell, op: 'created' });
+            entries.push({ ...cell, op: 'created', qtyAfter: qty });
           } else if (qty === 0) {
             gone[cell.type].push(old.id);
             entries.push({ ...cell, op: 'deleted', qtyBefore: old.qty });
           } else {
             if (cell.type === 'firm') await updateFirmOrderQty(wdb, old.id, qty);
             else await updateForecastQty(wdb, old.id, qty);
-            entries.push({ ...cell, op: 'updated', id: old.id, versionAfter: old.version + 1, qtyBefore: old.qty });
+            entries.push({ ...cell, op: 'updated', qtyBefore: old.qty, qtyAfter: qty });
           }
         }
         await insertFirmOrders(wdb, newFirm);
@@ -133,11 +130,12 @@ export const demandImport: ImportKindHandler = {
     const gone: { firm: number[]; forecast: number[] } = { firm: [], forecast: [] };
     for (const e of entries) {
       const now = stored.get(cellKey(e));
+      // Undo goes by values, not versions, so a chain of undos stays possible.
       if (e.op === 'created') {
-        if (!now || now.version !== 1) throw conflict(e);
+        if (!now || !sameQty(now.qty, e.qtyAfter)) throw conflict(e);
         gone[e.type].push(now.id);
       } else if (e.op === 'updated') {
-        if (!now || now.version !== e.versionAfter) throw conflict(e);
+        if (!now || !sameQty(now.qty, e.qtyAfter)) throw conflict(e);
         if (e.type === 'firm') await updateFirmOrderQty(db, now.id, e.qtyBefore);
         else await updateForecastQty(db, now.id, e.qtyBefore);
       } else {

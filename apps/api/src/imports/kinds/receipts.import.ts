@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { scheduledReceiptInputSchema, type Material, type ScheduledReceiptInput } from '@millrace/contracts';
-import { listAllMaterials, listAllReceipts, replaceReceipts, touchMaterialIfVersion } from '../../materials/materials.repository';
+import { findMaterialById, listAllMaterials, listAllReceipts, listReceipts, replaceReceipts, touchMaterialIfVersion } from '../../materials/materials.repository';
 import { plantWeekStart, weekStartErrors } from '../../master-data/week-alignment';
 import { addError, hasErrors, type ImportRow } from '../import-row';
 import { CodeIndex, FirstRows, sameQty, unitMismatch } from './code-index';
@@ -14,9 +14,15 @@ const fieldKeys = ['weekStart', 'qty', 'reference'];
 interface Entry {
   materialId: number;
   code: string;
-  versionAfter: number;
   before: ScheduledReceiptInput[];
+  after: ScheduledReceiptInput[];
 }
+
+const receiptList = (list: ScheduledReceiptInput[]) =>
+  list
+    .map((r) => `${receiptKey(r.weekStart, r.reference)}=${r.qty}`)
+    .sort()
+    .join(';');
 
 const receiptKey = (weekStart: string, reference: string | null) => `${weekStart}|${(reference ?? '').toLowerCase()}`;
 
@@ -88,7 +94,7 @@ export const receiptsImport: ImportKindHandler = {
             throw new ImportConflict(`Someone else changed the material ${material.code} meanwhile; preview the file again.`);
           }
           await replaceReceipts(wdb, material.id, after);
-          entries.push({ materialId: material.id, code: material.code, versionAfter: material.version + 1, before });
+          entries.push({ materialId: material.id, code: material.code, before, after });
         }
         return { kind: 'receipts', entries };
       },
@@ -96,8 +102,10 @@ export const receiptsImport: ImportKindHandler = {
   },
   async undo(db, raw) {
     for (const entry of raw as Entry[]) {
-      if ((await touchMaterialIfVersion(db, entry.materialId, entry.versionAfter)) === 'version_mismatch') {
-        throw new ImportConflict(`The material ${entry.code} was changed after the import; undo would lose that change.`);
+      const material = await findMaterialById(db, entry.materialId);
+      const current = material ? (await listReceipts(db, entry.materialId)).map((r) => ({ weekStart: r.weekStart, qty: r.qty, reference: r.reference })) : [];
+      if (!material || receiptList(current) !== receiptList(entry.after) || (await touchMaterialIfVersion(db, material.id, material.version)) === 'version_mismatch') {
+        throw new ImportConflict(`The receipts of material ${entry.code} were changed after the import; undo would lose that change.`);
       }
       await replaceReceipts(db, entry.materialId, entry.before);
     }

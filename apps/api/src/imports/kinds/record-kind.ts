@@ -66,13 +66,15 @@ interface CreatedEntry {
   op: 'created';
   id: number;
   code: string;
+  /** the values it was created with (undo refuses when they have changed since) */
+  after: Flat;
 }
 interface UpdatedEntry {
   op: 'updated';
   id: number;
   code: string;
-  versionAfter: number;
   before: Flat;
+  after: Flat;
 }
 type Entry = CreatedEntry | UpdatedEntry;
 
@@ -128,7 +130,7 @@ export function recordKind<Input>(config: RecordKindConfig<Input>, fieldKeys: re
           for (const { row, input } of creates) {
             try {
               const { id } = await config.insert(wdb, input);
-              entries.push({ op: 'created', id, code: String(row.data.code) });
+              entries.push({ op: 'created', id, code: String(row.data.code), after: config.fromInput(input) });
             } catch (err) {
               if (isDuplicateKey(err)) throw new ImportConflict(`Someone else created the ${config.what} ${String(row.data.code)} meanwhile; preview the file again.`);
               throw err;
@@ -139,7 +141,7 @@ export function recordKind<Input>(config: RecordKindConfig<Input>, fieldKeys: re
               throw new ImportConflict(`Someone else changed the ${config.what} ${record.code} meanwhile; preview the file again.`);
             }
             const before = Object.fromEntries(Object.keys(changes).map((k) => [k, record.flat[k]]));
-            entries.push({ op: 'updated', id: record.id, code: record.code, versionAfter: record.version + 1, before });
+            entries.push({ op: 'updated', id: record.id, code: record.code, before, after: changes });
           }
           return { kind: config.kind, entries };
         },
@@ -148,24 +150,27 @@ export function recordKind<Input>(config: RecordKindConfig<Input>, fieldKeys: re
     async undo(db, rawEntries) {
       const entries = rawEntries as Entry[];
       const storedById = new Map((await config.loadAll(db)).map((s) => [s.id, s]));
+      const changedSince = (code: string) => new ImportConflict(`The ${config.what} ${code} was changed after the import; undo would lose that change.`);
       for (const entry of entries) {
         const stored = storedById.get(entry.id);
-        const version = stored?.version ?? null;
+        // Undo goes by values, not versions: an undo chain (and changes to other fields) stays possible.
+        if (!stored || Object.entries(entry.after).some(([k, v]) => !same(stored.flat[k], v))) {
+          if (entry.op === 'created' && !stored) continue;
+          throw changedSince(entry.code);
+        }
         if (entry.op === 'created') {
-          if (version === null) continue;
-          if (version !== 1) throw new ImportConflict(`The ${config.what} ${entry.code} was changed after the import; undo would lose that change.`);
           try {
             await config.remove(db, entry.id);
           } catch (err) {
-            if ((err as { code?: string; driverError?: { code?: string } }).driverError?.code?.startsWith('ER_ROW_IS_REFERENCED') || (err as { code?: string }).code?.startsWith('ER_ROW_IS_REFERENCED')) {
+            const code = (err as { code?: string; driverError?: { code?: string } }).driverError?.code ?? (err as { code?: string }).code ?? '';
+            if (code.startsWith('ER_ROW_IS_REFERENCED')) {
               throw new ImportConflict(`The ${config.what} ${entry.code} that the import created is now used elsewhere (a bill of materials, routing or demand); remove that use first.`);
             }
             throw err;
           }
         } else {
-          if (version !== entry.versionAfter) throw new ImportConflict(`The ${config.what} ${entry.code} was changed after the import; undo would lose that change.`);
-          const merged = config.schema.parse(config.toInput({ ...stored!.flat, ...entry.before }));
-          await config.update(db, entry.id, entry.versionAfter, entry.before, merged);
+          const merged = config.schema.parse(config.toInput({ ...stored.flat, ...entry.before }));
+          if ((await config.update(db, entry.id, stored.version, entry.before, merged)) === 'version_mismatch') throw changedSince(entry.code);
         }
       }
     },

@@ -1,7 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import { routingStepInputSchema, type Product, type RoutingStepInput } from '@millrace/contracts';
-import { listAllProducts, touchProductIfVersion } from '../../products/products.repository';
-import { listAllRoutingSteps, replaceRoutingSteps } from '../../products/routing.repository';
+import { findProductById, listAllProducts, touchProductIfVersion } from '../../products/products.repository';
+import { listAllRoutingSteps, listRoutingSteps, replaceRoutingSteps } from '../../products/routing.repository';
 import { listAllWorkCenters } from '../../work-centers/work-centers.repository';
 import { addError, hasErrors, type ImportRow } from '../import-row';
 import { CodeIndex, FirstRows, sameQty } from './code-index';
@@ -15,9 +15,11 @@ const fieldKeys = ['sequence', 'hoursPerUnit', 'setupHours'];
 interface Entry {
   productId: number;
   code: string;
-  versionAfter: number;
   before: RoutingStepInput[];
+  after: RoutingStepInput[];
 }
+
+const stepList = (steps: RoutingStepInput[]) => steps.map((s) => `${s.sequence}:${s.workCenterId}=${s.hoursPerUnit}/${s.setupHours}`).join(';');
 
 /** Routings: the rows of a product replace its routing (a product the file does not name keeps its routing). */
 export const routingsImport: ImportKindHandler = {
@@ -83,7 +85,7 @@ export const routingsImport: ImportKindHandler = {
             throw new ImportConflict(`Someone else changed the product ${product.code} meanwhile; preview the file again.`);
           }
           await replaceRoutingSteps(wdb, product.id, after);
-          entries.push({ productId: product.id, code: product.code, versionAfter: product.version + 1, before });
+          entries.push({ productId: product.id, code: product.code, before, after });
         }
         return { kind: 'routings', entries };
       },
@@ -91,8 +93,10 @@ export const routingsImport: ImportKindHandler = {
   },
   async undo(db, raw) {
     for (const entry of raw as Entry[]) {
-      if ((await touchProductIfVersion(db, entry.productId, entry.versionAfter)) === 'version_mismatch') {
-        throw new ImportConflict(`The product ${entry.code} was changed after the import; undo would lose that change.`);
+      const product = await findProductById(db, entry.productId);
+      const current = product ? (await listRoutingSteps(db, entry.productId)).map((s) => ({ sequence: s.sequence, workCenterId: s.workCenterId, hoursPerUnit: s.hoursPerUnit, setupHours: s.setupHours })) : [];
+      if (!product || stepList(current) !== stepList(entry.after) || (await touchProductIfVersion(db, product.id, product.version)) === 'version_mismatch') {
+        throw new ImportConflict(`The routing of ${entry.code} was changed after the import; undo would lose that change.`);
       }
       await replaceRoutingSteps(db, entry.productId, entry.before);
     }
