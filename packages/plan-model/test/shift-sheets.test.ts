@@ -94,6 +94,40 @@ describe(`shift sheets: properties over generated plans (solver: ${solverName})`
   });
 });
 
+describe('shift sheets: a job without setup that does not fit the rest of a shift', () => {
+  it('starts in the shift where its first unit runs, not where the previous step ended', () => {
+    // Step 10 fills WC-A's Monday shift (8 × 1 h); step 20 on WC-B is released at 15:00, when
+    // WC-B's Monday overtime (30 min) cannot hold one 1 h unit, so the job moves to Tuesday.
+    const pattern = { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] };
+    const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
+    const data: PlanningData = {
+      plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
+      weeks: [{ index: 1, startDate: '2027-01-04' }],
+      products: [{ code: 'P', name: 'P', unit: 'pcs', kind: 'finished', price: 1, safetyStock: 0, batchMultiple: 1, openingStock: 0, latePenalty: 0 }],
+      bom: [],
+      routings: [
+        { product: 'P', sequence: 10, workCenter: 'WC-A', hoursPerUnit: 1, setupHours: 0 },
+        { product: 'P', sequence: 20, workCenter: 'WC-B', hoursPerUnit: 1, setupHours: 0 },
+      ],
+      workCenters: [wc('WC-A'), wc('WC-B')],
+      materials: [],
+      demand: [],
+    };
+    const plan = {
+      horizonWeeks: 1,
+      outcome: 'optimal',
+      products: [{ product: 'P', week: 1, make: 8 }],
+      workCenters: [{ workCenter: 'WC-B', week: 1, overtimeHours: 2.5 }],
+    } as unknown as Plan;
+    const { sheets } = buildShiftSheets(data, plan);
+    const b = sheets.filter((s) => s.workCenter === 'WC-B');
+    expect(b.map((s) => s.date)).toEqual(['2027-01-05']);
+    const job = b[0].jobs[0];
+    expect([job.setupStart, job.start, job.quantity]).toEqual(['2027-01-05T07:00', '2027-01-05T07:00', 8]);
+    expect(b[0].plannedMinutes).toBe(8 * 60);
+  });
+});
+
 describe('shift sheets: bad input', () => {
   it('names a work center with load but no open shift in the week', async () => {
     const { data, plan } = await approvedPlan(61, cases[0][1], true);

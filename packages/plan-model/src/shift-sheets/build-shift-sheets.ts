@@ -170,7 +170,7 @@ function scheduleWeek(
       if (units > EPS || (first && setup > 0)) {
         const runEnd = cur + units * op.runMinutesPerUnit;
         pieces.push({
-          op, window: w, setupStart: first ? setupStart : cur, start: cur, end: runEnd,
+          op, window: w, setupStart: first && setup > 0 ? setupStart : cur, start: cur, end: runEnd,
           setupMinutes: first ? setup : 0, quantity: units, continued: !first,
         });
         first = false;
