@@ -26,6 +26,8 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(3).default('Millrace <millrace@localhost>'),
   MAIL_CATCHER_URL: z.url().optional(),
   PLANNER_DIST: z.string().min(1).optional(),
+  /** Chromium that renders shift-sheet PDFs (Debian's package by default) */
+  CHROMIUM_PATH: z.string().min(1).default('/usr/bin/chromium'),
 });
 
 export interface DbConfig {
@@ -43,6 +45,7 @@ export interface Config {
   smtp: { host: string; port: number; secure: boolean; from: string };
   mailCatcherUrl?: string;
   plannerDist?: string;
+  chromiumPath: string;
 }
 
 export class ConfigError extends Error {
@@ -69,5 +72,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, from: e.MAIL_FROM },
     mailCatcherUrl: e.MAIL_CATCHER_URL,
     plannerDist: e.PLANNER_DIST,
+    chromiumPath: e.CHROMIUM_PATH,
   };
 }

@@ -7,6 +7,7 @@ import { createDataSource } from './db/data-source';
 import { OutboxSender } from './mail/outbox-sender';
 import { createSmtpMailer } from './mail/smtp-mailer';
 import { SolverJobRunner } from './solver-jobs/solver-job-runner';
+import { closeSheetPrinters } from './shift-sheets/sheet-printer';
 
 function main(): void {
   let config;
@@ -49,7 +50,7 @@ function main(): void {
     const force = setTimeout(() => process.exit(1), 10_000);
     force.unref();
     server.close(async () => {
-      await Promise.all([solverJobs.stop(), outbox.stop()]).catch(() => undefined);
+      await Promise.all([solverJobs.stop(), outbox.stop(), closeSheetPrinters()]).catch(() => undefined);
       if (dataSource.isInitialized) await dataSource.destroy().catch(() => undefined);
       process.exit(0);
     });

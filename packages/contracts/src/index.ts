@@ -20,3 +20,4 @@ export * from './demand';
 export * from './home';
 export * from './imports';
 export * from './invitations';
+export * from './shift-sheets';

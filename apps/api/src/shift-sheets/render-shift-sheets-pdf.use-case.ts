@@ -1,0 +1,47 @@
+import type { EntityManager } from 'typeorm';
+import type { Paper, Role } from '@millrace/contracts';
+import { AppError } from '../http/app-error';
+import { getShiftSheets } from './get-shift-sheets.use-case';
+import type { SheetPrinter } from './sheet-printer';
+
+export interface ShiftSheetsPdfRequest {
+  planId: number;
+  week?: string;
+  workCenter?: string;
+  paper: Paper;
+  role: Role;
+  /** this server's own address, where Chromium opens the print view */
+  selfUrl: string;
+  sessionCookie: { name: string; value: string };
+  /** the built planner (which holds the print view) is served by this process */
+  printViewServed: boolean;
+}
+
+/**
+ * The printed sheets as a PDF: build the week's sheets first (every 403/409/422 answers before
+ * Chromium starts), check the work center and that there is something to print, then let
+ * Chromium print the print view with the person's own session — one page per work-center shift
+ * with work.
+ */
+export async function renderShiftSheetsPdf(db: EntityManager, printer: SheetPrinter, req: ShiftSheetsPdfRequest): Promise<{ pdf: Buffer; filename: string; pages: number }> {
+  const sheets = await getShiftSheets(db, { planId: req.planId, week: req.week, role: req.role });
+  const chosen = req.workCenter === undefined ? sheets.workCenters : sheets.workCenters.filter((w) => w.code === req.workCenter);
+  if (req.workCenter !== undefined && chosen.length === 0) {
+    throw AppError.validation('The work center is not part of this plan version.', [
+      { path: 'query.workCenter', message: `Plan version ${req.planId} has no work center ${req.workCenter}.` },
+    ]);
+  }
+  const pages = chosen.reduce((a, w) => a + w.days.reduce((b, d) => b + d.shifts.length, 0), 0);
+  if (pages === 0) {
+    const what = req.workCenter === undefined ? 'No work center' : `Work center ${req.workCenter}`;
+    throw AppError.conflict(`${what} has work in the week starting ${sheets.week.start} of plan version ${req.planId}; there is no sheet to print.`);
+  }
+  if (!req.printViewServed) {
+    throw new AppError(503, 'internal_error', 'PDFs are printed from the planner’s print view, and this server does not serve the built planner (set PLANNER_DIST).');
+  }
+  const query = new URLSearchParams({ week: sheets.week.start, paper: req.paper });
+  if (req.workCenter !== undefined) query.set('workCenter', req.workCenter);
+  const pdf = await printer.print({ url: `${req.selfUrl}/print/shift-sheets/${req.planId}?${query}`, cookie: req.sessionCookie, paper: req.paper });
+  const filename = `shift-sheets-plan-${req.planId}-${sheets.week.start}${req.workCenter ? `-${req.workCenter.replace(/[^A-Za-z0-9_-]/g, '_')}` : ''}.pdf`;
+  return { pdf, filename, pages };
+}
