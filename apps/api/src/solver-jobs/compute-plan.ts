@@ -61,7 +61,11 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
   }));
   if (result.status === 'cancelled') return { kind: 'cancelled', seconds: result.seconds };
 
-  const certificate = { ...result.certificate, iterations: result.iterations, seconds: result.seconds };
+  // A run that stopped early may have no finite residuals: it then has no certificate to show.
+  const c = result.certificate;
+  const certificate = [c.primalResidual, c.dualResidual, c.relativeGap].every(Number.isFinite)
+    ? { primalResidual: c.primalResidual, dualResidual: c.dualResidual, relativeGap: c.relativeGap, iterations: result.iterations, seconds: result.seconds }
+    : null;
   const base = { certificate, modelSize, mps, checkViolations: [] as CheckViolation[], rounding: null, results: null, resultsHash: null, plan: null };
   const lpPlan = stage('map', () => mapSolution(request.data, built, result));
 
