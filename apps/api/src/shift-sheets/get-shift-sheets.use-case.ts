@@ -70,7 +70,11 @@ function sequenceWeek(planId: number, data: PlanningData, modelPlan: Plan, week:
     return buildShiftSheets(data, modelPlan, { weeks: [week] });
   } catch (err) {
     if (err instanceof ShiftSheetError) {
-      throw AppError.unprocessable(`The shift sheets of plan version ${planId} cannot be built: ${err.issues.map((i) => i.message).join('; ')}.`, err.issues);
+      // plan-model numbers weeks within the plan; the floor knows them by their dates
+      const start = data.weeks.find((w) => w.index === week)!.startDate;
+      const dated = (text: string) => text.replace(new RegExp(`\\bin week ${week}\\b`, 'g'), `in the week starting ${start}`).replace(new RegExp(`\\bweek ${week}\\b`, 'g'), `week starting ${start}`);
+      const issues = err.issues.map((i) => ({ item: dated(i.item).replace(/ week starting/, ', week starting'), message: dated(i.message) }));
+      throw AppError.unprocessable(`The shift sheets of plan version ${planId} cannot be built: ${issues.map((i) => i.message).join('; ')}.`, issues);
     }
     throw err;
   }
