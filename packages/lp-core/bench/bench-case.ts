@@ -13,7 +13,7 @@ export interface BenchRequest {
 }
 
 export interface BenchOutcome {
-  status: SolveStatus | 'killed' | 'failed';
+  status: SolveStatus | 'killed' | 'failed' | 'skipped';
   objective: number | null;
   iterations: number | null;
   /** solver time only (problem generation excluded) */

@@ -33,6 +33,18 @@ function buildProblem(request: BenchRequest): Problem {
   return p.kind === 'planning' ? planningProblem(PLANNING_SIZES[p.size], p.seed, `planning-${p.size}`) : readMps(readFileSync(p.file, 'utf8'));
 }
 
+/**
+ * javascript-lp-solver keeps a dense simplex tableau (one float per constraint and variable; an
+ * equality counts twice). On L it grew to 7 GB before its time limit, so larger models are skipped.
+ */
+const LP_SOLVER_MAX_TABLEAU_BYTES = 1.5 * 2 ** 30;
+
+function denseTableauBytes(model: ReturnType<typeof toLpSolverModel>['model']): number {
+  let constraints = 0;
+  for (const bound of Object.values(model.constraints)) constraints += bound.equal !== undefined || (bound.min !== undefined && bound.max !== undefined) ? 2 : 1;
+  return (constraints + 1) * (Object.keys(model.variables).length + 1) * 8;
+}
+
 /** A tiny LP solved once before timing, so that neither JIT nor WebAssembly start-up is timed. */
 async function warmUp(request: BenchRequest): Promise<void> {
   const tiny = planningProblem({ products: 3, weeks: 2, workCenters: 1, materials: 2 }, 7, 'warm-up');
@@ -61,6 +73,10 @@ async function run(request: BenchRequest): Promise<BenchOutcome> {
     }
     case 'lp-solver': {
       const { model, shifts } = toLpSolverModel(problem);
+      const tableauBytes = denseTableauBytes(model);
+      if (tableauBytes > LP_SOLVER_MAX_TABLEAU_BYTES) {
+        return { ...dims, status: 'skipped', objective: null, iterations: null, seconds: null, maxRssKb: null, message: `its dense tableau would take about ${(tableauBytes / 2 ** 30).toFixed(1)} GiB (limit ${LP_SOLVER_MAX_TABLEAU_BYTES / 2 ** 30} GiB on this shared machine)` };
+      }
       const start = performance.now();
       const raw = solver.Solve(model) as Record<string, number | boolean | undefined>;
       const seconds = (performance.now() - start) / 1000;
