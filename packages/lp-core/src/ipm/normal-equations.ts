@@ -15,6 +15,9 @@ import { DenseColumnUpdate } from './dense-column-update';
 import type { KktSolver, KktStatus } from './kkt-solver';
 import { qDiagonal, type IpmProblem } from './ipm-problem';
 
+/** refinement stops once the residual is this small relative to the right-hand side */
+const REFINE_TOLERANCE = 1e-14;
+
 export class NormalEquations implements KktSolver {
   private readonly F: SymmetricFactorisation;
   private readonly dense: DenseColumnUpdate | null;
@@ -161,7 +164,7 @@ export class NormalEquations implements KktSolver {
       if (!(r < bestNorm)) break;
       bestNorm = r;
       best.set(dy);
-      if (r <= 1e-14 * (1 + rhsNorm) || k === this.settings.refinementSteps) break;
+      if (r <= REFINE_TOLERANCE * (1 + rhsNorm) || k === this.settings.refinementSteps) break;
       corr.set(resid);
       this.applyInverse(corr);
       for (let i = 0; i < m; i++) dy[i] += corr[i];
