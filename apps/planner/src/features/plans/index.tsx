@@ -15,6 +15,7 @@ import { CertificatePanel } from './components/certificate-panel';
 import { PlanCreateForm } from './components/plan-create-form';
 import { PlanFacts } from './components/plan-facts';
 import { PlanStateBadge } from './components/plan-state-badge';
+import { ReturnedNote } from './components/returned-note';
 import { plansColumns } from './components/plans-columns';
 import { RunProgressPanel } from './components/run-progress';
 import { SignOffActions } from './components/sign-off-actions';
@@ -130,6 +131,7 @@ export function PlanPage({ planId, role }: { planId: number; role: Role }) {
       />
       <div className="grid grid-cols-1 gap-4 xl:grid-cols-[2fr_1fr]">
         <div className="flex min-w-0 flex-col gap-4">
+          {p.state === 'returned' ? <ReturnedNote planId={p.id} /> : null}
           <PlanFacts plan={p} />
           <section aria-labelledby="solve-heading" className="flex flex-col gap-3 rounded border border-line bg-panel p-3">
             <div className="flex flex-wrap items-center justify-between gap-2">

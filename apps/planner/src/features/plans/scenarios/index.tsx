@@ -136,7 +136,7 @@ export function ScenarioEditorPage({ scenarioId, canEdit }: { scenarioId: number
       {!canEdit ? <ReadOnlyNote who="planners" /> : null}
       {canEdit && s.locked ? (
         <p role="note" className="mb-4 rounded border border-line bg-race-50 px-3 py-2 text-sm">
-          <span aria-hidden="true">🔒 </span>Read only: an approved or released plan version was built from this scenario. Copy it into a new scenario to change it.
+          <span className="font-semibold">Read only:</span> an approved or released plan version was built from this scenario. Copy it into a new scenario to change it.
         </p>
       ) : null}
       {remove.isError ? <ErrorState error={remove.error} title="Not deleted" /> : null}

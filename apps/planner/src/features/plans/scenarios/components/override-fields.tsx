@@ -1,6 +1,6 @@
 import { useFormContext } from 'react-hook-form';
 import type { ScenarioOverride, ScenarioOverrideKind } from '@millrace/contracts';
-import { Input, Select } from '@/components/ui/field';
+import { Select } from '@/components/ui/field';
 import { FormInput, useFieldError, useRegisteredName } from '@/components/ui/form';
 import type { MasterChoices } from '../../api/get-master-choices';
 
@@ -9,7 +9,7 @@ export const overrideKindWords: Record<ScenarioOverrideKind, string> = {
   extra_shift: 'Extra shift on a work center',
   supply_cap: 'Supply cap on a material',
   demand_scale: 'Demand scaled',
-  maintenance: 'Work center down for maintenance',
+  maintenance: 'Work center closed for maintenance',
 };
 
 /** A fresh override of a kind, keeping the weeks already chosen. */
@@ -27,7 +27,21 @@ export function blankOverride(kind: ScenarioOverrideKind, weeks: { fromWeek: str
 }
 
 /** A select bound by name whose empty choice means "not given" (undefined). */
-function CodeSelect({ name, label, options, emptyLabel, optional }: { name: string; label: string; options: { code: string; name: string }[]; emptyLabel: string; optional?: boolean }) {
+function CodeSelect({
+  name,
+  label,
+  options,
+  emptyLabel,
+  optional,
+  showCode = true,
+}: {
+  name: string;
+  label: string;
+  options: { code: string; name: string }[];
+  emptyLabel: string;
+  optional?: boolean;
+  showCode?: boolean;
+}) {
   const { register } = useFormContext();
   useRegisteredName(name);
   const error = useFieldError(name);
@@ -37,29 +51,7 @@ function CodeSelect({ name, label, options, emptyLabel, optional }: { name: stri
       label={label}
       error={error}
       placeholder={emptyLabel}
-      options={options.map((o) => ({ value: o.code, label: `${o.code} ${o.name}` }))}
-    />
-  );
-}
-
-/** A number input bound by name whose empty text means "not given" (undefined). */
-function OptionalNumber({ name, label, hint }: { name: string; label: string; hint: string }) {
-  const { register } = useFormContext();
-  useRegisteredName(name);
-  const error = useFieldError(name);
-  return (
-    <Input
-      {...register(name, {
-        setValueAs: (v: unknown) => {
-          if (v === '' || v == null) return undefined;
-          const n = Number(String(v).replace(',', '.'));
-          return Number.isNaN(n) ? v : n;
-        },
-      })}
-      inputMode="decimal"
-      label={label}
-      hint={hint}
-      error={error}
+      options={options.map((o) => ({ value: o.code, label: showCode ? `${o.code} ${o.name}` : o.name }))}
     />
   );
 }
@@ -96,6 +88,17 @@ export function OverrideFields({ index, kind, choices }: { index: number; kind: 
           <CodeSelect name={at('product')} label="Product" options={choices.products} emptyLabel="Every product" optional />
           {weeks}
           <FormInput name={at('factor')} label="Factor" number="number" hint="0.5 halves demand, 1.2 adds 20 %." />
+          <CodeSelect
+            name={at('demandKind')}
+            label="Which demand"
+            options={[
+              { code: 'firm', name: 'firm orders only' },
+              { code: 'forecast', name: 'forecasts only' },
+            ]}
+            emptyLabel="Firm orders and forecasts"
+            optional
+            showCode={false}
+          />
         </div>
       );
     case 'maintenance':
@@ -103,7 +106,7 @@ export function OverrideFields({ index, kind, choices }: { index: number; kind: 
         <div className="grid grid-cols-4 gap-3">
           <CodeSelect name={at('workCenter')} label="Work center" options={choices.workCenters} emptyLabel="Choose a work center" />
           {weeks}
-          <OptionalNumber name={at('downtimeHours')} label="Hours down a week" hint="Leave empty for closed all week." />
+          <p className="self-center text-sm text-ink-soft">Closed for the whole of each week. Lockout/tagout applies during maintenance.</p>
         </div>
       );
   }

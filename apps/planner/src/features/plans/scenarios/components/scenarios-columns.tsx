@@ -23,6 +23,6 @@ export const scenariosColumns: ColumnDef<Scenario, any>[] = [
     accessorFn: (s) => (s.overrides.length === 0 ? 'none' : s.overrides.map((o) => overrideKindWords[o.kind]).join('; ')),
   },
   { id: 'plans', header: 'Used by plan versions', accessorFn: (s) => (s.usedByPlanIds.length === 0 ? '—' : s.usedByPlanIds.map((id) => `#${id}`).join(', ')) },
-  { id: 'locked', header: 'Editable', accessorFn: (s) => (s.locked ? '🔒 No (an approved plan uses it)' : 'Yes') },
+  { id: 'locked', header: 'Editable', accessorFn: (s) => (s.locked ? 'No (an approved plan uses it)' : 'Yes') },
   { accessorKey: 'updatedAt', header: 'Changed', cell: ({ row }) => formatDateTime(row.original.updatedAt) },
 ];
