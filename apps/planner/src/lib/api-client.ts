@@ -73,14 +73,16 @@ async function toApiError(response: Response): Promise<ApiError> {
 
 async function request<T>(method: Method, path: string, options: RequestOptions = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (options.body !== undefined) headers['Content-Type'] = 'application/json';
+  // A FormData body (file upload) is sent as multipart; the browser sets its boundary.
+  const multipart = typeof FormData !== 'undefined' && options.body instanceof FormData;
+  if (options.body !== undefined && !multipart) headers['Content-Type'] = 'application/json';
   let response: Response;
   try {
     response = await fetch(urlFor(path, options.params), {
       method,
       headers,
       credentials: 'same-origin',
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      body: options.body === undefined ? undefined : multipart ? (options.body as FormData) : JSON.stringify(options.body),
       signal: options.signal,
     });
   } catch (cause) {
@@ -97,7 +99,7 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
   return (text ? JSON.parse(text) : undefined) as T;
 }
 
-/** The one way the planner talks to the API: JSON in and out, session cookie, typed errors. */
+/** The one way the planner talks to the API: JSON (or a multipart upload) in, JSON out, session cookie, typed errors. */
 export const api = {
   get: <T>(path: string, options?: Omit<RequestOptions, 'body'>) => request<T>('GET', path, options),
   post: <T>(path: string, body?: unknown, options?: RequestOptions) => request<T>('POST', path, { ...options, body }),

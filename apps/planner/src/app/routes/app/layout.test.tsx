@@ -10,11 +10,11 @@ afterEach(() => vi.unstubAllGlobals());
 
 /**
  * What each role may open, from DESIGN.md "Who uses it" and API.md "Roles": planners keep master
- * data and demand; supervisors read them; floor leads get their home page only (shift sheets come
+ * data and demand and import spreadsheets; supervisors read them; floor leads get their home page only (shift sheets come
  * with plans); admins run people, plant settings and outgoing mail and read the data.
  */
 const expectedLinks: Record<Role, string[]> = {
-  planner: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Plant settings'],
+  planner: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Imports', 'Plant settings'],
   supervisor: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Plant settings'],
   floor_lead: ['Home'],
   admin: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'People', 'Plant settings', 'Mail'],
