@@ -35,6 +35,8 @@ export interface ImportFieldDef {
   type: ImportFieldType;
   /** must be mapped to a column, and filled on every row */
   required: boolean;
+  /** needed on rows that create a new record (a file that only updates may leave it out) */
+  requiredToCreate?: boolean;
   /** other header texts that mean this field (compared without case, spaces or punctuation) */
   synonyms: readonly string[];
   /** allowed values of a `choice` field */
@@ -49,14 +51,16 @@ const f = (key: string, label: string, type: ImportFieldType, required: boolean,
   synonyms,
   ...(choices ? { choices } : {}),
 });
+/** A field of coded records (products, materials, work centers) needed only to create one. */
+const toCreate = (field: ImportFieldDef): ImportFieldDef => ({ ...field, required: false, requiredToCreate: true });
 
 /** The fields of each kind, in the column order of our exports. */
 export const importFields: Record<ImportKind, readonly ImportFieldDef[]> = {
   products: [
     f('code', 'code', 'code', true, ['product', 'product code', 'item', 'item code', 'part', 'part number', 'part no', 'sku', 'article', 'artikel', 'artikelnummer']),
-    f('name', 'name', 'text', true, ['description', 'product name', 'item name', 'bezeichnung', 'designation']),
-    f('unit', 'unit', 'text', true, ['uom', 'unit of measure', 'einheit']),
-    f('kind', 'kind', 'choice', true, ['type', 'product type', 'product kind'], ['finished', 'subassembly']),
+    toCreate(f('name', 'name', 'text', true, ['description', 'product name', 'item name', 'bezeichnung', 'designation'])),
+    toCreate(f('unit', 'unit', 'text', true, ['uom', 'unit of measure', 'einheit'])),
+    toCreate(f('kind', 'kind', 'choice', true, ['type', 'product type', 'product kind'], ['finished', 'subassembly'])),
     f('price', 'price', 'number', false, ['selling price', 'sales price', 'unit price', 'preis']),
     f('holdingCostRatePct', 'holding cost %', 'number', false, ['holding cost rate', 'holding cost rate pct', 'carrying cost %', 'holding %']),
     f('safetyStock', 'safety stock', 'number', false, ['safety', 'buffer stock', 'sicherheitsbestand']),
@@ -68,19 +72,19 @@ export const importFields: Record<ImportKind, readonly ImportFieldDef[]> = {
   ],
   'work-centers': [
     f('code', 'code', 'code', true, ['work center', 'work centre', 'work center code', 'resource', 'machine', 'arbeitsplatz']),
-    f('name', 'name', 'text', true, ['description', 'work center name', 'bezeichnung']),
+    toCreate(f('name', 'name', 'text', true, ['description', 'work center name', 'bezeichnung'])),
     f('efficiency', 'efficiency', 'number', false, ['eff', 'oee', 'utilisation', 'utilization']),
     f('overtimeCapHoursPerWeek', 'overtime cap hours per week', 'number', false, ['overtime cap', 'max overtime', 'overtime hours']),
     f('overtimeCostPerHour', 'overtime cost per hour', 'number', false, ['overtime cost', 'overtime rate']),
-    f('shiftsPerDay', 'shifts per day', 'integer', true, ['shifts']),
-    f('hoursPerShift', 'hours per shift', 'number', true, ['shift hours', 'shift length']),
-    f('daysPerWeek', 'days per week', 'integer', true, ['days', 'working days']),
-    f('shiftStarts', 'shift starts', 'text', true, ['shift start', 'start times', 'starts']),
+    toCreate(f('shiftsPerDay', 'shifts per day', 'integer', true, ['shifts'])),
+    toCreate(f('hoursPerShift', 'hours per shift', 'number', true, ['shift hours', 'shift length'])),
+    toCreate(f('daysPerWeek', 'days per week', 'integer', true, ['days', 'working days'])),
+    toCreate(f('shiftStarts', 'shift starts', 'text', true, ['shift start', 'start times', 'starts'])),
   ],
   materials: [
     f('code', 'code', 'code', true, ['material', 'material code', 'item', 'item code', 'part', 'part number', 'sku', 'material number']),
-    f('name', 'name', 'text', true, ['description', 'material name', 'bezeichnung']),
-    f('unit', 'unit', 'text', true, ['uom', 'unit of measure', 'einheit']),
+    toCreate(f('name', 'name', 'text', true, ['description', 'material name', 'bezeichnung'])),
+    toCreate(f('unit', 'unit', 'text', true, ['uom', 'unit of measure', 'einheit'])),
     f('unitCost', 'unit cost', 'number', false, ['cost', 'price', 'purchase price', 'standard cost']),
     f('onHand', 'on hand', 'number', false, ['stock', 'on hand qty', 'inventory', 'quantity on hand', 'bestand']),
     f('leadTimeWeeks', 'lead time weeks', 'integer', false, ['lead time', 'lead time (weeks)', 'lt', 'lt weeks', 'wiederbeschaffungszeit']),

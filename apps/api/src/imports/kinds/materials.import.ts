@@ -24,5 +24,5 @@ export const materialsImport = recordKind<MaterialCreate>(
     remove: (db, id) => deleteMaterialRow(db, id),
     nullable: ['weeklySupplyCap', 'lotSize'],
   },
-  keys,
+  importFields.materials,
 );

@@ -24,5 +24,5 @@ export const productsImport = recordKind<ProductCreate>(
     remove: (db, id) => deleteProductRow(db, id),
     nullable: ['family'],
   },
-  keys,
+  importFields.products,
 );

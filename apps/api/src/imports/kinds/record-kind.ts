@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import type { z } from 'zod';
-import type { ImportKind } from '@millrace/contracts';
+import type { ImportFieldDef, ImportKind } from '@millrace/contracts';
 import { isDuplicateKey } from '../../master-data/duplicate-key';
 import type { VersionedWrite } from '../../master-data/versioned-update';
 import { addError, hasErrors, type FieldValue, type ImportRow } from '../import-row';
@@ -83,7 +83,9 @@ type Entry = CreatedEntry | UpdatedEntry;
  * a new code creates one. Rows are checked with the contract's create schema on the merged
  * values, so an import obeys exactly the rules of the editor.
  */
-export function recordKind<Input>(config: RecordKindConfig<Input>, fieldKeys: readonly string[]): ImportKindHandler {
+export function recordKind<Input>(config: RecordKindConfig<Input>, fields: readonly ImportFieldDef[]): ImportKindHandler {
+  const fieldKeys = fields.map((f) => f.key);
+  const neededToCreate = fields.filter((f) => f.requiredToCreate);
   return {
     kind: config.kind,
     async check(db, rows) {
@@ -106,6 +108,10 @@ export function recordKind<Input>(config: RecordKindConfig<Input>, fieldKeys: re
         const fileValues: Flat = { ...row.data };
         for (const key of config.nullable) if (key in row.values && !(key in row.data)) fileValues[key] = null;
         if (record) fileValues.code = record.code; // codes compare without case, as the database does
+        else {
+          for (const f of neededToCreate) if (fileValues[f.key] === undefined) addError(row, f.key, `Enter the ${f.label} to create the new ${config.what} ${code}.`);
+          if (hasErrors(row)) continue;
+        }
         const parsed = config.schema.safeParse(config.toInput(record ? { ...record.flat, ...fileValues } : fileValues));
         if (!parsed.success) {
           addIssues(row, parsed.error.issues, fieldKeys, 'code');

@@ -52,5 +52,5 @@ export const workCentersImport = recordKind<WorkCenterCreate>(
     remove: (db, id) => deleteWorkCenterRow(db, id),
     nullable: ['overtimeCapHoursPerWeek'],
   },
-  keys,
+  importFields['work-centers'],
 );
