@@ -5,7 +5,7 @@
  * iterations, because the thread's event loop is busy while it solves.
  */
 import { parentPort } from 'node:worker_threads';
-import type { WorkerMessage, WorkerTaskMessage } from './worker-protocol';
+import type { WorkerMessage, WorkerTaskMessage, WorkerWarmMessage } from './worker-protocol';
 
 const progressIntervalMs = 100;
 
@@ -36,7 +36,11 @@ async function run({ taskId, task, stopFlag }: WorkerTaskMessage): Promise<void>
   }
 }
 
+async function warm({ warm: kind }: WorkerWarmMessage): Promise<void> {
+  await (kind === 'solve' ? import('./compute-plan') : import('./cross-check-plan'));
+}
+
 let queue = Promise.resolve();
-parentPort!.on('message', (m: WorkerTaskMessage) => {
-  queue = queue.then(() => run(m));
+parentPort!.on('message', (m: WorkerTaskMessage | WorkerWarmMessage) => {
+  queue = queue.then(() => ('warm' in m ? warm(m) : run(m))).catch(() => {});
 });

@@ -50,6 +50,7 @@ export class SolverJobRunner {
   }
 
   start(): void {
+    for (const kind of ['solve', 'cross_check'] as const) this.threads[kind].warm(kind);
     for (const lane of this.lanes) lane.start();
   }
 

@@ -4,7 +4,7 @@ import { dirname, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { ComputeProgress } from './compute-plan';
-import type { WorkerMessage, WorkerTask, WorkerTaskMessage } from './worker-protocol';
+import type { WorkerMessage, WorkerTask, WorkerTaskMessage, WorkerWarmMessage } from './worker-protocol';
 
 /** How long a task gets to stop by itself after its stop flag is set before the thread is terminated (ms). */
 const stopGraceMs = 5_000;
@@ -65,6 +65,12 @@ export class SolverThread {
         }, stopGraceMs);
       },
     };
+  }
+
+  /** Starts the thread and loads the solvers of `kind` now, so the first job does not wait for them. */
+  warm(kind: WorkerTask['kind']): void {
+    const message: WorkerWarmMessage = { warm: kind };
+    this.ensureWorker().postMessage(message);
   }
 
   async close(): Promise<void> {

@@ -14,6 +14,11 @@ export interface WorkerTaskMessage {
   stopFlag: SharedArrayBuffer;
 }
 
+/** Asks an idle thread to load the solvers of one kind of task ahead of the first job. */
+export interface WorkerWarmMessage {
+  warm: WorkerTask['kind'];
+}
+
 /** Messages from the worker thread back to the job runner, tagged with the task they belong to. */
 export type WorkerMessage = { taskId: number } & (
   | { type: 'progress'; progress: ComputeProgress }
