@@ -54,7 +54,7 @@ function ScenarioBody({ readOnly }: { readOnly: boolean }) {
   return (
     <>
       <FormInput name="name" label="Name" />
-      <FormInput name="description" label="Description" optional />
+      <FormInput name="description" label="Description" />
       {choices.isPending ? <Loading label="Loading work centers, materials and products…" /> : null}
       {choices.isError ? <ErrorState error={choices.error} onRetry={() => void choices.refetch()} /> : null}
       {choices.data ? <OverridesEditor choices={choices.data} readOnly={readOnly} /> : null}
