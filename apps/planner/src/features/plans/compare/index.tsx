@@ -39,9 +39,13 @@ function Comparison({ c }: { c: PlanComparison }) {
   const cur = c.a.currency;
   const totals: [string, { a: number; b: number; delta: number }, 'up' | 'down', (v: number) => string][] = [
     ['Margin', c.margin, 'up', (v) => formatMoney(v, cur)],
+    ['Revenue', c.revenue, 'up', (v) => formatMoney(v, cur)],
+    ['Material spend', c.materialSpend, 'down', (v) => formatMoney(v, cur)],
     ['Overtime hours', c.overtimeHours, 'down', formatNumber],
     ['Overtime cost', c.overtimeCost, 'down', (v) => formatMoney(v, cur)],
-    ['Material spend', c.materialSpend, 'down', (v) => formatMoney(v, cur)],
+    ['Holding cost', c.holdingCost, 'down', (v) => formatMoney(v, cur)],
+    ['Late penalties', c.latePenalties, 'down', (v) => formatMoney(v, cur)],
+    ['Firm orders short', c.unmetOrderCount, 'down', formatNumber],
     ['Units short on firm orders', c.unmetQty, 'down', formatNumber],
   ];
   return (
@@ -87,7 +91,7 @@ function Comparison({ c }: { c: PlanComparison }) {
         <caption className="mb-1 text-left font-semibold">Load per work center over the horizon</caption>
         <thead className="bg-race-50">
           <tr>
-            {['Work center', 'Load A (h)', 'Load B (h)', 'Change', 'Overtime A (h)', 'Overtime B (h)', 'Change', 'Peak % A', 'Peak % B'].map((h, i) => (
+            {['Work center', 'Load A (h)', 'Load B (h)', 'Change', 'Overtime A (h)', 'Overtime B (h)', 'Change', 'Peak % A', 'Peak % B', 'Binding weeks A', 'Binding weeks B'].map((h, i) => (
               <th key={`${h}${i}`} scope="col" className={`${cell} ${i === 0 ? 'text-left' : 'text-right'}`}>
                 {h}
               </th>
@@ -115,34 +119,100 @@ function Comparison({ c }: { c: PlanComparison }) {
                 </td>
                 <td className={`${cell} text-right tabular-nums`}>{w.peakPercent.a === null ? '—' : `${formatNumber(w.peakPercent.a)} %`}</td>
                 <td className={`${cell} text-right tabular-nums`}>{w.peakPercent.b === null ? '—' : `${formatNumber(w.peakPercent.b)} %`}</td>
+                <td className={`${cell} text-right tabular-nums`}>{w.bindingWeeks.a.length === 0 ? '—' : w.bindingWeeks.a.join(', ')}</td>
+                <td className={`${cell} text-right tabular-nums`}>{w.bindingWeeks.b.length === 0 ? '—' : w.bindingWeeks.b.join(', ')}</td>
               </tr>
             );
           })}
         </tbody>
       </table>
-      <div className="grid grid-cols-2 gap-3 text-sm">
-        {(['a', 'b'] as const).map((side) => (
-          <section key={side} aria-label={`Unmet orders of ${side.toUpperCase()}`} className="rounded border border-line bg-panel p-3">
-            <h2 className="font-semibold">
-              Unmet firm orders of {side.toUpperCase()} ({c.unmet[side].length})
-            </h2>
-            {c.unmet[side].length === 0 ? (
-              <p className="text-ink-soft">None.</p>
-            ) : (
-              <details open={c.unmet[side].length <= 5}>
-                <summary className="cursor-pointer font-semibold text-race-700">
-                  {c.unmet[side].length} orders, {formatNumber(c.unmet[side].reduce((t, o) => t + o.qtyShort, 0))} units short
-                </summary>
-                <ul className="mt-1 list-disc pl-5">
-                  {c.unmet[side].map((o) => (
-                    <li key={`${o.orderRef}-${o.week}`}>{o.message}</li>
+      <section aria-labelledby="orders-heading" className="flex flex-col gap-1">
+        <h2 id="orders-heading" className="font-semibold">
+          Firm orders short in either version ({c.unmetOrders.length})
+        </h2>
+        {c.unmetOrders.length === 0 ? (
+          <p className="text-sm text-ink-soft">Every firm order ships in full on time in both versions.</p>
+        ) : (
+          <div className="max-h-96 overflow-auto rounded border border-line">
+            <table className="w-full border-collapse bg-panel text-sm">
+              <caption className="sr-only">Shortfall per firm order in A and B</caption>
+              <thead className="sticky top-0 bg-race-50">
+                <tr>
+                  {['Order', 'Product', 'Week', 'Short in A', 'Short in B', 'Change'].map((h, i) => (
+                    <th key={h} scope="col" className={`${cell} ${i < 2 ? 'text-left' : 'text-right'}`}>
+                      {h}
+                    </th>
                   ))}
-                </ul>
-              </details>
-            )}
-          </section>
-        ))}
-      </div>
+                </tr>
+              </thead>
+              <tbody>
+                {c.unmetOrders.map((o) => (
+                  <tr key={`${o.orderRef}-${o.product}-${o.week}`} className={Math.abs(o.shortB - o.shortA) > 1e-9 ? 'bg-over-50' : ''}>
+                    <th scope="row" className={`${cell} text-left`}>
+                      {o.orderRef}
+                    </th>
+                    <td className={cell}>{o.product}</td>
+                    <td className={`${cell} text-right tabular-nums`}>{o.week}</td>
+                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(o.shortA)}</td>
+                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(o.shortB)}</td>
+                    <td className={`${cell} text-right`}>
+                      <Delta value={o.shortB - o.shortA} better="down" />
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </section>
+      <section aria-labelledby="quantities-heading" className="flex flex-col gap-1">
+        <h2 id="quantities-heading" className="font-semibold">
+          Quantities that differ ({c.quantityDifferences.length} product-weeks)
+        </h2>
+        {c.quantityDifferences.length === 0 ? (
+          <p className="text-sm text-ink-soft">Both versions make, ship and carry late the same quantities.</p>
+        ) : (
+          <div className="max-h-96 overflow-auto rounded border border-line">
+            <table className="w-full border-collapse bg-panel text-sm">
+              <caption className="sr-only">Make, ship and late quantities that differ between A and B</caption>
+              <thead className="sticky top-0 bg-race-50">
+                <tr>
+                  {['Product', 'Week', 'Make A', 'Make B', 'Change', 'Ship A', 'Ship B', 'Change', 'Late A', 'Late B', 'Change'].map((h, i) => (
+                    <th key={`${h}${i}`} scope="col" className={`${cell} ${i === 0 ? 'text-left' : 'text-right'}`}>
+                      {h}
+                    </th>
+                  ))}
+                </tr>
+              </thead>
+              <tbody>
+                {c.quantityDifferences.map((q) => (
+                  <tr key={`${q.product}-${q.week}`}>
+                    <th scope="row" className={`${cell} text-left`}>
+                      {q.product}
+                    </th>
+                    <td className={`${cell} text-right tabular-nums`}>{q.week}</td>
+                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.makeA)}</td>
+                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.makeB)}</td>
+                    <td className={`${cell} text-right`}>
+                      <Delta value={q.makeB - q.makeA} />
+                    </td>
+                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.shipA)}</td>
+                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.shipB)}</td>
+                    <td className={`${cell} text-right`}>
+                      <Delta value={q.shipB - q.shipA} better="up" />
+                    </td>
+                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.lateA)}</td>
+                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.lateB)}</td>
+                    <td className={`${cell} text-right`}>
+                      <Delta value={q.lateB - q.lateA} better="down" />
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </section>
     </div>
   );
 }
