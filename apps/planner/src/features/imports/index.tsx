@@ -14,6 +14,7 @@ import { useUndoImport } from './api/undo-import';
 import { ImportHistory } from './components/import-history';
 import { importKindLabels } from './components/import-kinds';
 import { ImportPreview } from './components/import-preview';
+import { PlanExports } from './components/plan-exports';
 
 type Notice = { kind: 'done' | 'failed'; text: string } | null;
 
@@ -41,18 +42,21 @@ export function ImportsPage({ canImport }: { canImport: boolean }) {
   const undo = useUndoImport();
   const runs = useImportRuns();
 
-  const runCheck = (mapping?: ImportMapping) => {
+  const runCheck = (mapping?: ImportMapping, where?: { sheet?: string; headerRow?: number }) => {
     if (!file) return;
     setNotice(null);
+    // A new sheet or header row starts the mapping over; a new mapping keeps sheet and header row.
+    const sheet = where ? where.sheet : (preview?.sheet ?? undefined);
+    const headerRow = where ? where.headerRow : preview?.headerRow;
     check.mutate(
-      { kind, file, mapping, sheet: preview?.sheet ?? undefined },
+      { kind, file, mapping, sheet, headerRow },
       { onSuccess: setPreview, onError: (e) => setNotice({ kind: 'failed', text: failure(e) }) },
     );
   };
   const runApply = (mapping: ImportMapping) => {
     if (!file) return;
     apply.mutate(
-      { kind, file, mapping, sheet: preview?.sheet ?? undefined },
+      { kind, file, mapping, sheet: preview?.sheet ?? undefined, headerRow: preview?.headerRow },
       {
         onSuccess: ({ summary }) => {
           setPreview(null);
@@ -146,10 +150,13 @@ export function ImportsPage({ canImport }: { canImport: boolean }) {
             preview={preview}
             busy={check.isPending ? 'checking' : apply.isPending ? 'applying' : null}
             onCheckAgain={runCheck}
+            onReread={(where) => runCheck(undefined, where)}
             onApply={runApply}
           />
         </div>
       ) : null}
+
+      <PlanExports />
 
       <section aria-labelledby="history-heading">
         <h2 id="history-heading" className="mb-2 text-lg font-semibold">

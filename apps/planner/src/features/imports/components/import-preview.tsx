@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { importFields, type ImportMapping, type ImportPreview as Preview } from '@millrace/contracts';
 import { Button } from '@/components/ui/button';
+import { useSaveMapping } from '../api/save-mapping';
 
 /** Rows drawn in the preview; the counts above cover every row. */
 const maxRowsShown = 300;
@@ -11,13 +12,17 @@ export function ImportPreview({
   preview,
   busy,
   onCheckAgain,
+  onReread,
   onApply,
 }: {
   preview: Preview;
   busy: 'checking' | 'applying' | null;
   onCheckAgain: (mapping: ImportMapping) => void;
+  /** reads the file again from another sheet or header row (the mapping starts over) */
+  onReread: (where: { sheet?: string; headerRow?: number }) => void;
   onApply: (mapping: ImportMapping) => void;
 }) {
+  const saveMapping = useSaveMapping();
   const fields = importFields[preview.kind];
   const [mapping, setMapping] = useState<ImportMapping>(preview.mapping);
   const [onlyProblems, setOnlyProblems] = useState(preview.counts.errorRows > 0);
@@ -33,6 +38,41 @@ export function ImportPreview({
         {preview.fileName}
         {preview.sheet ? `, sheet “${preview.sheet}”` : ''}: {preview.counts.rows} rows
       </h2>
+
+      <div className="flex flex-wrap items-end gap-4 text-sm">
+        {preview.sheets.length > 1 ? (
+          <label className="flex flex-col gap-1 font-semibold">
+            Sheet
+            <select
+              value={preview.sheet ?? ''}
+              onChange={(e) => onReread({ sheet: e.target.value })}
+              className="rounded border border-line bg-panel px-2 py-1 font-normal"
+            >
+              {preview.sheets.map((name) => (
+                <option key={name} value={name}>
+                  {name}
+                </option>
+              ))}
+            </select>
+          </label>
+        ) : null}
+        <label className="flex flex-col gap-1 font-semibold">
+          Header on row
+          <input
+            type="number"
+            min={1}
+            defaultValue={preview.headerRow}
+            onBlur={(e) => {
+              const row = Number(e.target.value);
+              if (Number.isInteger(row) && row >= 1 && row !== preview.headerRow) onReread({ sheet: preview.sheet ?? undefined, headerRow: row });
+            }}
+            className="w-24 rounded border border-line bg-panel px-2 py-1 font-normal"
+          />
+        </label>
+        <span className="text-ink-soft">
+          {preview.format === 'csv' ? `CSV, fields split by ${preview.delimiter === ';' ? 'semicolons' : preview.delimiter === '\t' ? 'tabs' : 'commas'}.` : 'XLSX workbook.'}
+        </span>
+      </div>
 
       {preview.fileErrors.length > 0 ? (
         <div role="alert" className="rounded border border-fault-700 bg-fault-50 p-3">
@@ -79,7 +119,21 @@ export function ImportPreview({
           <Button size="sm" variant="quiet" onClick={() => setMapping(preview.suggestedMapping)}>
             Use the suggested mapping
           </Button>
+          <Button size="sm" busy={saveMapping.isPending} busyLabel="Saving…" onClick={() => saveMapping.mutate({ kind: preview.kind, mapping })}>
+            Keep this mapping for the next {preview.kind} file
+          </Button>
         </div>
+        {saveMapping.isSuccess ? (
+          <p role="status" className="mt-2 text-sm">
+            <span aria-hidden="true">✓ </span>Mapping kept: the next file of this kind starts from it.
+          </p>
+        ) : null}
+        {saveMapping.isError ? (
+          <p role="alert" className="mt-2 text-sm text-fault-700">
+            <span aria-hidden="true">✕ </span>
+            {saveMapping.error.message}
+          </p>
+        ) : null}
       </fieldset>
 
       <p role="status" className="font-semibold">
