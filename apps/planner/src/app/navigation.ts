@@ -15,6 +15,7 @@ export const navItems: readonly NavItem[] = [
   { label: 'Materials', href: paths.materials.getHref(), roles: rolesWith('read:master-data') },
   { label: 'Demand', href: paths.demand.getHref(), roles: rolesWith('read:demand') },
   { label: 'Plans', href: paths.plans.getHref(), roles: rolesWith('read:plans') },
+  { label: 'Shift sheets', href: paths.shiftSheets.getHref(), roles: rolesWith('read:shift-sheets') },
   { label: 'Imports', href: paths.imports.getHref(), roles: rolesWith('write:master-data') },
   { label: 'People', href: paths.people.getHref(), roles: rolesWith('manage:people') },
   { label: 'Plant settings', href: paths.settings.getHref(), roles: rolesWith('read:settings') },

@@ -36,12 +36,32 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
       ? { index: true, handle: { roles, title } satisfies RouteHandle, lazy: lazyRoute(queryClient, load) }
       : { path, handle: { roles, title } satisfies RouteHandle, lazy: lazyRoute(queryClient, load) };
 
+  const signedIn = async ({ request }: LoaderFunctionArgs) => {
+    try {
+      return await queryClient.ensureQueryData(meQueryOptions());
+    } catch (error) {
+      if (isApiError(error) && error.status === 401) {
+        const url = new URL(request.url);
+        throw redirect(paths.signIn.getHref(url.pathname + url.search));
+      }
+      throw error;
+    }
+  };
+
   return [
     {
       path: paths.signIn.path,
       errorElement: <RouteError />,
       hydrateFallbackElement: <Loading label="Opening Millrace…" />,
       lazy: lazyRoute(queryClient, () => import('./routes/sign-in')),
+    },
+    {
+      // Paper: no navigation around it. Signed in like every page (the loader below).
+      path: paths.printShiftSheets.path,
+      errorElement: <RouteError />,
+      hydrateFallbackElement: <Loading label="Preparing the sheets…" />,
+      loader: signedIn,
+      lazy: lazyRoute(queryClient, () => import('./routes/print-shift-sheets')),
     },
     {
       path: paths.home.path,
@@ -84,6 +104,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
         page(paths.scenarios.path, rolesWith('read:plans'), 'Scenarios', () => import('./routes/app/scenarios')),
         page(paths.scenarioNew.path, rolesWith('write:plans'), 'New scenario', () => import('./routes/app/scenario-new')),
         page(paths.scenario.path, rolesWith('read:plans'), 'Scenario', () => import('./routes/app/scenario')),
+        page(paths.shiftSheets.path, rolesWith('read:shift-sheets'), 'Shift sheets', () => import('./routes/app/shift-sheets')),
         page('*', allRoles, 'Not found', () => import('./routes/app/not-found')),
       ],
     },

@@ -34,6 +34,22 @@ export const paths = {
   scenarios: { path: '/scenarios', getHref: () => '/scenarios' },
   scenarioNew: { path: '/scenarios/new', getHref: () => '/scenarios/new' },
   scenario: { path: '/scenarios/:scenarioId', getHref: (id: number | string) => `/scenarios/${id}` },
+  shiftSheets: {
+    path: '/shift-sheets',
+    getHref: (plan?: number, week?: string, workCenter?: string) => withQuery('/shift-sheets', { plan, week, workCenter }),
+  },
+  /** The sheets laid out for paper (outside the app shell); also what the API prints to PDF. */
+  printShiftSheets: {
+    path: '/print/shift-sheets/:planId',
+    getHref: (planId: number, week: string, workCenter?: string, paper?: 'a4' | 'letter') => withQuery(`/print/shift-sheets/${planId}`, { week, workCenter, paper }),
+  },
 } as const;
+
+function withQuery(path: string, params: Record<string, string | number | undefined>): string {
+  const q = new URLSearchParams();
+  for (const [k, v] of Object.entries(params)) if (v !== undefined && v !== '') q.set(k, String(v));
+  const text = q.toString();
+  return text ? `${path}?${text}` : path;
+}
 
 export type PathId = keyof typeof paths;

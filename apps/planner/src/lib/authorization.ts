@@ -15,7 +15,8 @@ export type Permission =
   | 'write:demand'
   | 'read:plans'
   | 'write:plans'
-  | 'review:plans';
+  | 'review:plans'
+  | 'read:shift-sheets';
 
 const policy: Record<Permission, readonly Role[]> = {
   'read:master-data': ['admin', 'planner', 'supervisor'],
@@ -30,6 +31,8 @@ const policy: Record<Permission, readonly Role[]> = {
   'read:plans': ['admin', 'planner', 'supervisor'],
   'write:plans': ['planner'],
   'review:plans': ['supervisor'],
+  // Shift sheets (apps/api/src/shift-sheets): floor leads see released plans only.
+  'read:shift-sheets': ['admin', 'planner', 'supervisor', 'floor_lead'],
 };
 
 export function can(role: Role | undefined, permission: Permission): boolean {

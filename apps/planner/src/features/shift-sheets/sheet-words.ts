@@ -1,0 +1,32 @@
+import type { PlanState } from '@millrace/contracts';
+
+/** "2027-01-04T07:30" → "07:30" */
+export const clockOf = (wallClock: string): string => wallClock.slice(11, 16);
+
+/** Minutes → "7 h 30 min" / "45 min" / "8 h". */
+export function formatMinutes(minutes: number): string {
+  const m = Math.round(minutes);
+  const h = Math.floor(m / 60);
+  const rest = m - h * 60;
+  if (h === 0) return `${rest} min`;
+  return rest === 0 ? `${h} h` : `${h} h ${rest} min`;
+}
+
+const quantityFormat = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 2 });
+export const formatQuantity = (q: number): string => quantityFormat.format(q);
+
+const dayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+const shortDayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
+/** "2027-01-04" → "Monday 4 January 2027" */
+export const formatDay = (isoDate: string): string => dayFormat.format(new Date(`${isoDate}T00:00:00Z`));
+/** "2027-01-04" → "Mon 4 Jan" */
+export const formatShortDay = (isoDate: string): string => shortDayFormat.format(new Date(`${isoDate}T00:00:00Z`));
+
+const stampFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
+/** An ISO instant in the reader's local time: "4 Jan 2027, 09:12". */
+export const formatStamp = (iso: string | Date): string => stampFormat.format(typeof iso === 'string' ? new Date(iso) : iso);
+
+export const sheetPlanStateWords: Partial<Record<PlanState, string>> = { approved: 'Approved, not yet released', released: 'Released to the floor' };
+
+/** "Shift 1" with its clock times. */
+export const shiftLabel = (shift: number, start: string, end: string): string => `Shift ${shift}, ${clockOf(start)}–${clockOf(end)}`;
