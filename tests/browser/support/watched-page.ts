@@ -44,7 +44,7 @@ export class WatchedPage {
     page.on('pageerror', (err) => w.problems.push(`page error: ${err.message}`));
     page.on('requestfailed', (req) => {
       // A file the browser saves as a download ends its navigation request as aborted.
-      if (req.failure()?.errorText === 'net::ERR_ABORTED' && /\.(mps|csv)$/.test(new URL(req.url()).pathname)) return;
+      if (req.failure()?.errorText === 'net::ERR_ABORTED' && /\.(mps|csv|pdf)$/.test(new URL(req.url()).pathname)) return;
       w.problems.push(`request failed: ${req.method()} ${req.url()} ${req.failure()?.errorText ?? ''}`);
     });
     page.on('response', (res) => {
