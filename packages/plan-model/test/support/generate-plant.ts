@@ -18,6 +18,8 @@ export interface PlantSize {
   workCenters: number;
   materials: number;
   weeks: number;
+  /** regular hours needed to meet all demand ÷ regular hours available (default 1.2: some rows bind) */
+  loadFactor?: number;
 }
 
 /**
@@ -91,8 +93,8 @@ export function generatePlant(seed: number, size: PlantSize): PlanningData {
     latePenalty: int(5, 30),
     family: `F${int(1, 3)}`,
   }));
-  // about 1.2 × the regular hours of the plant are needed to meet all demand, so some rows bind
-  const hoursScale = (0.55 * 1.2 * size.workCenters) / size.finished;
+  // about loadFactor × the regular hours of the plant are needed to meet all demand
+  const hoursScale = (0.55 * (size.loadFactor ?? 1.2) * size.workCenters) / size.finished;
   const bom: BomLine[] = [];
   const routings: RoutingStep[] = [];
   const addMaterials = (parent: string) => {
