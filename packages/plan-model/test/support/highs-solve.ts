@@ -55,7 +55,7 @@ export async function solveWithHighsRef(problem: Problem): Promise<SolveResult> 
       if (ray) {
         result.ray = {
           kind: 'primal_infeasible',
-          entries: Array.from(ray as ArrayLike<number>)
+          entries: Array.from((ray as { values: Float64Array }).values)
             .map((value, i) => ({ name: problem.rowNames[i], value }))
             .filter((e) => Math.abs(e.value) > 1e-9),
         };
