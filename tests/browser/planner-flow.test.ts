@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readBrowserEnv } from './support/browser-env';
 import { demoPeople, signIn } from './support/sign-in';
 import { startTestServer, type TestServer } from './support/test-server';
-import { launchBrowser, WatchedPage } from './support/watched-page';
+import { clearScreenshots, launchBrowser, WatchedPage } from './support/watched-page';
 
 /**
  * Issue 5's browser flows on the real server with the demo plant: a planner edits a work
@@ -16,6 +16,7 @@ let server: TestServer;
 let browser: Browser;
 
 beforeAll(async () => {
+  clearScreenshots(suite);
   const env = readBrowserEnv();
   server = await startTestServer(env);
   browser = await launchBrowser(env.chromiumPath);

@@ -4,7 +4,7 @@ import { readBrowserEnv, type BrowserEnv } from './support/browser-env';
 import { waitForMail } from './support/mail-catcher';
 import { demoPeople, signIn } from './support/sign-in';
 import { startTestServer, type TestServer } from './support/test-server';
-import { launchBrowser, WatchedPage } from './support/watched-page';
+import { clearScreenshots, launchBrowser, WatchedPage } from './support/watched-page';
 
 /**
  * Issue 6's browser flow on the real server: the planner solves and submits a plan version,
@@ -17,6 +17,7 @@ let server: TestServer;
 let browser: Browser;
 
 beforeAll(async () => {
+  clearScreenshots(suite);
   env = readBrowserEnv();
   server = await startTestServer(env);
   browser = await launchBrowser(env.chromiumPath);

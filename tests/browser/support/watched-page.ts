@@ -1,4 +1,4 @@
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, rmSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { repoRoot } from './browser-env';
@@ -12,6 +12,11 @@ export function launchBrowser(executablePath: string): Promise<Browser> {
 
 /** Where screenshots go (git-ignored). */
 export const screenshotRoot = resolve(repoRoot, '.millrace/screenshots');
+
+/** Empties a suite's screenshot folder, so only this run's steps are there to look at. */
+export function clearScreenshots(suite: string): void {
+  rmSync(resolve(screenshotRoot, suite), { recursive: true, force: true });
+}
 
 /**
  * A browser page that records every console error, page error, failed request and error
