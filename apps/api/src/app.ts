@@ -22,6 +22,8 @@ import { scenariosRouter } from './scenarios/scenarios.router';
 import { signOffRouter } from './sign-off/sign-off.router';
 import { outboxRouter } from './mail/outbox.router';
 import { invitationsRouter } from './invitations/invitations.router';
+import { importsRouter } from './imports/imports.router';
+import { exportsRouter } from './exports/exports.router';
 import { shiftSheetsRouter } from './shift-sheets/shift-sheets.router';
 
 /** Largest JSON body accepted (bigger → 413 payload_too_large). */
@@ -32,7 +34,7 @@ export const jsonBodyLimit = '1mb';
  * `allow(...)` or `open()` first on each route (the route-matrix test enforces it).
  * Areas append their router factory here.
  */
-const areaRouters: Array<(ctx: ApiContext) => Router> = [authRouter, peopleRouter, settingsRouter, productsRouter, workCentersRouter, materialsRouter, demandRouter, homeRouter, plansRouter, signOffRouter, scenariosRouter, outboxRouter, invitationsRouter, shiftSheetsRouter];
+const areaRouters: Array<(ctx: ApiContext) => Router> = [authRouter, peopleRouter, settingsRouter, productsRouter, workCentersRouter, materialsRouter, demandRouter, homeRouter, plansRouter, signOffRouter, scenariosRouter, outboxRouter, invitationsRouter, importsRouter, exportsRouter, shiftSheetsRouter];
 
 /** Builds the Express app (no listen): health, DB gate, CSRF, JSON, sessions, areas, 404, errors. */
 export function createApp(ctx: AppContext): Express {

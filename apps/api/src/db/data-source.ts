@@ -13,15 +13,18 @@ import { SolveJobEntity } from './entities/solve-job.entity';
 import { PlanAuditEntity } from './entities/plan-audit.entity';
 import { OutboxMessageEntity } from './entities/outbox-message.entity';
 import { PlansAndSignOff1764720000000 } from './migrations/1764720000000-plans-and-sign-off';
+import { ImportRunEntity } from './entities/import-run.entity';
+import { ImportMappingEntity } from './entities/import-mapping.entity';
+import { Imports1764806400000 } from './migrations/1764806400000-imports';
 import { PlanVersionPlan1764723600000 } from './migrations/1764723600000-plan-version-plan';
 import { PersonTokens1764727200000 } from './migrations/1764727200000-person-tokens';
 import { PersonTokenEntity } from './entities/person-token.entity';
 
 /** Every entity (EntitySchema objects, no decorators). Areas append theirs here. */
-export const entities: EntitySchema<any>[] = [PersonEntity, SessionEntity, SignInAttemptEntity, PlanVersionEntity, ScenarioEntity, SolveJobEntity, PlanAuditEntity, OutboxMessageEntity, PersonTokenEntity, ...masterDataEntities];
+export const entities: EntitySchema<any>[] = [PersonEntity, SessionEntity, SignInAttemptEntity, PlanVersionEntity, ScenarioEntity, SolveJobEntity, PlanAuditEntity, OutboxMessageEntity, PersonTokenEntity, ...masterDataEntities, ImportRunEntity, ImportMappingEntity];
 
 /** Every migration, in order. Areas append theirs here (timestamps keep the order). */
-export const migrations: MixedList<Function> = [PeopleAndSessions1764633600000, MasterData1764637200000, PlansAndSignOff1764720000000, PlanVersionPlan1764723600000, PersonTokens1764727200000];
+export const migrations: MixedList<Function> = [PeopleAndSessions1764633600000, MasterData1764637200000, PlansAndSignOff1764720000000, PlanVersionPlan1764723600000, PersonTokens1764727200000, Imports1764806400000];
 
 /** How long a query may wait for a free pooled connection or a new connection (ms). */
 const connectTimeoutMs = 5_000;
