@@ -116,8 +116,8 @@ export const importFields: Record<ImportKind, readonly ImportFieldDef[]> = {
   demand: [
     f('product', 'product', 'code', true, ['product code', 'item', 'item code', 'part', 'part number', 'sku', 'article', 'artikel', 'artikelnummer']),
     f('weekStart', 'week start', 'date', true, ['week', 'date', 'due', 'due date', 'ship date', 'week of', 'period', 'woche', 'datum']),
-    f('type', 'type', 'choice', true, ['demand type', 'kind', 'firm or forecast'], ['firm', 'forecast']),
-    f('orderRef', 'order reference', 'text', false, ['order', 'order ref', 'customer order', 'so', 'sales order', 'reference']),
+    f('type', 'type', 'choice', true, ['demand type', 'kind', 'firm or forecast', 'typ', 'art'], ['firm', 'forecast']),
+    f('orderRef', 'order reference', 'text', false, ['order', 'order ref', 'customer order', 'so', 'sales order', 'reference', 'auftrag', 'auftragsnummer']),
     f('qty', 'quantity', 'number', true, ['qty', 'amount', 'demand', 'menge']),
     f('unit', 'unit', 'text', false, ['uom', 'unit of measure']),
   ],
