@@ -2,7 +2,7 @@ import type { DataSource } from 'typeorm';
 import { importFields, type ImportKind, type ImportOptions, type ImportRun, type ImportSummary } from '@millrace/contracts';
 import type { SignedInPerson } from '../auth/current-person';
 import { AppError } from '../http/app-error';
-import { findImportRun, insertImportRun, lockImportKind } from './imports.repository';
+import { findImportRun, insertImportRun, lockImports } from './imports.repository';
 import { ImportConflict } from './kinds/import-kind';
 import { importKinds } from './kinds/import-kinds';
 import { summarise } from './preview-import.use-case';
@@ -30,7 +30,7 @@ export async function applyImport(dataSource: DataSource, kind: ImportKind, uplo
       if (read.fileErrors.length > 0) {
         throw AppError.unprocessable(`The mapping is not complete; nothing was imported. ${read.fileErrors[0]}`, read.fileErrors.map((message) => ({ item: 'mapping', message })));
       }
-      await lockImportKind(db, kind);
+      await lockImports(db);
       const checked = await importKinds[kind].check(db, read.rows);
       const bad = read.rows.filter((r) => r.errors.length > 0);
       if (bad.length > 0) {

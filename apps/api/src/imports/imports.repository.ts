@@ -119,9 +119,13 @@ export async function lockLatestApplied(db: EntityManager, kind: ImportKind): Pr
   return row ? { id: row.id, fileName: row.file_name, undo: JSON.parse(row.undo_data) as UndoData } : null;
 }
 
-/** Serialises imports and undos of one kind (the kind's saved-mapping row is not used: a lock on the runs' index range is). */
-export async function lockImportKind(db: EntityManager, kind: ImportKind): Promise<void> {
-  await db.query(`SELECT id FROM import_run WHERE kind = ? ORDER BY id DESC LIMIT 1 FOR UPDATE`, [kind]);
+/**
+ * Serialises imports and undos (in any number of API processes): the plant settings row (one
+ * row, always present) is locked until the transaction ends, so checks and writes of two
+ * imports never interleave and no gap locks can deadlock.
+ */
+export async function lockImports(db: EntityManager): Promise<void> {
+  await db.query('SELECT id FROM plant_settings WHERE id = 1 FOR UPDATE');
 }
 
 export async function markUndone(db: EntityManager, id: number, personId: number): Promise<void> {

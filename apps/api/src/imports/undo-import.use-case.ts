@@ -2,7 +2,7 @@ import type { DataSource } from 'typeorm';
 import type { ImportKind, ImportRun } from '@millrace/contracts';
 import type { SignedInPerson } from '../auth/current-person';
 import { AppError } from '../http/app-error';
-import { findImportRun, lockLatestApplied, markUndone } from './imports.repository';
+import { findImportRun, lockImports, lockLatestApplied, markUndone } from './imports.repository';
 import { ImportConflict } from './kinds/import-kind';
 import { importKinds } from './kinds/import-kinds';
 
@@ -14,6 +14,7 @@ import { importKinds } from './kinds/import-kinds';
 export async function undoLatestImport(dataSource: DataSource, kind: ImportKind, person: SignedInPerson): Promise<ImportRun> {
   try {
     const id = await dataSource.transaction(async (db) => {
+      await lockImports(db);
       const latest = await lockLatestApplied(db, kind);
       if (!latest) throw AppError.notFound(`There is no applied ${kind} import to undo.`);
       await importKinds[kind].undo(db, latest.undo.entries);

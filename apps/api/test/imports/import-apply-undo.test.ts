@@ -134,6 +134,24 @@ describe('apply', () => {
   });
 });
 
+describe('two imports at once', () => {
+  it('when two planners apply demand files at the same moment, then both are applied one after the other and each summary is right', async () => {
+    const a = 'product,week start,type,order reference,quantity\nTABLE-1,2026-04-06,forecast,,7\n';
+    const b = 'product,week start,type,order reference,quantity\nTABLE-1,2026-04-06,forecast,,9\n';
+    const [ra, rb] = await Promise.all([upload(planner, 'demand', a, 'a.csv', { apply: true }), upload(planner, 'demand', b, 'b.csv', { apply: true })]);
+    expect([ra.status, rb.status]).toEqual([201, 201]);
+    // Whichever came second found the first one's forecast and changed it.
+    const summaries = [ra.body.summary, rb.body.summary].sort((x, y) => x.created - y.created);
+    expect(summaries).toEqual([
+      { created: 0, updated: 1, unchanged: 0, removed: 0 },
+      { created: 1, updated: 0, unchanged: 0, removed: 0 },
+    ]);
+    const second = ra.body.summary.updated === 1 ? '7' : '9';
+    const [row] = (await ctx.dataSource.query("SELECT qty FROM demand_forecast WHERE week_start = '2026-04-06'")) as Array<{ qty: string }>;
+    expect(Number(row.qty)).toBe(Number(second));
+  });
+});
+
 describe('saved mapping', () => {
   it('when a mapping is saved for a kind, then the next file with those titles uses it', async () => {
     const mapping = { product: 'Teil', weekStart: 'KW-Start', type: 'Art', orderRef: 'Auftrag', qty: 'Stück', unit: null };

@@ -140,5 +140,12 @@ export const bomImport: ImportKindHandler = {
       }
       await replaceBomLines(db, entry.productId, entry.before);
     }
+    // Lines restored next to BOMs edited since could close a cycle: check the whole structure again.
+    const edges = await listProductEdges(db);
+    for (const entry of raw as Entry[]) {
+      const children = edges.filter((e) => e.parent === entry.code).map((e) => e.child);
+      const cycle = findBomCycle(edges, entry.code, children);
+      if (cycle) throw new ImportConflict(`Undo would make ${entry.code} contain itself (${cycle.join(' → ')}), because other bills of materials changed since the import.`);
+    }
   },
 };
