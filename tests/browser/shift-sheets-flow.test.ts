@@ -104,7 +104,7 @@ describe('shift sheets in the browser', () => {
       await page.getByRole('heading', { name: 'Shift sheets', level: 1 }).waitFor();
       floor.signedIn = true;
       expect(new URL(page.url()).searchParams.get('plan')).toBe(String(planId));
-      await page.getByText(`#${planId} ${planName}`).waitFor();
+      await page.getByText(`#${planId} ${planName}`, { exact: true }).waitFor();
       await page.getByText('Released to the floor').first().waitFor();
       await expect.poll(() => page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Shift sheets' }).count()).toBe(1);
 

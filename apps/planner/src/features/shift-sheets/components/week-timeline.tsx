@@ -6,6 +6,9 @@ import { formatMinutes, formatQuantity, formatShortDay } from '../sheet-words';
 /** Open time closer than this joins one stretch of the axis (minutes; common practice, no source). */
 const joinGapMinutes = 60;
 
+/** Day labels closer than this share of the axis are left out so they never overlap. */
+const minLabelGapPercent = 7;
+
 /** Overtime is drawn hatched and labelled "OT", never told by colour alone. */
 export const overtimeHatch: CSSProperties = {
   backgroundImage: 'repeating-linear-gradient(135deg, rgba(0,0,0,0.28) 0 2px, transparent 2px 6px)',
@@ -63,12 +66,20 @@ export function WeekTimeline({ week, highlight }: { week: ShiftSheetsWeek; highl
     return null;
   };
 
+  // one label per day, where that day first appears on the axis (a stretch start or a midnight)
   const ticks: { at: number; label: string }[] = [];
+  const labelled = new Set<string>();
   let offset = 0;
   for (const s of stretches) {
-    ticks.push({ at: (offset / total) * 100, label: `${formatShortDay(dayOf(s.from))} ${clock(s.from)}` });
-    for (let m = Math.ceil((s.from + 1) / 1440) * 1440; m < s.to; m += 1440)
-      ticks.push({ at: ((offset + m - s.from) / total) * 100, label: `${formatShortDay(dayOf(m))} 00:00` });
+    const points = [s.from];
+    for (let m = Math.ceil((s.from + 1) / 1440) * 1440; m < s.to; m += 1440) points.push(m);
+    for (const m of points) {
+      const day = dayOf(m);
+      const at = ((offset + m - s.from) / total) * 100;
+      if (labelled.has(day) || (ticks.length > 0 && at - ticks[ticks.length - 1].at < minLabelGapPercent)) continue;
+      labelled.add(day);
+      ticks.push({ at, label: m % 1440 === 0 ? formatShortDay(day) : `${formatShortDay(day)} ${clock(m)}` });
+    }
     offset += s.to - s.from;
   }
 

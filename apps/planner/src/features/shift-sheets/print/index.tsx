@@ -46,7 +46,7 @@ export function PrintShiftSheetsPage({ planId }: { planId: number }) {
           .printed-sheet:last-of-type { break-after: auto; page-break-after: auto; }
         }
         @media screen {
-          .printed-sheet { width: ${paper === 'a4' ? '279mm' : '261mm'}; min-height: ${paper === 'a4' ? '188mm' : '190mm'}; margin: 0 auto 12px; padding: 8mm; background: #fff; box-shadow: 0 0 0 1px #d9d6cc; }
+          .printed-sheet { box-sizing: border-box; max-width: calc(100vw - 16px); width: ${paper === 'a4' ? '279mm' : '261mm'}; min-height: ${paper === 'a4' ? '188mm' : '190mm'}; margin: 0 auto 12px; padding: 8mm; background: #fff; box-shadow: 0 0 0 1px #d9d6cc; }
         }
       `}</style>
       <div className="mx-auto flex max-w-5xl flex-wrap items-center gap-3 p-3 print:hidden">
