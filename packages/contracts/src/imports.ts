@@ -113,10 +113,11 @@ export const importFields: Record<ImportKind, readonly ImportFieldDef[]> = {
     f('hoursPerUnit', 'hours per unit', 'number', true, ['run hours', 'run time', 'hours', 'time per unit', 'run hours per unit']),
     f('setupHours', 'setup hours', 'number', false, ['setup', 'setup time', 'changeover hours']),
   ],
+  /** Without a type column, a row with an order reference is a firm order and one without is a forecast. */
   demand: [
     f('product', 'product', 'code', true, ['product code', 'item', 'item code', 'part', 'part number', 'sku', 'article', 'artikel', 'artikelnummer']),
     f('weekStart', 'week start', 'date', true, ['week', 'date', 'due', 'due date', 'ship date', 'week of', 'period', 'woche', 'datum']),
-    f('type', 'type', 'choice', true, ['demand type', 'kind', 'firm or forecast', 'typ', 'art'], ['firm', 'forecast']),
+    f('type', 'type', 'choice', false, ['demand type', 'kind', 'firm or forecast', 'typ', 'art'], ['firm', 'forecast']),
     f('orderRef', 'order reference', 'text', false, ['order', 'order ref', 'customer order', 'so', 'sales order', 'reference', 'auftrag', 'auftragsnummer']),
     f('qty', 'quantity', 'number', true, ['qty', 'amount', 'demand', 'menge']),
     f('unit', 'unit', 'text', false, ['uom', 'unit of measure']),

@@ -40,6 +40,22 @@ async function check(kind: string, csv: string): Promise<{ preview: ImportPrevie
 }
 
 describe('row checks', () => {
+  it('when a demand file has no type column, then rows with an order reference are firm orders and the others forecasts', async () => {
+    const res = await upload(planner, 'demand', 'product,week start,order reference,quantity\nTABLE-1,2026-03-02,SO-9,5\nTABLE-1,2026-03-02,,8\n', 'demand.csv');
+    expect(res.status).toBe(200);
+    expect(res.body.fileErrors).toEqual([]);
+    expect(errorLines(res.body)).toEqual([]);
+    const applied = await upload(planner, 'demand', 'product,week start,order reference,quantity\nTABLE-1,2026-03-02,SO-9,5\nTABLE-1,2026-03-02,,8\n', 'demand.csv', { apply: true });
+    expect(applied.status).toBe(201);
+    expect(await ctx.dataSource.query("SELECT order_ref, qty FROM firm_order WHERE week_start = '2026-03-02'")).toEqual([{ order_ref: 'SO-9', qty: '5.0000' }]);
+    expect(await ctx.dataSource.query("SELECT qty FROM demand_forecast WHERE week_start = '2026-03-02'")).toEqual([{ qty: '8.0000' }]);
+    // Back as it was, so the row counts the other checks compare with hold.
+    expect((await planner.post('/api/imports/demand/undo')).status).toBe(200);
+    expect(await tableCounts(ctx.dataSource)).toEqual({ ...before, import_run: before.import_run + 1 });
+    before = await tableCounts(ctx.dataSource);
+  });
+
+
   it('when codes are unknown, then each row says so and suggests the nearest code', async () => {
     const { preview, applyErrors } = await check('bom', 'parent,component,qty\nTABEL-1,LEG-1,4\nTABLE-1,OAK-BORD,1.5\nTABLE-1,XYZ-99,1\n');
     expect(errorLines(preview)).toEqual([

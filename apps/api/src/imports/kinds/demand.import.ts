@@ -61,8 +61,9 @@ export const demandImport: ImportKindHandler = {
       if (code !== undefined && !product) addError(row, 'product', products.unknown(code));
       const date = row.data.weekStart as string | undefined;
       if (date !== undefined) for (const e of weekStartErrors(weekStart, [{ path: 'weekStart', date }])) addError(row, 'weekStart', e.message);
-      const type = row.data.type as DemandType | undefined;
       const orderRef = typeof row.data.orderRef === 'string' ? row.data.orderRef.trim() : '';
+      // No type given: an order reference makes it a firm order, none a forecast.
+      const type: DemandType | undefined = !('type' in row.values) || row.values.type === null ? (orderRef ? 'firm' : 'forecast') : (row.data.type as DemandType | undefined);
       if (type === 'firm' && orderRef === '') addError(row, 'orderRef', 'A firm order needs its customer order reference.');
       if (type === 'forecast' && orderRef !== '') addError(row, 'orderRef', 'A forecast has no order reference; leave it empty or make the row firm.');
       if (orderRef.length > maxOrderRef) addError(row, 'orderRef', `Use at most ${maxOrderRef} characters.`);
