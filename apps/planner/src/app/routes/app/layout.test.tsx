@@ -14,10 +14,10 @@ afterEach(() => vi.unstubAllGlobals());
  * with plans); admins run people, plant settings and outgoing mail and read the data.
  */
 const expectedLinks: Record<Role, string[]> = {
-  planner: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Imports', 'Plant settings'],
-  supervisor: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Plant settings'],
-  floor_lead: ['Home'],
-  admin: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'People', 'Plant settings', 'Mail'],
+  planner: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Shift sheets', 'Imports', 'Plant settings'],
+  supervisor: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Shift sheets', 'Plant settings'],
+  floor_lead: ['Home', 'Shift sheets'],
+  admin: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Shift sheets', 'People', 'Plant settings', 'Mail'],
 };
 
 describe('role-dependent navigation', () => {
