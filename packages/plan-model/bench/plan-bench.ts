@@ -6,7 +6,8 @@
  *   node --import tsx packages/plan-model/bench/plan-bench.ts [finished×weeks ...]
  *   e.g. … plan-bench.ts 50x12 200x26 1000x52      (default: 50x12 200x26)
  *
- * Generated plants come from test/support/generate-plant.ts (invented data, seeded).
+ * Generated plants come from test/support/generate-plant.ts (invented data, seeded), loaded to
+ * about 95 % of regular time with supply caps sized to their materials' use.
  */
 import { solve } from '@millrace/lp-core';
 import { buildModel, mapSolution, checkPlan, roundPlan, buildShiftSheets } from '../src/index';
@@ -31,6 +32,9 @@ for (const { finished, weeks } of sizes) {
     workCenters: Math.max(3, Math.ceil(finished / 10)),
     materials: Math.max(3, Math.ceil(finished * 0.4)),
     weeks,
+    loadFactor: 0.95,
+    // supply caps sized to what the materials' users need (about 100 units a week per user)
+    supplyFactor: Math.max(1, ((finished * 1.3 * 2) / Math.max(3, Math.ceil(finished * 0.4))) * 100 / 240),
   };
   const data = generatePlant(7, size);
   const [built, tBuild] = time(() => buildModel(data, { horizonWeeks: weeks }));

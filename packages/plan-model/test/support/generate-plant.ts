@@ -20,6 +20,8 @@ export interface PlantSize {
   weeks: number;
   /** regular hours needed to meet all demand ÷ regular hours available (default 1.2: some rows bind) */
   loadFactor?: number;
+  /** multiplies every weekly supply cap (default 1) */
+  supplyFactor?: number;
 }
 
 /**
@@ -58,7 +60,7 @@ export function generatePlant(seed: number, size: PlantSize): PlanningData {
       unitCost: cost,
       onHand: int(0, 400),
       leadTimeWeeks: int(0, 3),
-      weeklySupplyCap: rnd() < 0.4 ? int(80, 400) : null,
+      weeklySupplyCap: rnd() < 0.4 ? Math.round(int(80, 400) * (size.supplyFactor ?? 1)) : null,
       lotRule: pick(['lot_for_lot', 'fixed_order_quantity', 'minimum_order_quantity'] as const),
       lotSize: int(50, 200),
       scheduledReceipts: rnd() < 0.5 ? [{ week: int(1, T), qty: int(20, 200) }] : [],
