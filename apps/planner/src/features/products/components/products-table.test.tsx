@@ -46,6 +46,7 @@ describe('products table (view kept in the URL)', () => {
     await waitFor(() => expect(bodyCodes()).toEqual(['C-LEG', 'A-TOP']));
     await user.type(screen.getByRole('searchbox', { name: 'Search products' }), 'ash');
     await waitFor(() => expect(bodyCodes()).toEqual(['C-LEG']));
+    await waitFor(() => expect(new URLSearchParams(view.location().search).get('q')).toBe('ash'));
     await user.click(screen.getByText('Columns'));
     await user.click(screen.getByRole('checkbox', { name: 'Family' }));
 
