@@ -20,6 +20,7 @@ import { materialCallsColumns } from './components/material-calls-columns';
 import { planLinesColumns } from './components/plan-lines-columns';
 import { ResultsSummary } from './components/results-summary';
 import { StockChart } from './components/stock-chart';
+import { NotWorthMaking } from './components/not-worth-making';
 import { UnmetOrders } from './components/unmet-orders';
 
 /**
@@ -121,7 +122,16 @@ export function PlanResultsPage({ planId }: { planId: number }) {
                     />
                   ),
                 },
-                { id: 'unmet', label: `Unmet orders (${r.unmet.length})`, content: () => <UnmetOrders unmet={r.unmet} /> },
+                {
+                  id: 'unmet',
+                  label: `Unmet orders (${r.unmet.length})`,
+                  content: () => (
+                    <>
+                      <UnmetOrders unmet={r.unmet} />
+                      <NotWorthMaking reducedCosts={r.reducedCosts} />
+                    </>
+                  ),
+                },
               ]}
             />
           </div>
