@@ -115,6 +115,12 @@ describe('planner in the browser', () => {
       expect(mps).toMatch(/^ENDATA\s*$/m);
       expect(download.suggestedFilename()).toMatch(/^plan-\d+\.mps$/);
 
+      // The plan lines as CSV: a header and one row per product and week.
+      const [csvDownload] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download plan lines (CSV)' }).click()]);
+      const csv = readFileSync((await csvDownload.path())!, 'utf8').trim().split(/\r?\n/);
+      expect(csv[0]).toBe('product,product_name,week,week_start,demand,make,ship,stock,late');
+      expect(csv.length).toBeGreaterThan(8);
+
       expect(w.problems).toEqual([]);
     } finally {
       await w.close();
