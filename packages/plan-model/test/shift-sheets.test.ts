@@ -128,6 +128,36 @@ describe('shift sheets: a job without setup that does not fit the rest of a shif
   });
 });
 
+describe('shift sheets: non-delay dispatching', () => {
+  it('a work center runs ready work instead of idling for a job still on an earlier step (Giffler & Thompson 1960)', () => {
+    // P1 (due first) runs 8 h on WC-A, then 1 h on WC-B; P2 (no order) runs 8 h on WC-B only.
+    // WC-B can start P2 on Monday 07:00; P1 reaches WC-B only at Monday 15:00, the end of its shift.
+    const pattern = { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] };
+    const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
+    const product = (code: string) => ({ code, name: code, unit: 'pcs', kind: 'finished' as const, price: 1, safetyStock: 0, batchMultiple: 1, openingStock: 0, latePenalty: 0 });
+    const data: PlanningData = {
+      plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
+      weeks: [{ index: 1, startDate: '2027-01-04' }],
+      products: [product('P1'), product('P2')],
+      bom: [],
+      routings: [
+        { product: 'P1', sequence: 10, workCenter: 'WC-A', hoursPerUnit: 1, setupHours: 0 },
+        { product: 'P1', sequence: 20, workCenter: 'WC-B', hoursPerUnit: 0.125, setupHours: 0 },
+        { product: 'P2', sequence: 10, workCenter: 'WC-B', hoursPerUnit: 1, setupHours: 0 },
+      ],
+      workCenters: [wc('WC-A'), wc('WC-B')],
+      materials: [],
+      demand: [{ product: 'P1', week: 1, kind: 'firm', qty: 8, orderRef: 'SO-1' }],
+    };
+    const plan = { horizonWeeks: 1, outcome: 'optimal', products: [{ product: 'P1', week: 1, make: 8 }, { product: 'P2', week: 1, make: 8 }], workCenters: [] } as unknown as Plan;
+    const b = buildShiftSheets(data, plan).sheets.filter((s) => s.workCenter === 'WC-B');
+    expect(b.map((s) => [s.date, s.jobs.map((j) => `${j.product} ${j.start.slice(11)}–${j.end.slice(11)}`)])).toEqual([
+      ['2027-01-04', ['P2 07:00–15:00']],
+      ['2027-01-05', ['P1 07:00–08:00']],
+    ]);
+  });
+});
+
 describe('shift sheets: bad input', () => {
   it('names a work center with load but no open shift in the week', async () => {
     const { data, plan } = await approvedPlan(61, cases[0][1], true);

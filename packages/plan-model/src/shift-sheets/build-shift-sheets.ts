@@ -9,9 +9,10 @@ import { componentUsePerUnit } from '../bom-graph';
 
 /**
  * Approved plan → shift sheets: for each work center, day and shift, the jobs in run order with
- * times (issue 8; DOMAIN.md §4). Each week is loaded forward, operation by operation in the
- * order of weekOperations (earliest firm due week first, grouped by family and product,
- * sub-assemblies before their parents, routing steps in sequence):
+ * times (issue 8; DOMAIN.md §4). Each week is loaded forward, operation by operation: of the
+ * operations whose predecessors are placed, the one that can start earliest (non-delay
+ * dispatching), ties in the order of weekOperations (earliest firm due week first, grouped by
+ * family and product, sub-assemblies before their parents, routing steps in sequence):
  *
  *  - an operation starts at the latest of: its work center free, the previous routing step's
  *    finish (whole quantity) plus the transfer lag, its sub-assemblies' finish plus the lag;
@@ -112,7 +113,45 @@ function scheduleWeek(
   /** per product: end of its latest operation and the quantity that operation completed */
   const done = new Map<string, { end: number; quantity: number }>();
   const lag = settings.transferLagMinutes;
-  for (const op of ops) {
+
+  // Non-delay dispatching (Giffler & Thompson 1960; Baker & Trietsch 2009, ch. on dispatching):
+  // of the operations whose predecessors are placed — the product's previous routing step, or
+  // for a first step every sub-assembly made this week — place next the one that can start
+  // earliest on its work center; ties go to the priority order of weekOperations. A work center
+  // thus never waits for a late-released job while work that is ready could run.
+  const queues = new Map<string, WeekOperation[]>();
+  for (const op of ops) queues.set(op.product, [...(queues.get(op.product) ?? []), op]);
+  const priority = [...queues.keys()];
+  const componentsOf = new Map<string, string[]>();
+  for (const b of data.bom)
+    if (b.componentProduct !== undefined && queues.has(b.componentProduct) && queues.has(b.parent) && b.componentProduct !== b.parent)
+      componentsOf.set(b.parent, [...(componentsOf.get(b.parent) ?? []), b.componentProduct]);
+  const ready = (product: string) => done.has(product) || (componentsOf.get(product) ?? []).every((c) => queues.get(c)!.length === 0);
+  const earliestStart = (op: WeekOperation) => {
+    const before = done.get(op.product);
+    let release = before ? before.end + lag : 0;
+    if (!before)
+      for (const c of componentsOf.get(op.product) ?? []) {
+        const d = done.get(c);
+        if (d) release = Math.max(release, d.end + lag);
+      }
+    return Math.max(cursor.get(op.workCenter) ?? 0, release);
+  };
+  const next = (): WeekOperation | undefined => {
+    let pick: string | undefined;
+    let best = Number.POSITIVE_INFINITY;
+    for (const product of priority) {
+      const head = queues.get(product)![0];
+      if (!head || !ready(product)) continue;
+      const t = earliestStart(head);
+      if (t < best - EPS) [pick, best] = [product, t];
+    }
+    // nothing ready (a cycle among this week's products): fall back to the priority order
+    pick ??= priority.find((p) => queues.get(p)!.length > 0);
+    return pick === undefined ? undefined : queues.get(pick)!.shift();
+  };
+
+  for (let op = next(); op !== undefined; op = next()) {
     const windows = windowsOf.get(`${op.workCenter}|${week}`)!;
     const before = done.get(op.product);
     let quantity = op.quantity;
