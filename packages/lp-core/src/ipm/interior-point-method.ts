@@ -100,7 +100,11 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
     ...extra,
   });
 
-  if (timed('factorise', () => startingPoint(prob, kind, kkt, it, dir, rhat, rp)) !== 'factorised') {
+  const start = timed('factorise', () => startingPoint(prob, kind, kkt, it, dir, rhat, rp, clock.deadline));
+  if (start === 'interrupted') {
+    return finish('time_limit', 0, res.compute(it), { message: `time limit of ${settings.timeLimitSeconds} s reached in the first factorisation` });
+  }
+  if (start !== 'factorised') {
     return finish('numerical_trouble', 0, res.compute(it), { message: 'the starting-point system could not be factorised' });
   }
 

@@ -21,12 +21,13 @@ export function startingPoint(
   dir: Iterate,
   rhat: Float64Array,
   rp: Float64Array,
+  deadline = Infinity,
 ): KktStatus {
   const { n, m, A, c, lower, upper } = prob;
   const N = n + m;
   const D = new Float64Array(N);
   for (let j = 0; j < N; j++) D[j] = kind[j] === FIXED ? Infinity : 1;
-  const status = kkt.factorise(D);
+  const status = kkt.factorise(D, deadline);
   if (status !== 'factorised') return status;
   const { v, y, zl, zu } = it;
   for (let j = 0; j < N; j++) v[j] = Math.min(Math.max(0, lower[j]), upper[j]);

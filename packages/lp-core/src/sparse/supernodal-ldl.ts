@@ -75,6 +75,9 @@ export class SupernodalLdl {
       let d = head[s];
       head[s] = -1;
       while (d !== -1) {
+        if (deadline < Infinity && performance.now() > deadline) {
+          return { status: 'interrupted', column: sup[s], replacedPivots: replaced };
+        }
         const dNext = next[d];
         const fd = sup[d];
         const wd = sup[d + 1] - fd;
@@ -139,6 +142,9 @@ export class SupernodalLdl {
       //    to PANEL columns, then update each trailing column with the whole panel (the panel
       //    stays in cache while the trailing columns stream past once)
       for (let k0 = 0; k0 < ws; k0 += PANEL) {
+        if (deadline < Infinity && performance.now() > deadline) {
+          return { status: 'interrupted', column: f + k0, replacedPivots: replaced };
+        }
         const k1 = Math.min(k0 + PANEL, ws);
         for (let k = k0; k < k1; k++) {
           const j = f + k;
