@@ -60,7 +60,10 @@ export class SheetPrinter {
       await page.emulateMedia({ media: 'print' });
       await page.goto(req.url, { waitUntil: 'load' });
       const root = page.locator('[data-print-state="ready"], [data-print-state="error"]').first();
-      await root.waitFor({ timeout: printViewTimeoutMs });
+      await root.waitFor({ timeout: printViewTimeoutMs }).catch((err: Error) => {
+        if (err.name !== 'TimeoutError') throw err;
+        throw new AppError(503, 'internal_error', `The print view did not show the sheets within ${printViewTimeoutMs / 1000} s; try again in a moment.`);
+      });
       if ((await root.getAttribute('data-print-state')) === 'error') {
         throw new AppError(502, 'internal_error', `The print view could not show the sheets: ${(await root.innerText()).trim()}`);
       }
