@@ -25,8 +25,9 @@ export interface AppliedImport {
 export async function applyImport(dataSource: DataSource, kind: ImportKind, upload: Upload, options: ImportOptions, person: SignedInPerson): Promise<AppliedImport> {
   const labels = new Map(importFields[kind].map((f) => [f.key, f.label]));
   try {
+    // The file is read before the transaction, so a slow workbook holds no connection or lock.
+    const read = await readImportFile(dataSource.manager, kind, upload, options);
     const id = await dataSource.transaction(async (db) => {
-      const read = await readImportFile(db, kind, upload, options);
       if (read.fileErrors.length > 0) {
         throw AppError.unprocessable(`The mapping is not complete; nothing was imported. ${read.fileErrors[0]}`, read.fileErrors.map((message) => ({ item: 'mapping', message })));
       }

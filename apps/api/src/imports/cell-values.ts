@@ -129,7 +129,8 @@ export function readCell(field: ImportFieldDef, cell: RawCell): CellReading {
     case 'code':
     case 'text':
       if (cell instanceof Date) return { outcome: 'invalid', message: `Expected text for ${label(field)}, found the date ${text}.` };
-      return { outcome: 'value', value: text };
+      // An apostrophe that guards a formula-like text (our CSV exports write one) is not part of it.
+      return { outcome: 'value', value: /^'[=+\-@]/.test(text) ? text.slice(1) : text };
     case 'number':
     case 'integer': {
       if (cell instanceof Date || typeof cell === 'boolean') return { outcome: 'invalid', message: `${text} is not a number.` };

@@ -43,7 +43,8 @@ beforeAll(async () => {
   // Values the small plant leaves at defaults: a receipt, a family, a lot rule, a decimal with many places.
   const imported = await upload(planner, 'receipts', 'material,week start,quantity,reference\nOAK,2027-01-11,40,PO-77\nFIT,2027-01-18,25.5,\n', 'receipts.csv', { apply: true });
   expect(imported.status, JSON.stringify(imported.body)).toBe(201);
-  const products = await upload(planner, 'products', 'code,family,safety stock\nBEN,seating,2.125\n', 'products.csv', { apply: true });
+  // A name a spreadsheet would run as a formula (it must come back as text, see the CSV guard).
+  const products = await upload(planner, 'products', 'code,family,safety stock,name\nBEN,seating,2.125,=1+2 bench\n', 'products.csv', { apply: true });
   expect(products.status, JSON.stringify(products.body)).toBe(201);
   const materials = await upload(planner, 'materials', 'code,lot rule,lot size,weekly supply cap\nFIT,fixed_order_quantity,50,\n', 'materials.csv', { apply: true });
   expect(materials.status, JSON.stringify(materials.body)).toBe(201);
@@ -87,6 +88,16 @@ describe.each(['csv', 'xlsx'] as const)('round trip through %s', (format) => {
   });
 });
 
+describe('CSV guard', () => {
+  it('when a text starts like a formula, then the CSV export writes it behind an apostrophe and the import reads it without', async () => {
+    // CSV injection: OWASP, "CSV Injection" (cells starting with = + - @ run as formulas).
+    const csv = (await exportOf(planner, 'products', 'csv')).toString('utf8');
+    expect(csv).toContain(",'=1+2 bench,");
+    const res = await upload(planner, 'products', Buffer.from(csv), 'products.csv');
+    expect(res.body.rows.find((r: { values: { code: string } }) => r.values.code === 'BEN').outcome).toBe('unchanged');
+  });
+});
+
 describe('plan exports', () => {
   let planId: number;
 
@@ -106,7 +117,10 @@ describe('plan exports', () => {
 
     const csv = Papa.parse<string[]>((await exportOf(planner, 'plan-lines', 'csv', planId)).toString('utf8').replace(/^\ufeff/, ''), { skipEmptyLines: true }).data;
     expect(csv[0]).toEqual(['product', 'product name', 'week', 'week start', 'demand', 'make', 'ship', 'stock', 'late']);
-    expect(csv.slice(1)).toEqual(expected.map((r) => r.map(String)));
+    // Texts that start like a formula carry the CSV guard's apostrophe (BEN is named "=1+2 bench").
+    const unguard = (cell: string) => cell.replace(/^'(?=[=+\-@])/, '');
+    expect(csv.slice(1).map((r) => r.map(unguard))).toEqual(expected.map((r) => r.map(String)));
+    expect(csv.some((r) => r[1] === "'=1+2 bench")).toBe(true);
 
     const wb = new ExcelJS.Workbook();
     await wb.xlsx.load((await exportOf(planner, 'plan-lines', 'xlsx', planId)) as unknown as ArrayBuffer);
