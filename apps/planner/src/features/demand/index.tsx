@@ -260,7 +260,7 @@ export function DemandPage({ canEdit }: { canEdit: boolean }) {
         ) : (
           <div className="flex flex-col gap-3">
             <p className="text-sm text-ink-soft">
-              {formatWeekLong(demand.data.weeks[0])} to {formatWeekLong(demand.data.weeks[demand.data.weeks.length - 1])} · {lines.length / 2} products
+              {formatWeekLong(demand.data.weeks[0])} to {formatWeekLong(demand.data.weeks[demand.data.weeks.length - 1])} · {lines.length / 2} product{lines.length === 2 ? '' : 's'}
               {lines.length / 2 < demand.data.rows.length ? ` of ${demand.data.rows.length} (week totals cover the products shown)` : ''} · • marks a changed
               cell, ✕ a cell with a problem, 2× a week with several firm orders.
             </p>
