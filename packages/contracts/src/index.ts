@@ -21,3 +21,4 @@ export * from './home';
 export * from './imports';
 export * from './invitations';
 export * from './shift-sheets';
+export * from './dev-mail';

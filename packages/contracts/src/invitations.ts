@@ -28,6 +28,8 @@ export const personTokenInfoSchema = z.object({
   purpose: personTokenPurposeSchema,
   email: z.string(),
   name: z.string(),
+  /** The role the person signs in with (shown on the welcome page). */
+  role: roleSchema,
   expiresAt: z.string(),
 });
 export type PersonTokenInfo = z.infer<typeof personTokenInfoSchema>;

@@ -1,5 +1,5 @@
 import type { EntityManager } from 'typeorm';
-import type { PersonTokenPurpose } from '@millrace/contracts';
+import type { PersonTokenPurpose, Role } from '@millrace/contracts';
 
 export interface StoredToken {
   id: number;
@@ -9,6 +9,7 @@ export interface StoredToken {
   usedAt: Date | null;
   email: string;
   name: string;
+  role: Role;
   active: boolean;
 }
 
@@ -28,15 +29,15 @@ export async function insertToken(
 
 /** The token with that hash and its person; `lock` holds the row until the transaction ends. */
 export async function findToken(db: EntityManager, tokenHash: string, lock: 'lock' | 'no_lock' = 'no_lock'): Promise<StoredToken | null> {
-  const rows: { id: number | string; person_id: number; purpose: PersonTokenPurpose; expires_at: Date; used_at: Date | null; email: string; name: string; active: number }[] =
+  const rows: { id: number | string; person_id: number; purpose: PersonTokenPurpose; expires_at: Date; used_at: Date | null; email: string; name: string; role: Role; active: number }[] =
     await db.query(
-      `SELECT t.id, t.person_id, t.purpose, t.expires_at, t.used_at, p.email, p.name, p.active
+      `SELECT t.id, t.person_id, t.purpose, t.expires_at, t.used_at, p.email, p.name, p.role, p.active
          FROM person_token t JOIN person p ON p.id = t.person_id WHERE t.token_hash = ?${lock === 'lock' ? ' FOR UPDATE' : ''}`,
       [tokenHash],
     );
   const r = rows[0];
   return r
-    ? { id: Number(r.id), personId: r.person_id, purpose: r.purpose, expiresAt: r.expires_at, usedAt: r.used_at, email: r.email, name: r.name, active: Boolean(r.active) }
+    ? { id: Number(r.id), personId: r.person_id, purpose: r.purpose, expiresAt: r.expires_at, usedAt: r.used_at, email: r.email, name: r.name, role: r.role, active: Boolean(r.active) }
     : null;
 }
 

@@ -21,7 +21,7 @@ async function usableToken(db: EntityManager, secret: string, purpose: PersonTok
 /** What an open link is for (the page shows whose password is being set). */
 export async function describeToken(db: EntityManager, secret: string, purpose: PersonTokenPurpose): Promise<PersonTokenInfo> {
   const t = await usableToken(db, secret, purpose, 'no_lock');
-  return { purpose: t.purpose, email: t.email, name: t.name, expiresAt: t.expiresAt.toISOString() };
+  return { purpose: t.purpose, email: t.email, name: t.name, role: t.role, expiresAt: t.expiresAt.toISOString() };
 }
 
 /**

@@ -66,7 +66,7 @@ describe('invitations', () => {
 
     const info = await ctx.anonymous().get(`/api/invitations/${token}`);
     expect(info.status).toBe(200);
-    expect(personTokenInfoSchema.parse(info.body)).toMatchObject({ purpose: 'invitation', email: 'joiner@millrace.test', name: 'Jo Joiner' });
+    expect(personTokenInfoSchema.parse(info.body)).toMatchObject({ purpose: 'invitation', email: 'joiner@millrace.test', name: 'Jo Joiner', role: 'planner' });
 
     const weak = await ctx.anonymous().post('/api/invitations/accept').send({ token, password: 'joiner@millrace.test' });
     expect(weak.status).toBe(400);

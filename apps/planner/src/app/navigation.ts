@@ -20,6 +20,7 @@ export const navItems: readonly NavItem[] = [
   { label: 'People', href: paths.people.getHref(), roles: rolesWith('manage:people') },
   { label: 'Plant settings', href: paths.settings.getHref(), roles: rolesWith('read:settings') },
   { label: 'Mail', href: paths.mail.getHref(), roles: rolesWith('read:outbox') },
+  { label: 'Caught mail', href: paths.caughtMail.getHref(), roles: rolesWith('read:caught-mail') },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

@@ -55,6 +55,11 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
       hydrateFallbackElement: <Loading label="Opening Millrace…" />,
       lazy: lazyRoute(queryClient, () => import('./routes/sign-in')),
     },
+    ...[
+      { path: paths.welcome.path, load: () => import('./routes/welcome') },
+      { path: paths.resetPassword.path, load: () => import('./routes/reset-password') },
+      { path: paths.forgotPassword.path, load: () => import('./routes/forgot-password') },
+    ].map(({ path, load }) => ({ path, errorElement: <RouteError />, hydrateFallbackElement: <Loading label="Opening Millrace…" />, lazy: lazyRoute(queryClient, load) })),
     {
       // Paper: no navigation around it. Signed in like every page (the loader below).
       path: paths.printShiftSheets.path,
@@ -94,6 +99,8 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
         page(paths.settings.path, rolesWith('read:settings'), 'Plant settings', () => import('./routes/app/settings')),
         page(paths.people.path, rolesWith('manage:people'), 'People', () => import('./routes/app/people')),
         page(paths.mail.path, rolesWith('read:outbox'), 'Outgoing mail', () => import('./routes/app/mail')),
+        page(paths.caughtMail.path, rolesWith('read:caught-mail'), 'Caught mail', () => import('./routes/app/caught-mail')),
+        page(paths.changePassword.path, allRoles, 'Change password', () => import('./routes/app/change-password')),
         page(paths.imports.path, rolesWith('write:master-data'), 'Imports', () => import('./routes/app/imports')),
         page(paths.plans.path, rolesWith('read:plans'), 'Plan versions', () => import('./routes/app/plans')),
         page(paths.planNew.path, rolesWith('write:plans'), 'New plan version', () => import('./routes/app/plan-new')),

@@ -7,7 +7,13 @@ export const paths = {
     path: '/sign-in',
     getHref: (next?: string) => (next && next !== '/' ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'),
   },
+  /** Pages of the e-mailed links and the reset request (outside the app shell, no sign-in). */
+  welcome: { path: '/welcome', getHref: (token: string) => `/welcome?token=${encodeURIComponent(token)}` },
+  resetPassword: { path: '/reset-password', getHref: (token: string) => `/reset-password?token=${encodeURIComponent(token)}` },
+  forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
   home: { path: '/', getHref: () => '/' },
+  changePassword: { path: '/account/password', getHref: () => '/account/password' },
+  caughtMail: { path: '/dev/mail', getHref: (id?: string) => (id ? `/dev/mail?message=${encodeURIComponent(id)}` : '/dev/mail') },
   products: { path: '/products', getHref: () => '/products' },
   productNew: { path: '/products/new', getHref: () => '/products/new' },
   product: { path: '/products/:productId', getHref: (id: number | string) => `/products/${id}` },

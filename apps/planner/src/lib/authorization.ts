@@ -11,6 +11,7 @@ export type Permission =
   | 'write:settings'
   | 'manage:people'
   | 'read:outbox'
+  | 'read:caught-mail'
   | 'read:demand'
   | 'write:demand'
   | 'read:plans'
@@ -25,6 +26,8 @@ const policy: Record<Permission, readonly Role[]> = {
   'write:settings': ['admin', 'planner'],
   'manage:people': ['admin'],
   'read:outbox': ['admin'],
+  // The local mail catcher's messages (apps/api/src/dev-mail; development only).
+  'read:caught-mail': ['admin'],
   'read:demand': ['admin', 'planner', 'supervisor'],
   'write:demand': ['planner'],
   // Plans, scenarios and sign-off (apps/api/src/plans, scenarios, sign-off routers).

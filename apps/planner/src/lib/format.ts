@@ -19,3 +19,11 @@ export const formatWeek = (isoDate: string): string => weekShortFormat.format(ut
 
 /** '2026-12-07' → 'week of 7 Dec 2026' (accessible names). */
 export const formatWeekLong = (isoDate: string): string => `week of ${weekLongFormat.format(utcDate(isoDate))}`;
+
+const dateTimeFormat = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+
+/** '2026-12-07T14:30:00.000Z' → '7 Dec 2026, 15:30' in the browser's time zone (mail dates, link expiry). */
+export const formatDateTime = (iso: string): string => {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : dateTimeFormat.format(date);
+};

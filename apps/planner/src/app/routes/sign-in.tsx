@@ -1,4 +1,4 @@
-import { redirect, useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, redirect, useNavigate, useSearchParams } from 'react-router-dom';
 import type { QueryClient } from '@tanstack/react-query';
 import { SignInForm } from '@/features/auth/components/sign-in-form';
 import { paths } from '@/config/paths';
@@ -30,6 +30,11 @@ export default function SignInRoute() {
         <p className="text-lg font-semibold tracking-wide text-race-800">Millrace</p>
         <h1 className="mb-4 text-2xl font-semibold">Sign in</h1>
         <SignInForm onSignedIn={() => void navigate(safeNext(params.get('next')), { replace: true })} />
+        <p className="mt-4 text-sm">
+          <Link className="underline" to={paths.forgotPassword.getHref()}>
+            Forgot password?
+          </Link>
+        </p>
       </div>
     </main>
   );

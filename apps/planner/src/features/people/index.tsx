@@ -9,6 +9,7 @@ import { usePeople } from './api/get-people';
 import { useUpdatePerson } from './api/update-person';
 import { peopleColumns } from './components/people-columns';
 import { PersonCreateForm } from './components/person-create-form';
+import { PersonInviteForm } from './components/person-invite-form';
 
 export function PeoplePage({ myEmail }: { myEmail: string }) {
   const people = usePeople();
@@ -40,6 +41,12 @@ export function PeoplePage({ myEmail }: { myEmail: string }) {
   return (
     <>
       <PageHeader title="People" description="Who can sign in, and in which role." />
+      <section aria-labelledby="invite-person" className="mb-6 rounded border border-line bg-panel p-4">
+        <h2 id="invite-person" className="mb-3 text-lg font-semibold">
+          Invite by e-mail
+        </h2>
+        <PersonInviteForm />
+      </section>
       <section aria-labelledby="add-person" className="mb-8 rounded border border-line bg-panel p-4">
         <h2 id="add-person" className="mb-3 text-lg font-semibold">
           Add a person

@@ -17,7 +17,7 @@ const expectedLinks: Record<Role, string[]> = {
   planner: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Shift sheets', 'Imports', 'Plant settings'],
   supervisor: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Shift sheets', 'Plant settings'],
   floor_lead: ['Home', 'Shift sheets'],
-  admin: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Shift sheets', 'People', 'Plant settings', 'Mail'],
+  admin: ['Home', 'Products', 'Work centers', 'Materials', 'Demand', 'Plans', 'Shift sheets', 'People', 'Plant settings', 'Mail', 'Caught mail'],
 };
 
 describe('role-dependent navigation', () => {

@@ -56,6 +56,9 @@ export default function AppLayout() {
             <span>
               {me.data.name} <span className="rounded bg-race-700 px-1.5 py-0.5">{roleLabels[role]}</span>
             </span>
+            <NavLink to={paths.changePassword.getHref()} className="rounded px-1.5 py-1 underline hover:bg-race-700">
+              Change password
+            </NavLink>
             <Button
               size="sm"
               busy={signOut.isPending}

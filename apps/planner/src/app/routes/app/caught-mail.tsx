@@ -1,0 +1,5 @@
+import { CaughtMailPage } from '@/features/caught-mail';
+
+export default function CaughtMailRoute() {
+  return <CaughtMailPage />;
+}

@@ -1,0 +1,5 @@
+import { ForgotPasswordPage } from '@/features/auth/components/forgot-password-page';
+
+export default function ForgotPasswordRoute() {
+  return <ForgotPasswordPage />;
+}
