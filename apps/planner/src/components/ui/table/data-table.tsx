@@ -32,13 +32,22 @@ function resolve<T>(updater: Updater<T>, current: T): T {
   return typeof updater === 'function' ? (updater as (old: T) => T)(current) : updater;
 }
 
+type DataRowProps<T> = {
+  row: Row<T>;
+  index: number;
+  columnsKey: string;
+  columns: unknown;
+  /** Tells the virtualiser the row's real height (long text wraps at narrow widths). */
+  measure: (element: Element | null) => void;
+};
+
 /**
  * One body row, memoised so that scrolling draws only rows that come into view. `columnsKey`
  * changes when columns are shown or hidden; new column definitions (e.g. with new actions) redraw too.
  */
-const DataRow = memo(function DataRow<T>({ row, index }: { row: Row<T>; index: number; columnsKey: string; columns: unknown }) {
+const DataRow = memo(function DataRow<T>({ row, index, measure }: DataRowProps<T>) {
   return (
-    <tr aria-rowindex={index + 2} className="border-b border-line/60 hover:bg-race-50" style={{ height: rowHeightPx }}>
+    <tr ref={measure} data-index={index} aria-rowindex={index + 2} className="border-b border-line/60 hover:bg-race-50" style={{ height: rowHeightPx }}>
       {row.getVisibleCells().map((cell) => (
         <td key={cell.id} className={`px-2 py-1.5 ${cell.column.columnDef.meta?.numeric ? 'text-right tabular-nums' : ''}`}>
           {flexRender(cell.column.columnDef.cell, cell.getContext())}
@@ -46,7 +55,7 @@ const DataRow = memo(function DataRow<T>({ row, index }: { row: Row<T>; index: n
       ))}
     </tr>
   );
-}) as <T>(props: { row: Row<T>; index: number; columnsKey: string; columns: unknown }) => ReactNode;
+}) as <T>(props: DataRowProps<T>) => ReactNode;
 
 export type DataTableProps<T> = {
   /** Accessible name of the table (also its caption). */
@@ -205,7 +214,14 @@ export function DataTable<T>({ label, columns, data, empty, getRowId, maxHeightP
               </tr>
             ) : null}
             {items.map((item) => (
-              <DataRow key={rows[item.index].id} row={rows[item.index]} index={item.index} columnsKey={visibilityKey} columns={columns} />
+              <DataRow
+                key={rows[item.index].id}
+                row={rows[item.index]}
+                index={item.index}
+                columnsKey={visibilityKey}
+                columns={columns}
+                measure={virtualizer.measureElement}
+              />
             ))}
             {paddingBottom > 0 ? (
               <tr aria-hidden="true">
