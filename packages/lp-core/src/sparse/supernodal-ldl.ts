@@ -20,6 +20,7 @@ export class SupernodalLdl {
   readonly D: Float64Array;
   private readonly relmap: Int32Array;
   private readonly tmp: Float64Array;
+  private readonly tmp2: Float64Array;
   private readonly rel: Int32Array;
   private readonly head: Int32Array;
   private readonly next: Int32Array;
@@ -33,6 +34,7 @@ export class SupernodalLdl {
     let maxRows = 0;
     for (let s = 0; s < sym.count; s++) maxRows = Math.max(maxRows, sym.rowPtr[s + 1] - sym.rowPtr[s]);
     this.tmp = new Float64Array(maxRows);
+    this.tmp2 = new Float64Array(maxRows);
     this.rel = new Int32Array(maxRows);
     this.head = new Int32Array(sym.count);
     this.next = new Int32Array(sym.count);
@@ -43,7 +45,7 @@ export class SupernodalLdl {
   /** Lp/Li/Lx: the lower triangle (rows ≥ column) of the permuted matrix in CSC form. */
   factorise(Lp: Int32Array, Li: Int32Array, Ax: Float64Array, opts: FactorOptions): FactorReport {
     const { count, super: sup, snode, rowPtr, rows, blockPtr } = this.sym;
-    const { Lx, D, relmap, tmp, rel, head, next, nextRow, diag } = this;
+    const { Lx, D, relmap, tmp, tmp2, rel, head, next, nextRow, diag } = this;
     const { pivotTolerance, dynamicRegularisation, bigPivot, sign } = opts;
     const deadline = opts.deadline ?? Infinity;
     head.fill(-1);
@@ -106,21 +108,58 @@ export class SupernodalLdl {
             }
           }
         } else {
-          for (let t = start; t < end; t++) {
+          // wide descendant: two target columns at a time, so each value of d's block loaded
+          // serves two multiply–adds (tmp for column t, tmp2 for column t + 1)
+          let t = start;
+          for (; t + 1 < end; t += 2) {
             tmp.fill(0, t, nrd);
+            tmp2.fill(0, t + 1, nrd);
             let k = 0;
             for (; k + 3 < wd; k += 4) {
               const b0 = offd + k * nrd;
               const b1 = b0 + nrd;
               const b2 = b1 + nrd;
               const b3 = b2 + nrd;
-              const a0 = Lx[b0 + t] * D[fd + k];
-              const a1 = Lx[b1 + t] * D[fd + k + 1];
-              const a2 = Lx[b2 + t] * D[fd + k + 2];
-              const a3 = Lx[b3 + t] * D[fd + k + 3];
-              for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0 + Lx[b1 + r] * a1 + Lx[b2 + r] * a2 + Lx[b3 + r] * a3;
+              const e0 = D[fd + k];
+              const e1 = D[fd + k + 1];
+              const e2 = D[fd + k + 2];
+              const e3 = D[fd + k + 3];
+              const a0 = Lx[b0 + t] * e0;
+              const a1 = Lx[b1 + t] * e1;
+              const a2 = Lx[b2 + t] * e2;
+              const a3 = Lx[b3 + t] * e3;
+              const c0 = Lx[b0 + t + 1] * e0;
+              const c1 = Lx[b1 + t + 1] * e1;
+              const c2 = Lx[b2 + t + 1] * e2;
+              const c3 = Lx[b3 + t + 1] * e3;
+              tmp[t] += Lx[b0 + t] * a0 + Lx[b1 + t] * a1 + Lx[b2 + t] * a2 + Lx[b3 + t] * a3;
+              for (let r = t + 1; r < nrd; r++) {
+                const l0 = Lx[b0 + r];
+                const l1 = Lx[b1 + r];
+                const l2 = Lx[b2 + r];
+                const l3 = Lx[b3 + r];
+                tmp[r] += l0 * a0 + l1 * a1 + l2 * a2 + l3 * a3;
+                tmp2[r] += l0 * c0 + l1 * c1 + l2 * c2 + l3 * c3;
+              }
             }
             for (; k < wd; k++) {
+              const b0 = offd + k * nrd;
+              const a0 = Lx[b0 + t] * D[fd + k];
+              const c0 = Lx[b0 + t + 1] * D[fd + k];
+              tmp[t] += Lx[b0 + t] * a0;
+              for (let r = t + 1; r < nrd; r++) {
+                tmp[r] += Lx[b0 + r] * a0;
+                tmp2[r] += Lx[b0 + r] * c0;
+              }
+            }
+            const cbase = off + (rows[rd0 + t] - f) * nrs;
+            for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= tmp[r];
+            const cbase2 = off + (rows[rd0 + t + 1] - f) * nrs;
+            for (let r = t + 1; r < nrd; r++) Lx[cbase2 + rel[r]] -= tmp2[r];
+          }
+          for (; t < end; t++) {
+            tmp.fill(0, t, nrd);
+            for (let k = 0; k < wd; k++) {
               const b0 = offd + k * nrd;
               const a0 = Lx[b0 + t] * D[fd + k];
               if (a0 === 0) continue;
