@@ -23,25 +23,25 @@ export interface ShiftSheetsPdfRequest {
  * Chromium print the print view with the person's own session — one page per work-center shift
  * with work.
  */
-export async function renderShiftSheetsPdf(db: EntityManager, printer: SheetPrinter, req: ShiftSheetsPdfRequest): Promise<{ pdf: Buffer; filename: string; pages: number }> {
-  const sheets = await getShiftSheets(db, { planId: req.planId, week: req.week, role: req.role });
-  const chosen = req.workCenter === undefined ? sheets.workCenters : sheets.workCenters.filter((w) => w.code === req.workCenter);
+export async function renderShiftSheetsPdf(db: EntityManager, printer: SheetPrinter, req: ShiftSheetsPdfRequest): Promise<{ pdf: Buffer; filename: string; sheets: number }> {
+  const week = await getShiftSheets(db, { planId: req.planId, week: req.week, role: req.role });
+  const chosen = req.workCenter === undefined ? week.workCenters : week.workCenters.filter((w) => w.code === req.workCenter);
   if (req.workCenter !== undefined && chosen.length === 0) {
     throw AppError.validation('The work center is not part of this plan version.', [
       { path: 'query.workCenter', message: `Plan version ${req.planId} has no work center ${req.workCenter}.` },
     ]);
   }
-  const pages = chosen.reduce((a, w) => a + w.days.reduce((b, d) => b + d.shifts.length, 0), 0);
-  if (pages === 0) {
-    const what = req.workCenter === undefined ? 'No work center' : `Work center ${req.workCenter}`;
-    throw AppError.conflict(`${what} has work in the week starting ${sheets.week.start} of plan version ${req.planId}; there is no sheet to print.`);
+  const sheets = chosen.reduce((a, w) => a + w.days.reduce((b, d) => b + d.shifts.length, 0), 0);
+  if (sheets === 0) {
+    const who = req.workCenter === undefined ? 'No work center has' : `Work center ${req.workCenter} has no`;
+    throw AppError.conflict(`${who} work in the week starting ${week.week.start} of plan version ${req.planId}; there is no sheet to print.`);
   }
   if (!req.printViewServed) {
     throw new AppError(503, 'internal_error', 'PDFs are printed from the planner’s print view, and this server does not serve the built planner (set PLANNER_DIST).');
   }
-  const query = new URLSearchParams({ week: sheets.week.start, paper: req.paper });
+  const query = new URLSearchParams({ week: week.week.start, paper: req.paper });
   if (req.workCenter !== undefined) query.set('workCenter', req.workCenter);
   const pdf = await printer.print({ url: `${req.selfUrl}/print/shift-sheets/${req.planId}?${query}`, cookie: req.sessionCookie, paper: req.paper });
-  const filename = `shift-sheets-plan-${req.planId}-${sheets.week.start}${req.workCenter ? `-${req.workCenter.replace(/[^A-Za-z0-9_-]/g, '_')}` : ''}.pdf`;
-  return { pdf, filename, pages };
+  const filename = `shift-sheets-plan-${req.planId}-${week.week.start}${req.workCenter ? `-${req.workCenter.replace(/[^A-Za-z0-9_-]/g, '_')}` : ''}.pdf`;
+  return { pdf, filename, sheets };
 }

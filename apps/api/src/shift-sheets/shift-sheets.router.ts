@@ -48,7 +48,7 @@ export function shiftSheetsRouter(ctx: ApiContext): Router {
       sessionCookie: { name: ctx.lucia.sessionCookieName, value: res.locals.auth!.sessionId! },
       printViewServed: Boolean(ctx.config.plannerDist),
     });
-    res.attachment(out.filename).type('application/pdf').set('X-Page-Count', String(out.pages)).send(out.pdf);
+    res.attachment(out.filename).type('application/pdf').set('X-Sheet-Count', String(out.sheets)).send(out.pdf);
   });
   return router;
 }

@@ -72,6 +72,13 @@ beforeAll(async () => {
   ctx = await createTestContext();
   for (const role of roles) agents[role] = await ctx.agentFor(role);
   await seedCrewPlant(agents.planner);
+  await ok(
+    agents.planner.post('/api/work-centers').send({
+      code: 'IDLE', name: 'Idle bench', efficiency: 1, overtimeCapHoursPerWeek: 0, overtimeCostPerHour: 0,
+      shiftPattern: { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] },
+    }),
+    201,
+  );
   runner = new SolverJobRunner(ctx.dataSource, { pollMs: 100 });
   runner.start();
 });
@@ -143,6 +150,12 @@ describe('a loaded work center with no open shift', () => {
     expect(res.status).toBe(422);
     expect(res.body.error.issues).toEqual([{ item: `work center HOL, week starting ${FIRST_WEEK}`, message: expect.stringMatching(new RegExp(`work center HOL has no open shift in the week starting ${FIRST_WEEK} but the plan loads it`)) }]);
     expect(res.body).not.toHaveProperty('workCenters');
-    expect((await agents.floor_lead.get(`/api/plans/${planId}/shift-sheets?week=${SECOND_WEEK}`)).status).toBe(200);
+    const w2 = await agents.floor_lead.get(`/api/plans/${planId}/shift-sheets?week=${SECOND_WEEK}`);
+    expect(w2.status).toBe(200);
+    // IDLE has a calendar but no routing uses it: it is on the sheets with nothing to print
+    expect(w2.body.workCenters.find((c: { code: string }) => c.code === 'IDLE').days).toEqual([]);
+    const pdf = await agents.floor_lead.get(`/api/plans/${planId}/shift-sheets.pdf?week=${SECOND_WEEK}&workCenter=IDLE`);
+    expect(pdf.status).toBe(409);
+    expect(pdf.body.error.message).toBe(`Work center IDLE has no work in the week starting ${SECOND_WEEK} of plan version ${planId}; there is no sheet to print.`);
   });
 });
