@@ -25,6 +25,7 @@ import { invitationsRouter } from './invitations/invitations.router';
 import { importsRouter } from './imports/imports.router';
 import { exportsRouter } from './exports/exports.router';
 import { shiftSheetsRouter } from './shift-sheets/shift-sheets.router';
+import { devMailRouter } from './dev-mail/dev-mail.router';
 
 /** Largest JSON body accepted (bigger → 413 payload_too_large). */
 export const jsonBodyLimit = '1mb';
@@ -34,7 +35,7 @@ export const jsonBodyLimit = '1mb';
  * `allow(...)` or `open()` first on each route (the route-matrix test enforces it).
  * Areas append their router factory here.
  */
-const areaRouters: Array<(ctx: ApiContext) => Router> = [authRouter, peopleRouter, settingsRouter, productsRouter, workCentersRouter, materialsRouter, demandRouter, homeRouter, plansRouter, signOffRouter, scenariosRouter, outboxRouter, invitationsRouter, importsRouter, exportsRouter, shiftSheetsRouter];
+const areaRouters: Array<(ctx: ApiContext) => Router> = [authRouter, peopleRouter, settingsRouter, productsRouter, workCentersRouter, materialsRouter, demandRouter, homeRouter, plansRouter, signOffRouter, scenariosRouter, outboxRouter, invitationsRouter, importsRouter, exportsRouter, shiftSheetsRouter, devMailRouter];
 
 /** Builds the Express app (no listen): health, DB gate, CSRF, JSON, sessions, areas, 404, errors. */
 export function createApp(ctx: AppContext): Express {

@@ -14,6 +14,8 @@ export const errorCodeSchema = z.enum([
   'db_unavailable',
   'payload_too_large',
   'internal_error',
+  /** The local mail catcher (development) did not answer (502). */
+  'mail_catcher_unavailable',
 ]);
 export type ErrorCode = z.infer<typeof errorCodeSchema>;
 
