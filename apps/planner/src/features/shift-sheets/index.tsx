@@ -99,12 +99,15 @@ export function ShiftSheetsPage({ role }: { role: Role }) {
           onRetry={() => void sheets.refetch()}
         />
       ) : null}
-      {sheets.isError && isApiError(sheets.error) && sheets.error.issues.length > 0 ? (
+      {sheets.isError && isApiError(sheets.error) && sheets.error.issues.length + sheets.error.fields.length > 0 ? (
         <ul className="mt-2 list-disc pl-6 text-sm">
           {sheets.error.issues.map((i) => (
             <li key={i.item}>
               <span className="font-semibold">{i.item}:</span> {i.message}
             </li>
+          ))}
+          {sheets.error.fields.map((f) => (
+            <li key={f.path}>{f.message}</li>
           ))}
         </ul>
       ) : null}
