@@ -1,5 +1,6 @@
-import { LessThan, MoreThan, type EntityManager } from 'typeorm';
+import type { EntityManager } from 'typeorm';
 import { SignInAttemptEntity } from '../db/entities/sign-in-attempt.entity';
+import { checkAttemptAllowance, recordAttempt, type AttemptAllowance, type AttemptLimits } from './attempt-rate-limit';
 
 /**
  * Failed sign-ins are stored in MariaDB (table sign_in_attempt), so the limit holds across
@@ -14,32 +15,20 @@ export const signInLimits = {
   maxFailuresPerIp: 100,
 } as const;
 
-export type SignInAllowance = { outcome: 'allowed' } | { outcome: 'limited'; retryAfterSeconds: number };
+const limits: AttemptLimits = {
+  windowMs: signInLimits.windowMs,
+  maxPerEmailAndIp: signInLimits.maxFailuresPerEmailAndIp,
+  maxPerIp: signInLimits.maxFailuresPerIp,
+};
 
-export async function checkSignInAllowance(db: EntityManager, email: string, ip: string, now = new Date()): Promise<SignInAllowance> {
-  const repo = db.getRepository(SignInAttemptEntity);
-  const since = new Date(now.getTime() - signInLimits.windowMs);
-  const checks: Array<{ where: object; max: number }> = [
-    { where: { email, ip, attemptedAt: MoreThan(since) }, max: signInLimits.maxFailuresPerEmailAndIp },
-    { where: { ip, attemptedAt: MoreThan(since) }, max: signInLimits.maxFailuresPerIp },
-  ];
-  let retryAfterMs = 0;
-  for (const { where, max } of checks) {
-    const recent = await repo.find({ where, order: { attemptedAt: 'DESC' }, take: max, select: { attemptedAt: true } });
-    if (recent.length >= max) {
-      // The oldest of the last `max` failures must leave the window before one more is allowed.
-      const oldest = recent[recent.length - 1].attemptedAt.getTime();
-      retryAfterMs = Math.max(retryAfterMs, oldest + signInLimits.windowMs - now.getTime());
-    }
-  }
-  return retryAfterMs > 0 ? { outcome: 'limited', retryAfterSeconds: Math.max(1, Math.ceil(retryAfterMs / 1000)) } : { outcome: 'allowed' };
+export type SignInAllowance = AttemptAllowance;
+
+export function checkSignInAllowance(db: EntityManager, email: string, ip: string, now = new Date()): Promise<SignInAllowance> {
+  return checkAttemptAllowance(db, SignInAttemptEntity, limits, email, ip, now);
 }
 
-export async function recordSignInFailure(db: EntityManager, email: string, ip: string, now = new Date()): Promise<void> {
-  const repo = db.getRepository(SignInAttemptEntity);
-  await repo.insert({ email, ip, attemptedAt: now });
-  // Keep the table small: forget failures that left the window.
-  await repo.delete({ attemptedAt: LessThan(new Date(now.getTime() - signInLimits.windowMs)) });
+export function recordSignInFailure(db: EntityManager, email: string, ip: string, now = new Date()): Promise<void> {
+  return recordAttempt(db, SignInAttemptEntity, limits, email, ip, now);
 }
 
 export async function clearSignInFailures(db: EntityManager, email: string, ip: string): Promise<void> {

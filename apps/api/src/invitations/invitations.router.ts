@@ -35,8 +35,9 @@ export function invitationsRouter(ctx: ApiContext): Router {
     const { token, password } = withToken.from(res).body;
     res.json(await setPasswordWithToken(ctx.dataSource, ctx.lucia, 'invitation', token, password));
   });
-  router.post('/api/password-resets/request', open(), resetRequest, async (_req, res) => {
-    await requestPasswordReset(ctx.dataSource, resetRequest.from(res).body.email, publicUrl);
+  router.post('/api/password-resets/request', open(), resetRequest, async (req, res) => {
+    const ip = req.ip ?? req.socket.remoteAddress ?? 'unknown';
+    await requestPasswordReset(ctx.dataSource, resetRequest.from(res).body.email, ip, publicUrl);
     res.status(202).json({ message: 'If the address belongs to an active account, a link to choose a new password is on its way.' });
   });
   router.post('/api/password-resets/confirm', open(), withToken, async (_req, res) => {

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { invitationSentSchema, personTokenInfoSchema } from '@millrace/contracts';
+import { passwordResetLimits } from '../../src/invitations/password-reset-rate-limit';
 import { OutboxSender } from '../../src/mail/outbox-sender';
 import { createSmtpMailer } from '../../src/mail/smtp-mailer';
 import { createTestContext, type TestAgent, type TestContext } from '../support/test-app';
@@ -139,5 +140,33 @@ describe('password reset', () => {
       expect(res.body.message).toMatch(/If the address belongs to an active account/);
     }
     expect(await sender.sendDue()).toEqual({ sent: 0, failed: 0 });
+  });
+
+  it(`when one e-mail asks for a reset link more than ${passwordResetLimits.maxPerEmailAndIp} times from one address, then 429 with Retry-After and no more mail`, async () => {
+    const email = testPeople.planner.email;
+    for (let i = 0; i < passwordResetLimits.maxPerEmailAndIp; i++) {
+      expect((await ctx.anonymous().post('/api/password-resets/request').send({ email })).status).toBe(202);
+    }
+    expect(await sender.sendDue()).toEqual({ sent: passwordResetLimits.maxPerEmailAndIp, failed: 0 });
+
+    const limited = await ctx.anonymous().post('/api/password-resets/request').send({ email: email.toUpperCase() });
+    expect(limited.status).toBe(429);
+    expect(limited.body.error.code).toBe('rate_limited');
+    const retryAfter = Number(limited.headers['retry-after']);
+    expect(retryAfter).toBeGreaterThan(passwordResetLimits.windowMs / 1000 - 60);
+    expect(retryAfter).toBeLessThanOrEqual(passwordResetLimits.windowMs / 1000);
+    expect(limited.body.error.message).toMatch(/Try again in \d+ minutes?\./);
+    expect(await sender.sendDue()).toEqual({ sent: 0, failed: 0 });
+    const [{ n }]: { n: number | string }[] = await ctx.dataSource.query('SELECT COUNT(*) AS n FROM password_reset_request WHERE email = ?', [email]);
+    expect(Number(n)).toBe(passwordResetLimits.maxPerEmailAndIp); // the refused request is not counted again
+
+    // another address from the same place is still served (per e-mail + IP, not per IP alone)
+    expect((await ctx.anonymous().post('/api/password-resets/request').send({ email: 'someone-else@millrace.test' })).status).toBe(202);
+  });
+
+  it('when the window has passed, then the same e-mail may ask again', async () => {
+    const email = testPeople.planner.email;
+    await ctx.dataSource.query('UPDATE password_reset_request SET requested_at = ? WHERE email = ?', [new Date(Date.now() - passwordResetLimits.windowMs - 1000), email]);
+    expect((await ctx.anonymous().post('/api/password-resets/request').send({ email })).status).toBe(202);
   });
 });

@@ -1,12 +1,8 @@
 import { EntitySchema } from 'typeorm';
+import type { AttemptRow } from '../../auth/attempt-rate-limit';
 
 /** One failed sign-in, kept for the rate limit (shared by every API process through MariaDB). */
-export interface SignInAttemptRow {
-  id: number;
-  email: string;
-  ip: string;
-  attemptedAt: Date;
-}
+export type SignInAttemptRow = AttemptRow;
 
 export const SignInAttemptEntity = new EntitySchema<SignInAttemptRow>({
   name: 'SignInAttempt',
