@@ -169,6 +169,10 @@ cmd_start() {
   require_file apps/api/src/db/seed-demo.ts "the API's demo-plant loader is not in this checkout yet."
   require_file apps/api/src/server.ts "the API server is not in this checkout yet."
   mr_db_ensure_installed || die "could not install mariadb-server."
+  # Chromium renders the shift-sheet PDFs; without it the app runs and "Download PDF" says so.
+  if [ ! -x "${CHROMIUM_PATH:-/usr/bin/chromium}" ]; then
+    mr_apt_install chromium || log "warning: Chromium did not install; shift-sheet PDFs are unavailable until it is."
+  fi
 
   local port="${PORT:-8080}" db_port="${MILLRACE_DB_PORT:-3407}"
   local smtp_port="${MAIL_CATCHER_SMTP_PORT:-2525}" mail_http_port="${MAIL_CATCHER_HTTP_PORT:-2580}"
