@@ -14,7 +14,8 @@ export function servePlanner(app: Express, plannerDist: string): void {
   app.use((req, res, next) => {
     if ((req.method !== 'GET' && req.method !== 'HEAD') || req.path === '/api' || req.path.startsWith('/api/')) return next();
     res.set('Cache-Control', 'no-cache');
-    res.sendFile(indexHtml);
+    // relative to root, so a PLANNER_DIST under a dot-folder (e.g. .millrace/) is still served
+    res.sendFile('index.html', { root });
   });
 }
 
