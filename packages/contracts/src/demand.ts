@@ -15,6 +15,8 @@ export const firmOrderSchema = z.object({
   id: z.number().int(),
   orderRef: z.string(),
   qty: z.number(),
+  /** The customer order must ship complete by its week: a plan that cannot do so is infeasible. */
+  mustShip: z.boolean(),
   version: z.number().int(),
 });
 export type FirmOrder = z.infer<typeof firmOrderSchema>;
@@ -80,6 +82,8 @@ export const demandChangeSchema = z.discriminatedUnion('kind', [
     weekStart: isoDateSchema,
     orderRef: z.string().trim().min(1, 'Enter the customer order reference.').max(60, 'Use at most 60 characters.'),
     qty: quantitySchema,
+    /** Must ship complete by its week. Left out: a new order is not must-ship, a stored one keeps its mark. */
+    mustShip: z.boolean({ error: 'Must-ship is true or false.' }).optional(),
     version: expectedVersion,
   }),
   z.strictObject({

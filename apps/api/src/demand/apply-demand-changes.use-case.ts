@@ -12,7 +12,7 @@ import {
   findForecasts,
   insertFirmOrders,
   insertForecasts,
-  updateFirmOrderQty,
+  updateFirmOrder,
   updateForecastQty,
   type StoredFirmOrder,
   type StoredForecast,
@@ -93,14 +93,14 @@ async function writeBatch(dataSource: DataSource, batch: DemandBatch): Promise<D
       if (action.kind === 'unchanged') result.unchanged += 1;
       else if (action.kind === 'insert') {
         result.created += 1;
-        if (c.kind === 'firm') newFirm.push({ productId: c.productId, weekStart: c.weekStart, orderRef: c.orderRef, qty: c.qty });
+        if (c.kind === 'firm') newFirm.push({ productId: c.productId, weekStart: c.weekStart, orderRef: c.orderRef, qty: c.qty, mustShip: c.mustShip ?? false });
         else newForecast.push({ productId: c.productId, weekStart: c.weekStart, qty: c.qty });
       } else if (action.kind === 'delete') {
         result.deleted += 1;
         (c.kind === 'firm' ? goneFirm : goneForecast).push(action.id);
       } else {
         result.updated += 1;
-        if (c.kind === 'firm') await updateFirmOrderQty(db, action.id, c.qty);
+        if (c.kind === 'firm') await updateFirmOrder(db, action.id, { qty: c.qty, mustShip: c.mustShip });
         else await updateForecastQty(db, action.id, c.qty);
       }
     }
@@ -126,5 +126,6 @@ function describeCell(c: DemandChange, productCode: string): string {
 function decide(c: DemandChange, stored: StoredFirmOrder | StoredForecast | undefined): Action {
   if (!stored) return c.qty === 0 ? { kind: 'unchanged' } : { kind: 'insert' };
   if (c.qty === 0) return { kind: 'delete', id: stored.id };
-  return stored.qty === c.qty ? { kind: 'unchanged' } : { kind: 'update', id: stored.id };
+  const markChanged = c.kind === 'firm' && c.mustShip !== undefined && c.mustShip !== (stored as StoredFirmOrder).mustShip;
+  return stored.qty === c.qty && !markChanged ? { kind: 'unchanged' } : { kind: 'update', id: stored.id };
 }

@@ -10,6 +10,8 @@ export interface StoredFirmOrder {
   weekStart: string;
   orderRef: string;
   qty: number;
+  /** must ship complete by its week (a hard requirement for the plan); absent on insert means no */
+  mustShip?: boolean;
   version: number;
 }
 export interface StoredForecast {
@@ -86,12 +88,12 @@ export async function weekTotals(
   return totals;
 }
 
-const firmColumns = "id, product_id AS productId, DATE_FORMAT(week_start, '%Y-%m-%d') AS weekStart, order_ref AS orderRef, qty, version";
+const firmColumns = "id, product_id AS productId, DATE_FORMAT(week_start, '%Y-%m-%d') AS weekStart, order_ref AS orderRef, qty, must_ship AS mustShip, version";
 const forecastColumns = "id, product_id AS productId, DATE_FORMAT(week_start, '%Y-%m-%d') AS weekStart, qty, version";
 
-type RawFirm = Omit<StoredFirmOrder, 'qty'> & { qty: string };
+type RawFirm = Omit<StoredFirmOrder, 'qty' | 'mustShip'> & { qty: string; mustShip: number | string };
 type RawForecast = Omit<StoredForecast, 'qty'> & { qty: string };
-const plainFirm = (r: RawFirm): StoredFirmOrder => ({ id: r.id, productId: r.productId, weekStart: r.weekStart, orderRef: r.orderRef, qty: Number(r.qty), version: r.version });
+const plainFirm = (r: RawFirm): StoredFirmOrder => ({ id: r.id, productId: r.productId, weekStart: r.weekStart, orderRef: r.orderRef, qty: Number(r.qty), mustShip: Number(r.mustShip) === 1, version: r.version });
 const plainForecast = (r: RawForecast): StoredForecast => ({ id: r.id, productId: r.productId, weekStart: r.weekStart, qty: Number(r.qty), version: r.version });
 
 /**
@@ -121,7 +123,7 @@ export async function findForecasts(db: EntityManager, productIds: number[], fro
 export async function insertFirmOrders(db: EntityManager, rows: Array<Omit<StoredFirmOrder, 'id' | 'version'>>): Promise<void> {
   if (rows.length === 0) return;
   const now = new Date();
-  await db.getRepository(FirmOrderEntity).insert(rows.map((r) => ({ ...r, version: 1, createdAt: now, updatedAt: now })));
+  await db.getRepository(FirmOrderEntity).insert(rows.map((r) => ({ ...r, mustShip: r.mustShip ?? false, version: 1, createdAt: now, updatedAt: now })));
 }
 
 export async function insertForecasts(db: EntityManager, rows: Array<Omit<StoredForecast, 'id' | 'version'>>): Promise<void> {
@@ -132,6 +134,12 @@ export async function insertForecasts(db: EntityManager, rows: Array<Omit<Stored
 
 export async function updateFirmOrderQty(db: EntityManager, id: number, qty: number): Promise<void> {
   await db.getRepository(FirmOrderEntity).update({ id }, { qty, version: () => 'version + 1', updatedAt: new Date() });
+}
+
+/** Quantity and must-ship mark of one firm order (the mark only when given). */
+export async function updateFirmOrder(db: EntityManager, id: number, change: { qty: number; mustShip?: boolean }): Promise<void> {
+  const mark = change.mustShip === undefined ? {} : { mustShip: change.mustShip };
+  await db.getRepository(FirmOrderEntity).update({ id }, { qty: change.qty, ...mark, version: () => 'version + 1', updatedAt: new Date() });
 }
 
 export async function updateForecastQty(db: EntityManager, id: number, qty: number): Promise<void> {

@@ -31,7 +31,7 @@ export async function getDemandGrid(db: EntityManager, query: DemandQuery): Prom
   };
   for (const o of firm) {
     const c = cell(o.productId, o.weekStart);
-    c.firmOrders.push({ id: o.id, orderRef: o.orderRef, qty: o.qty, version: o.version });
+    c.firmOrders.push({ id: o.id, orderRef: o.orderRef, qty: o.qty, mustShip: o.mustShip ?? false, version: o.version });
     c.firmQty += o.qty;
   }
   for (const f of forecast) {

@@ -103,7 +103,7 @@ export function toPlanningData(rows: MasterDataRows, weekStarts: string[]): Plan
     demand: [
       ...rows.firmOrders
         .filter((o) => included.has(o.productId) && weekIndex.has(o.weekStart) && o.qty > 0)
-        .map((o) => ({ product: productById.get(o.productId)!.code, week: weekIndex.get(o.weekStart)!, kind: 'firm' as const, qty: o.qty, orderRef: o.orderRef })),
+        .map((o) => ({ product: productById.get(o.productId)!.code, week: weekIndex.get(o.weekStart)!, kind: 'firm' as const, qty: o.qty, orderRef: o.orderRef, ...(o.mustShip && { mustShip: true }) })),
       ...rows.forecasts
         .filter((f) => included.has(f.productId) && weekIndex.has(f.weekStart) && f.qty > 0)
         .map((f) => ({ product: productById.get(f.productId)!.code, week: weekIndex.get(f.weekStart)!, kind: 'forecast' as const, qty: f.qty })),

@@ -8,6 +8,7 @@ export interface FirmOrderRow {
   weekStart: string;
   orderRef: string;
   qty: number;
+  mustShip: boolean;
   version: number;
   createdAt: Date;
   updatedAt: Date;
@@ -23,6 +24,7 @@ export const FirmOrderEntity = new EntitySchema<FirmOrderRow>({
     weekStart: { name: 'week_start', type: 'date' },
     orderRef: { name: 'order_ref', type: 'varchar', length: 60 },
     qty: { type: 'decimal', precision: 14, scale: 4, transformer: decimalAsNumber },
+    mustShip: { name: 'must_ship', type: 'boolean', default: false },
     version: { type: 'int', default: 1 },
     createdAt: { name: 'created_at', type: 'datetime', precision: 3 },
     updatedAt: { name: 'updated_at', type: 'datetime', precision: 3 },

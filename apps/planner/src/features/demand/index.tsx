@@ -276,6 +276,7 @@ export function DemandPage({ canEdit }: { canEdit: boolean }) {
             />
             {activeRow && activeCell && activeCell.line.kind === 'firm' && activeRow.cells[activeCell.week] ? (
               <CellOrders
+                productId={activeRow.productId}
                 productCode={activeRow.productCode}
                 unit={activeRow.unit}
                 cell={activeRow.cells[activeCell.week]}

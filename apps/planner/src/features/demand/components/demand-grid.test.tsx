@@ -22,14 +22,14 @@ const grid: DemandGrid = {
       unit: 'pcs',
       kind: 'finished',
       cells: [
-        { weekStart: weeks[0], firmQty: 10, firmOrders: [{ id: 11, orderRef: 'A-1', qty: 10, version: 2 }], forecastQty: 0, forecastVersion: null },
+        { weekStart: weeks[0], firmQty: 10, firmOrders: [{ id: 11, orderRef: 'A-1', qty: 10, mustShip: false, version: 2 }], forecastQty: 0, forecastVersion: null },
         { weekStart: weeks[1], firmQty: 0, firmOrders: [], forecastQty: 4, forecastVersion: 3 },
         {
           weekStart: weeks[2],
           firmQty: 5,
           firmOrders: [
-            { id: 21, orderRef: 'B-1', qty: 2, version: 1 },
-            { id: 22, orderRef: 'B-2', qty: 3, version: 6 },
+            { id: 21, orderRef: 'B-1', qty: 2, mustShip: true, version: 1 },
+            { id: 22, orderRef: 'B-2', qty: 3, mustShip: false, version: 6 },
           ],
           forecastQty: 0,
           forecastVersion: null,
@@ -183,6 +183,31 @@ describe('demand grid', () => {
     });
   });
 
+  it('when a planner ticks "must ship" on a firm order, then that order alone is saved with the mark and the version read', async () => {
+    const { api, user } = await openGrid();
+    api.on('PUT /api/demand', () => json({ created: 0, updated: 1, deleted: 0, unchanged: 0 }));
+    await user.click(cell(/^T-1 firm, week of 7 Dec 2026: 10/));
+    const box = screen.getByRole('checkbox', { name: 'Order A-1 must ship' });
+    expect(box).not.toBeChecked();
+    await user.click(box);
+    expect(await screen.findByText('Order A-1 must ship complete in its week.')).toBeInTheDocument();
+    expect(api.sent('PUT', '/api/demand')[0].body).toEqual({
+      changes: [{ kind: 'firm', productId: 1, weekStart: '2026-12-07', orderRef: 'A-1', qty: 10, mustShip: true, version: 2 }],
+    });
+
+    await user.click(cell(/^T-1 firm, week of 21 Dec 2026: 5, 2 orders/));
+    expect(screen.getByRole('checkbox', { name: 'Order B-1 must ship' })).toBeChecked();
+    expect(screen.getByRole('checkbox', { name: 'Order B-2 must ship' })).not.toBeChecked();
+  });
+
+  it('when the order\'s quantity has an unsaved edit, then its must-ship mark waits until that is saved', async () => {
+    const { user } = await openGrid();
+    await user.click(cell(/^T-1 firm, week of 7 Dec 2026: 10/));
+    await user.keyboard('12{Enter}');
+    await user.click(cell(/^T-1 firm, week of 7 Dec 2026: 12/));
+    expect(screen.getByRole('checkbox', { name: 'Order A-1 must ship' })).toBeDisabled();
+  });
+
   it('when a supervisor opens demand, then cells are read-only and typing changes nothing', async () => {
     const { user } = await openGrid('supervisor');
     expect(screen.queryByRole('button', { name: 'Save changes' })).not.toBeInTheDocument();
@@ -190,5 +215,7 @@ describe('demand grid', () => {
     await user.keyboard('7{Enter}');
     expect(cell(/^T-1 forecast, week of 14 Dec 2026: 4$/)).toHaveAttribute('aria-readonly', 'true');
     expect(screen.getByText('Demand is read only for your role.')).toBeInTheDocument();
+    await user.click(cell(/^T-1 firm, week of 7 Dec 2026: 10/));
+    expect(screen.getByRole('checkbox', { name: 'Order A-1 must ship' })).toBeDisabled();
   });
 });
