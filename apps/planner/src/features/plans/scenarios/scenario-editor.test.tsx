@@ -46,6 +46,9 @@ describe('scenario editor', () => {
     await user.click(screen.getByRole('button', { name: 'Add override' }));
     const second = screen.getByText('2. Work center closed for maintenance').closest('li')!;
     await user.selectOptions(within(second).getByLabelText('Work center'), 'SAW');
+    // the contract's maintenance override has no hours: the work center is closed for whole weeks
+    expect(within(second).queryByRole('textbox', { name: /hours/i })).not.toBeInTheDocument();
+    expect(within(second).getByText(/Closed for the whole of each week/)).toBeInTheDocument();
     await user.click(screen.getByRole('button', { name: 'Save scenario' }));
     await waitFor(() => expect(api.sent('PATCH', '/api/scenarios/4')).toHaveLength(1));
     expect(api.sent('PATCH', '/api/scenarios/4')[0].body).toEqual({
