@@ -1,7 +1,6 @@
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import type { ProductDetail } from '@millrace/contracts';
-import { Button } from '@/components/ui/button';
-import { EmptyState } from '@/components/ui/empty-state';
+import { EditableRows } from '@/components/ui/editable-rows';
 import { ErrorState } from '@/components/ui/error-state';
 import { Form, FormInput } from '@/components/ui/form';
 import { Loading } from '@/components/ui/loading';
@@ -31,58 +30,34 @@ function BomLines({ choices, units, readOnly }: { choices: { materials: Componen
   const { control } = useFormContext<BomReplace>();
   const lines = useFieldArray({ control, name: 'lines' });
   return (
-    <div className="flex flex-col gap-3">
-      {lines.fields.length === 0 ? (
-        <EmptyState title="No components yet">A product without components needs no materials; add lines if it does.</EmptyState>
-      ) : (
-        <table className="w-full border-collapse text-sm">
-          <caption className="sr-only">Bill of materials lines</caption>
-          <thead>
-            <tr className="bg-race-50 text-left">
-              <th scope="col" className="px-2 py-1.5">#</th>
-              <th scope="col" className="px-2 py-1.5">Component</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Quantity per unit</th>
-              <th scope="col" className="px-2 py-1.5">Unit</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Scrap %</th>
-              {!readOnly ? <th scope="col" className="px-2 py-1.5"><span className="sr-only">Actions</span></th> : null}
-            </tr>
-          </thead>
-          <tbody>
-            {lines.fields.map((field, index) => (
-              <tr key={field.id} className="border-b border-line/60 align-top">
-                <td className="px-2 py-2 tabular-nums">{index + 1}</td>
-                <td className="min-w-72 px-2 py-1">
-                  <ComponentPicker index={index} choices={choices} />
-                </td>
-                <td className="w-36 px-2 py-1">
-                  <FormInput name={`lines.${index}.qtyPer`} label={`Quantity per unit, line ${index + 1}`} hideLabel number="number" className="text-right" />
-                </td>
-                <td className="px-2 py-2">
-                  <UnitOf index={index} units={units} />
-                </td>
-                <td className="w-28 px-2 py-1">
-                  <FormInput name={`lines.${index}.scrapPct`} label={`Scrap %, line ${index + 1}`} hideLabel number="number" className="text-right" />
-                </td>
-                {!readOnly ? (
-                  <td className="px-2 py-1">
-                    <Button size="sm" variant="danger" onClick={() => lines.remove(index)} aria-label={`Remove line ${index + 1}`}>
-                      Remove
-                    </Button>
-                  </td>
-                ) : null}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+    <EditableRows
+      rows={lines}
+      caption="Bill of materials lines"
+      columns={[{ header: '#' }, { header: 'Component' }, { header: 'Quantity per unit', numeric: true }, { header: 'Unit' }, { header: 'Scrap %', numeric: true }]}
+      emptyTitle="No components yet"
+      emptyText="A product without components needs no materials; add lines if it does."
+      rowNoun="line"
+      addLabel="Add component"
+      onAdd={() => lines.append({ componentProductId: null, materialId: null, qtyPer: 1, scrapPct: 0 })}
+      readOnly={readOnly}
+      renderCells={(index) => (
+        <>
+          <td className="px-2 py-2 tabular-nums">{index + 1}</td>
+          <td className="min-w-72 px-2 py-1">
+            <ComponentPicker index={index} choices={choices} />
+          </td>
+          <td className="w-36 px-2 py-1">
+            <FormInput name={`lines.${index}.qtyPer`} label={`Quantity per unit, line ${index + 1}`} hideLabel number="number" className="text-right" />
+          </td>
+          <td className="px-2 py-2">
+            <UnitOf index={index} units={units} />
+          </td>
+          <td className="w-28 px-2 py-1">
+            <FormInput name={`lines.${index}.scrapPct`} label={`Scrap %, line ${index + 1}`} hideLabel number="number" className="text-right" />
+          </td>
+        </>
       )}
-      {!readOnly ? (
-        <div>
-          <Button size="sm" onClick={() => lines.append({ componentProductId: null, materialId: null, qtyPer: 1, scrapPct: 0 })}>
-            Add component
-          </Button>
-        </div>
-      ) : null}
-    </div>
+    />
   );
 }
 

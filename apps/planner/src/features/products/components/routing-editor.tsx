@@ -1,7 +1,6 @@
 import { useFieldArray, useFormContext } from 'react-hook-form';
 import type { ProductDetail } from '@millrace/contracts';
-import { Button } from '@/components/ui/button';
-import { EmptyState } from '@/components/ui/empty-state';
+import { EditableRows } from '@/components/ui/editable-rows';
 import { ErrorState } from '@/components/ui/error-state';
 import { Form, FormInput, FormSelect } from '@/components/ui/form';
 import { Loading } from '@/components/ui/loading';
@@ -26,74 +25,39 @@ function RoutingSteps({ options, readOnly }: { options: { value: string; label: 
   const steps = useFieldArray({ control, name: 'steps' });
 
   const renumber = () => getValues('steps').forEach((_s, i) => setValue(`steps.${i}.sequence`, (i + 1) * sequenceStep, { shouldDirty: true }));
-  const move = (from: number, to: number) => {
-    steps.move(from, to);
-    renumber();
-  };
 
   return (
-    <div className="flex flex-col gap-3">
-      {steps.fields.length === 0 ? (
-        <EmptyState title="No routing steps yet">Without steps the product takes no work-center time.</EmptyState>
-      ) : (
-        <table className="w-full border-collapse text-sm">
-          <caption className="sr-only">Routing steps in order</caption>
-          <thead>
-            <tr className="bg-race-50 text-left">
-              <th scope="col" className="px-2 py-1.5">Sequence</th>
-              <th scope="col" className="px-2 py-1.5">Work center</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Hours per unit</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Setup hours</th>
-              {!readOnly ? <th scope="col" className="px-2 py-1.5"><span className="sr-only">Actions</span></th> : null}
-            </tr>
-          </thead>
-          <tbody>
-            {steps.fields.map((field, index) => (
-              <tr key={field.id} className="border-b border-line/60 align-top">
-                <td className="w-28 px-2 py-1">
-                  <FormInput name={`steps.${index}.sequence`} label={`Sequence, step ${index + 1}`} hideLabel number="number" />
-                </td>
-                <td className="min-w-64 px-2 py-1">
-                  <FormSelect name={`steps.${index}.workCenterId`} label={`Work center, step ${index + 1}`} hideLabel number options={options} placeholder="Choose a work center" />
-                </td>
-                <td className="w-32 px-2 py-1">
-                  <FormInput name={`steps.${index}.hoursPerUnit`} label={`Hours per unit, step ${index + 1}`} hideLabel number="number" className="text-right" />
-                </td>
-                <td className="w-32 px-2 py-1">
-                  <FormInput name={`steps.${index}.setupHours`} label={`Setup hours, step ${index + 1}`} hideLabel number="number" className="text-right" />
-                </td>
-                {!readOnly ? (
-                  <td className="flex gap-1 px-2 py-1">
-                    <Button size="sm" disabled={index === 0} onClick={() => move(index, index - 1)} aria-label={`Move step ${index + 1} up`}>
-                      ↑
-                    </Button>
-                    <Button size="sm" disabled={index === steps.fields.length - 1} onClick={() => move(index, index + 1)} aria-label={`Move step ${index + 1} down`}>
-                      ↓
-                    </Button>
-                    <Button size="sm" variant="danger" onClick={() => steps.remove(index)} aria-label={`Remove step ${index + 1}`}>
-                      Remove
-                    </Button>
-                  </td>
-                ) : null}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+    <EditableRows
+      rows={steps}
+      caption="Routing steps in order"
+      columns={[{ header: 'Sequence' }, { header: 'Work center' }, { header: 'Hours per unit', numeric: true }, { header: 'Setup hours', numeric: true }]}
+      emptyTitle="No routing steps yet"
+      emptyText="Without steps the product takes no work-center time."
+      rowNoun="step"
+      addLabel="Add step"
+      onAdd={() => {
+        const last = getValues('steps').reduce((m, s) => Math.max(m, Number(s.sequence) || 0), 0);
+        steps.append({ sequence: last + sequenceStep, workCenterId: 0, hoursPerUnit: 0, setupHours: 0 });
+      }}
+      onMoved={renumber}
+      readOnly={readOnly}
+      renderCells={(index) => (
+        <>
+          <td className="w-28 px-2 py-1">
+            <FormInput name={`steps.${index}.sequence`} label={`Sequence, step ${index + 1}`} hideLabel number="number" />
+          </td>
+          <td className="min-w-64 px-2 py-1">
+            <FormSelect name={`steps.${index}.workCenterId`} label={`Work center, step ${index + 1}`} hideLabel number options={options} placeholder="Choose a work center" />
+          </td>
+          <td className="w-32 px-2 py-1">
+            <FormInput name={`steps.${index}.hoursPerUnit`} label={`Hours per unit, step ${index + 1}`} hideLabel number="number" className="text-right" />
+          </td>
+          <td className="w-32 px-2 py-1">
+            <FormInput name={`steps.${index}.setupHours`} label={`Setup hours, step ${index + 1}`} hideLabel number="number" className="text-right" />
+          </td>
+        </>
       )}
-      {!readOnly ? (
-        <div>
-          <Button
-            size="sm"
-            onClick={() => {
-              const last = getValues('steps').reduce((m, s) => Math.max(m, Number(s.sequence) || 0), 0);
-              steps.append({ sequence: last + sequenceStep, workCenterId: 0, hoursPerUnit: 0, setupHours: 0 });
-            }}
-          >
-            Add step
-          </Button>
-        </div>
-      ) : null}
-    </div>
+    />
   );
 }
 

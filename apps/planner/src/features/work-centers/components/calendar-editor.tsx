@@ -1,7 +1,6 @@
 import { useFieldArray, useFormContext } from 'react-hook-form';
 import { addDays, weekStartOf, type WorkCenterDetail, type Weekday } from '@millrace/contracts';
-import { Button } from '@/components/ui/button';
-import { EmptyState } from '@/components/ui/empty-state';
+import { EditableRows } from '@/components/ui/editable-rows';
 import { Form, FormInput } from '@/components/ui/form';
 import { formatHours, formatWeekLong } from '@/lib/format';
 import { calendarReplaceSchema, useReplaceCalendar, type CalendarReplace } from '../api/replace-calendar';
@@ -32,60 +31,42 @@ function CalendarWeeks({ readOnly, weekStart }: { readOnly: boolean; weekStart: 
   };
 
   return (
-    <div className="flex flex-col gap-3">
-      {weeks.fields.length === 0 ? (
-        <EmptyState title="Every week follows the shift pattern">Add a week for holidays, planned downtime or extra shifts.</EmptyState>
-      ) : (
-        <table className="w-full border-collapse text-sm">
-          <caption className="sr-only">Weeks that differ from the shift pattern</caption>
-          <thead>
-            <tr className="bg-race-50 text-left">
-              <th scope="col" className="px-2 py-1.5">Week starting</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Holidays (days)</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Planned downtime (h)</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Extra shifts per day</th>
-              <th scope="col" className="px-2 py-1.5">Note</th>
-              {!readOnly ? <th scope="col" className="px-2 py-1.5"><span className="sr-only">Actions</span></th> : null}
-            </tr>
-          </thead>
-          <tbody>
-            {weeks.fields.map((field, index) => (
-              <tr key={field.id} className="border-b border-line/60 align-top">
-                <td className="w-44 px-2 py-1">
-                  <FormInput name={`weeks.${index}.weekStart`} type="date" label={`Week starting, row ${index + 1}`} hideLabel />
-                </td>
-                <td className="w-32 px-2 py-1">
-                  <FormInput name={`weeks.${index}.holidayDays`} label={`Holidays in days, row ${index + 1}`} hideLabel number="number" className="text-right" />
-                </td>
-                <td className="w-36 px-2 py-1">
-                  <FormInput name={`weeks.${index}.downtimeHours`} label={`Planned downtime in hours, row ${index + 1}`} hideLabel number="number" className="text-right" />
-                </td>
-                <td className="w-32 px-2 py-1">
-                  <FormInput name={`weeks.${index}.extraShifts`} label={`Extra shifts per day, row ${index + 1}`} hideLabel number="number" className="text-right" />
-                </td>
-                <td className="px-2 py-1">
-                  <FormInput name={`weeks.${index}.note`} label={`Note, row ${index + 1}`} hideLabel nullable />
-                </td>
-                {!readOnly ? (
-                  <td className="px-2 py-1">
-                    <Button size="sm" variant="danger" onClick={() => weeks.remove(index)} aria-label={`Remove row ${index + 1}`}>
-                      Remove
-                    </Button>
-                  </td>
-                ) : null}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+    <EditableRows
+      rows={weeks}
+      caption="Weeks that differ from the shift pattern"
+      columns={[
+        { header: 'Week starting' },
+        { header: 'Holidays (days)', numeric: true },
+        { header: 'Planned downtime (h)', numeric: true },
+        { header: 'Extra shifts per day', numeric: true },
+        { header: 'Note' },
+      ]}
+      emptyTitle="Every week follows the shift pattern"
+      emptyText="Add a week for holidays, planned downtime or extra shifts."
+      rowNoun="row"
+      addLabel="Add week"
+      onAdd={addWeek}
+      readOnly={readOnly}
+      renderCells={(index) => (
+        <>
+          <td className="w-44 px-2 py-1">
+            <FormInput name={`weeks.${index}.weekStart`} type="date" label={`Week starting, row ${index + 1}`} hideLabel />
+          </td>
+          <td className="w-32 px-2 py-1">
+            <FormInput name={`weeks.${index}.holidayDays`} label={`Holidays in days, row ${index + 1}`} hideLabel number="number" className="text-right" />
+          </td>
+          <td className="w-36 px-2 py-1">
+            <FormInput name={`weeks.${index}.downtimeHours`} label={`Planned downtime in hours, row ${index + 1}`} hideLabel number="number" className="text-right" />
+          </td>
+          <td className="w-32 px-2 py-1">
+            <FormInput name={`weeks.${index}.extraShifts`} label={`Extra shifts per day, row ${index + 1}`} hideLabel number="number" className="text-right" />
+          </td>
+          <td className="px-2 py-1">
+            <FormInput name={`weeks.${index}.note`} label={`Note, row ${index + 1}`} hideLabel nullable />
+          </td>
+        </>
       )}
-      {!readOnly ? (
-        <div>
-          <Button size="sm" onClick={addWeek}>
-            Add week
-          </Button>
-        </div>
-      ) : null}
-    </div>
+    />
   );
 }
 
