@@ -19,6 +19,9 @@ describe('certificate panel', () => {
     expect(panel).toHaveTextContent('Dual residual1.2e-18');
     expect(panel).toHaveTextContent('Second solverHiGHS');
     expect(panel).toHaveTextContent('Time2.2 s');
+    // Money is shown to the cent like every other margin on the page (common practice, no source).
+    expect(panel).toHaveTextContent("Its margin1,000.00 EUR");
+    expect(panel).toHaveTextContent("Plan's margin1,000.00 EUR");
   });
 
   it('when the second solver disagrees, then it says unverified plainly and never verified', () => {

@@ -1,6 +1,6 @@
 import type { Certificate } from '@millrace/contracts';
 import { formatNumber } from '@/lib/format';
-import { crossCheckWords, formatTiny } from '../plan-words';
+import { crossCheckWords, formatMoney, formatTiny } from '../plan-words';
 
 const solverNames: Record<NonNullable<Certificate['crossCheck']>['solver'], string> = {
   'javascript-lp-solver': 'javascript-lp-solver (simplex)',
@@ -55,9 +55,9 @@ export function CertificatePanel({ certificate, currency }: { certificate: Certi
             <dt>Second solver</dt>
             <dd>{solverNames[check.solver]}</dd>
             <dt>Its margin</dt>
-            <dd>{check.objective === null ? (check.status === 'running' ? 'not yet' : 'not reached') : `${formatNumber(check.objective)} ${currency}`}</dd>
+            <dd>{check.objective === null ? (check.status === 'running' ? 'not yet' : 'not reached') : formatMoney(check.objective, currency)}</dd>
             <dt>Plan's margin</dt>
-            <dd>{check.planObjective === null ? '—' : `${formatNumber(check.planObjective)} ${currency}`}</dd>
+            <dd>{check.planObjective === null ? '—' : formatMoney(check.planObjective, currency)}</dd>
             <dt>Relative difference</dt>
             <dd>{formatTiny(check.relativeDifference)}</dd>
             <dt>Time</dt>
