@@ -52,7 +52,7 @@ export async function crossCheckPlan(request: CrossCheckRequest, settings: Cross
       seconds,
       message: stopped
         ? `${label} did not finish within its limit (${seconds.toFixed(1)} s); the plan is not verified.`
-        : `${label} ended with status ${reference.status}${reference.message ? ` (${reference.message})` : ''} while our solver found an optimum of ${planObjective}; the plan is not verified.`,
+        : `${label} ended with status ${reference.status}${reference.message ? ` (${reference.message})` : ''} while our solver found an optimum of ${cents(planObjective)}; the plan is not verified.`,
     };
   }
   const objective = -reference.objective;
@@ -66,10 +66,13 @@ export async function crossCheckPlan(request: CrossCheckRequest, settings: Cross
     relativeDifference,
     seconds,
     message: agrees
-      ? `${label} found the same optimum (${objective}) in ${seconds.toFixed(2)} s.`
-      : `${label} found ${objective} but the plan says ${planObjective} (relative difference ${relativeDifference.toExponential(2)}, above ${crossCheckTolerance}).`,
+      ? `${label} found the same optimum (${cents(objective)}) in ${seconds.toFixed(2)} s.`
+      : `${label} found ${cents(objective)} but the plan says ${cents(planObjective)} (relative difference ${relativeDifference.toExponential(2)}, above ${crossCheckTolerance}).`,
   };
 }
+
+/** A margin in a message: to the cent, like every money figure the planner reads. */
+const cents = (value: number) => value.toFixed(2);
 
 interface ReferenceOutcome {
   status: string;

@@ -84,6 +84,8 @@ describe('computing a plan', () => {
     const check = await crossCheckPlan({ mps: outcome.record.mps!, planObjective: outcome.record.objective! });
     expect(check.solver).toBe('barrier');
     expect(check.status).toBe('verified');
+    // The message names the margin to the cent, not with every float digit.
+    expect(check.message).toContain(`(${check.objective!.toFixed(2)})`);
     // HiGHS solves convex QPs too: a third opinion on the same MPS.
     const highs = await solveWithHighs(problem);
     expect(Math.abs(-highs.objective - outcome.record.objective!) / Math.max(1, Math.abs(highs.objective))).toBeLessThan(1e-6);
@@ -97,7 +99,7 @@ describe('computing a plan', () => {
     expect(check.status).toBe('unverified');
     expect(Math.abs(check.objective! - outcome.record.objective!) / Math.abs(outcome.record.objective!)).toBeLessThan(1e-6);
     expect(check.planObjective).toBe(wrong);
-    expect(check.message).toContain(String(wrong));
+    expect(check.message).toContain(wrong.toFixed(2));
   });
 
   it('when the checking simplex cannot finish in its time limit, then the check says not_finished, never verified', async () => {
