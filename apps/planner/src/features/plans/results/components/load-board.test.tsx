@@ -42,4 +42,13 @@ describe('load board', () => {
     expect(cell).toHaveAccessibleName(expect.stringContaining('overtime above the plant working-time limit'));
     expect(screen.getByRole('note', { name: 'Caution: Overtime in this plan' })).toHaveTextContent('1 work-center week would take a crew past');
   });
+
+  it('when a week has a fraction of an hour of overtime, then it is written to one decimal like every other hour figure', () => {
+    // Hours to one decimal on the shop floor: common practice, no source.
+    const load = testLoad.map((r) => (r.workCenter === 'EDGE' && r.overtimeHours > 0 ? { ...r, overtimeHours: 0.96 } : r));
+    render(<LoadBoard load={load} bottlenecks={testBottlenecks} cautions={[]} />);
+    const cell = screen.getByRole('cell', { name: /^Edge bander, week of 14 Dec 2026/ });
+    expect(cell).toHaveTextContent('+1 h OT');
+    expect(cell).not.toHaveTextContent('0.96');
+  });
 });

@@ -26,7 +26,7 @@ function Cell({ cell }: { cell: BoardCell }) {
   return (
     <td
       aria-label={parts.join('; ')}
-      className={`border border-line px-2 py-1.5 text-right tabular-nums ${binding !== null ? 'font-semibold' : ''}`}
+      className={`whitespace-nowrap border border-line px-2 py-1.5 text-right tabular-nums ${binding !== null ? 'font-semibold' : ''}`}
       style={overtime ? overtimeHatch : undefined}
       data-binding={binding !== null || undefined}
     >
@@ -43,7 +43,7 @@ function Cell({ cell }: { cell: BoardCell }) {
       </div>
       {overtime ? (
         <div className="text-xs font-semibold text-over-700">
-          +{formatNumber(row.overtimeHours)} h OT
+          +{formatHours(row.overtimeHours)} OT
           {overLimit ? (
             <span title={overLimit.message}>
               {' '}
@@ -89,7 +89,7 @@ export function LoadBoard({ load, bottlenecks, cautions }: { load: LoadRow[]; bo
                 Work center
               </th>
               {weeks.map(([week, start]) => (
-                <th key={week} scope="col" className="border border-line px-2 py-1.5 text-right" aria-label={`Week ${week}, ${formatWeekLong(start)}`}>
+                <th key={week} scope="col" className="whitespace-nowrap border border-line px-2 py-1.5 text-right" aria-label={`Week ${week}, ${formatWeekLong(start)}`}>
                   W{week}
                   <div className="text-xs font-normal text-ink-soft">{formatWeek(start)}</div>
                 </th>
