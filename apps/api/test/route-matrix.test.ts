@@ -15,6 +15,7 @@ const expectedOpenRoutes = new Set([
   'GET /api/health',
   'POST /api/auth/sign-in',
   'POST /api/auth/sign-out',
+  'GET /api/session',
 ]);
 /** Public token pages (invitations, password resets) are open by nature. */
 const openRoutePatterns = [/^(GET|POST|PUT) \/api\/(invitations|password-resets)\//];

@@ -15,3 +15,14 @@ export const meSchema = z.object({
   role: roleSchema,
 });
 export type Me = z.infer<typeof meSchema>;
+
+/**
+ * Answer of GET /api/session (open): whether this browser has a session, and whose. Unlike
+ * GET /api/me (401 without a session), it always answers 200, so the planner can ask before
+ * anyone has signed in without an error answer.
+ */
+export const sessionStateSchema = z.discriminatedUnion('signedIn', [
+  z.object({ signedIn: z.literal(false) }),
+  z.object({ signedIn: z.literal(true), person: meSchema }),
+]);
+export type SessionState = z.infer<typeof sessionStateSchema>;

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { signInSchema, type Me } from '@millrace/contracts';
+import { signInSchema, type Me, type SessionState } from '@millrace/contracts';
 import type { ApiContext } from '../app-context';
 import { validate } from '../http/validate-request';
 import { currentPerson } from './current-person';
@@ -7,7 +7,7 @@ import { allow, everyRole, open } from './guard';
 import { setCookie } from './load-session';
 import { signIn } from './sign-in.use-case';
 
-/** POST /api/auth/sign-in, POST /api/auth/sign-out, GET /api/me. */
+/** POST /api/auth/sign-in, POST /api/auth/sign-out, GET /api/me, GET /api/session. */
 export function authRouter({ dataSource, lucia }: ApiContext): Router {
   const router = Router();
 
@@ -33,6 +33,14 @@ export function authRouter({ dataSource, lucia }: ApiContext): Router {
   router.get('/api/me', allow(...everyRole), (_req, res) => {
     const { email, name, role } = currentPerson(res);
     res.json({ email, name, role } satisfies Me);
+  });
+
+  // Open: answers 200 with or without a session, so the planner can ask who is signed in
+  // before anyone has (GET /api/me keeps its 401 for integrators).
+  router.get('/api/session', open(), (_req, res) => {
+    const person = res.locals.auth?.person;
+    const state: SessionState = person ? { signedIn: true, person: { email: person.email, name: person.name, role: person.role } } : { signedIn: false };
+    res.json(state);
   });
 
   return router;
