@@ -2,6 +2,7 @@ import type { EntityManager } from 'typeorm';
 import type { Material, MaterialCreate, MaterialListQuery, MaterialUpdate, Page, ScheduledReceipt, ScheduledReceiptInput } from '@millrace/contracts';
 import { MaterialEntity, type MaterialRow } from '../db/entities/material.entity';
 import { ScheduledReceiptEntity } from '../db/entities/scheduled-receipt.entity';
+import { codedTable } from '../master-data/coded-table';
 import { pageFrom } from '../master-data/list-query';
 import { definedOnly, updateIfVersion, type VersionedWrite } from '../master-data/versioned-update';
 
@@ -42,41 +43,20 @@ export async function listAllMaterials(db: EntityManager): Promise<Material[]> {
   return (await db.getRepository(MaterialEntity).find({ order: { code: 'ASC' } })).map(toMaterial);
 }
 
-export async function findMaterialById(db: EntityManager, id: number): Promise<Material | null> {
-  const row = await db.getRepository(MaterialEntity).findOneBy({ id });
-  return row ? toMaterial(row) : null;
-}
+const materials = codedTable(MaterialEntity, toMaterial);
 
-export async function findMaterialByCode(db: EntityManager, code: string): Promise<Material | null> {
-  const row = await db.getRepository(MaterialEntity).findOneBy({ code });
-  return row ? toMaterial(row) : null;
-}
-
-export async function findMaterialsByIds(db: EntityManager, ids: number[]): Promise<Map<number, Material>> {
-  if (ids.length === 0) return new Map();
-  const rows = await db.getRepository(MaterialEntity).createQueryBuilder('t').where('t.id IN (:...ids)', { ids }).getMany();
-  return new Map(rows.map((r) => [r.id, toMaterial(r)]));
-}
-
-export async function insertMaterial(db: EntityManager, input: MaterialCreate): Promise<Material> {
-  const now = new Date();
-  const repo = db.getRepository(MaterialEntity);
-  const saved = await repo.save(repo.create({ ...input, version: 1, createdAt: now, updatedAt: now }));
-  return toMaterial(await repo.findOneByOrFail({ id: saved.id }));
-}
+export const findMaterialById = materials.findById;
+export const findMaterialByCode = materials.findByCode;
+export const findMaterialsByIds = materials.findByIds;
+export const insertMaterial = (db: EntityManager, input: MaterialCreate): Promise<Material> => materials.insert(db, input);
 
 export async function updateMaterialIfVersion(db: EntityManager, id: number, input: MaterialUpdate): Promise<VersionedWrite> {
   const { version, ...changes } = input;
   return updateIfVersion(db, MaterialEntity, id, version, definedOnly(changes));
 }
 
-export async function touchMaterialIfVersion(db: EntityManager, id: number, version: number): Promise<VersionedWrite> {
-  return updateIfVersion(db, MaterialEntity, id, version, {});
-}
-
-export async function deleteMaterialRow(db: EntityManager, id: number): Promise<void> {
-  await db.getRepository(MaterialEntity).delete({ id });
-}
+export const touchMaterialIfVersion = materials.touchIfVersion;
+export const deleteMaterialRow = materials.deleteRow;
 
 /** Codes of the products whose bill of materials uses the material. */
 export async function materialReferrers(db: EntityManager, id: number): Promise<string[]> {

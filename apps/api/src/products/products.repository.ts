@@ -1,6 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import type { Page, Product, ProductCreate, ProductListQuery, ProductUpdate } from '@millrace/contracts';
 import { ProductEntity, type ProductRow } from '../db/entities/product.entity';
+import { codedTable } from '../master-data/coded-table';
 import { pageFrom } from '../master-data/list-query';
 import { updateIfVersion, definedOnly, type VersionedWrite } from '../master-data/versioned-update';
 
@@ -71,29 +72,13 @@ export async function listAllProducts(db: EntityManager): Promise<Product[]> {
   }));
 }
 
-export async function findProductById(db: EntityManager, id: number): Promise<Product | null> {
-  const row = await db.getRepository(ProductEntity).findOneBy({ id });
-  return row ? toProduct(row) : null;
-}
+const products = codedTable(ProductEntity, toProduct);
 
-export async function findProductByCode(db: EntityManager, code: string): Promise<Product | null> {
-  const row = await db.getRepository(ProductEntity).findOneBy({ code });
-  return row ? toProduct(row) : null;
-}
-
+export const findProductById = products.findById;
+export const findProductByCode = products.findByCode;
 /** Products by id (for reference checks); missing ids are simply absent from the map. */
-export async function findProductsByIds(db: EntityManager, ids: number[]): Promise<Map<number, Product>> {
-  if (ids.length === 0) return new Map();
-  const rows = await db.getRepository(ProductEntity).createQueryBuilder('t').where('t.id IN (:...ids)', { ids }).getMany();
-  return new Map(rows.map((r) => [r.id, toProduct(r)]));
-}
-
-export async function insertProduct(db: EntityManager, input: ProductCreate): Promise<Product> {
-  const now = new Date();
-  const repo = db.getRepository(ProductEntity);
-  const saved = await repo.save(repo.create({ ...input, version: 1, createdAt: now, updatedAt: now }));
-  return toProduct(await repo.findOneByOrFail({ id: saved.id }));
-}
+export const findProductsByIds = products.findByIds;
+export const insertProduct = (db: EntityManager, input: ProductCreate): Promise<Product> => products.insert(db, input);
 
 export async function updateProductIfVersion(db: EntityManager, id: number, input: ProductUpdate): Promise<VersionedWrite> {
   const { version, ...changes } = input;
@@ -101,13 +86,8 @@ export async function updateProductIfVersion(db: EntityManager, id: number, inpu
 }
 
 /** Bumps the version (a BOM or routing save counts as a change of the product). */
-export async function touchProductIfVersion(db: EntityManager, id: number, version: number): Promise<VersionedWrite> {
-  return updateIfVersion(db, ProductEntity, id, version, {});
-}
-
-export async function deleteProductRow(db: EntityManager, id: number): Promise<void> {
-  await db.getRepository(ProductEntity).delete({ id });
-}
+export const touchProductIfVersion = products.touchIfVersion;
+export const deleteProductRow = products.deleteRow;
 
 /** What still points at a product from elsewhere: parents whose BOM uses it, and its demand. */
 export async function productReferrers(db: EntityManager, id: number): Promise<{ parents: string[]; firmOrders: number; forecasts: number }> {

@@ -2,6 +2,7 @@ import type { EntityManager } from 'typeorm';
 import type { CalendarWeek, CalendarWeekInput, Page, WorkCenter, WorkCenterCreate, WorkCenterListQuery, WorkCenterUpdate } from '@millrace/contracts';
 import { CalendarWeekEntity } from '../db/entities/calendar-week.entity';
 import { WorkCenterEntity, type WorkCenterRow } from '../db/entities/work-center.entity';
+import { codedTable } from '../master-data/coded-table';
 import { pageFrom } from '../master-data/list-query';
 import { definedOnly, updateIfVersion, type VersionedWrite } from '../master-data/versioned-update';
 
@@ -36,32 +37,19 @@ export async function listAllWorkCenters(db: EntityManager): Promise<WorkCenter[
   return (await db.getRepository(WorkCenterEntity).find({ order: { code: 'ASC' } })).map(toWorkCenter);
 }
 
-export async function findWorkCenterById(db: EntityManager, id: number): Promise<WorkCenter | null> {
-  const row = await db.getRepository(WorkCenterEntity).findOneBy({ id });
-  return row ? toWorkCenter(row) : null;
-}
+const workCenters = codedTable(WorkCenterEntity, toWorkCenter);
 
-export async function findWorkCenterByCode(db: EntityManager, code: string): Promise<WorkCenter | null> {
-  const row = await db.getRepository(WorkCenterEntity).findOneBy({ code });
-  return row ? toWorkCenter(row) : null;
-}
-
-export async function findWorkCentersByIds(db: EntityManager, ids: number[]): Promise<Map<number, WorkCenter>> {
-  if (ids.length === 0) return new Map();
-  const rows = await db.getRepository(WorkCenterEntity).createQueryBuilder('t').where('t.id IN (:...ids)', { ids }).getMany();
-  return new Map(rows.map((r) => [r.id, toWorkCenter(r)]));
-}
+export const findWorkCenterById = workCenters.findById;
+export const findWorkCenterByCode = workCenters.findByCode;
+export const findWorkCentersByIds = workCenters.findByIds;
 
 function patternColumns(p: WorkCenterCreate['shiftPattern']) {
   return { shiftsPerDay: p.shiftsPerDay, hoursPerShift: p.hoursPerShift, daysPerWeek: p.daysPerWeek, shiftStarts: p.shiftStarts };
 }
 
 export async function insertWorkCenter(db: EntityManager, input: WorkCenterCreate): Promise<WorkCenter> {
-  const now = new Date();
-  const repo = db.getRepository(WorkCenterEntity);
   const { shiftPattern, ...rest } = input;
-  const saved = await repo.save(repo.create({ ...rest, ...patternColumns(shiftPattern), version: 1, createdAt: now, updatedAt: now }));
-  return toWorkCenter(await repo.findOneByOrFail({ id: saved.id }));
+  return workCenters.insert(db, { ...rest, ...patternColumns(shiftPattern) });
 }
 
 export async function updateWorkCenterIfVersion(db: EntityManager, id: number, input: WorkCenterUpdate): Promise<VersionedWrite> {
@@ -70,13 +58,8 @@ export async function updateWorkCenterIfVersion(db: EntityManager, id: number, i
   return updateIfVersion(db, WorkCenterEntity, id, version, { ...definedOnly(rest), ...pattern });
 }
 
-export async function touchWorkCenterIfVersion(db: EntityManager, id: number, version: number): Promise<VersionedWrite> {
-  return updateIfVersion(db, WorkCenterEntity, id, version, {});
-}
-
-export async function deleteWorkCenterRow(db: EntityManager, id: number): Promise<void> {
-  await db.getRepository(WorkCenterEntity).delete({ id });
-}
+export const touchWorkCenterIfVersion = workCenters.touchIfVersion;
+export const deleteWorkCenterRow = workCenters.deleteRow;
 
 /** Codes of the products whose routing uses the work center. */
 export async function workCenterReferrers(db: EntityManager, id: number): Promise<string[]> {
