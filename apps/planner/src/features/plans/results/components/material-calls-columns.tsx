@@ -9,6 +9,15 @@ const qty = (key: keyof MaterialCall, header: string): ColumnDef<MaterialCall, a
   cell: ({ getValue }) => formatNumber(getValue() as number),
 });
 
+const money = new Intl.NumberFormat('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+
+/** Start of the order week: the need week's start moved back by the weeks between them. */
+const releaseWeekStart = (call: MaterialCall): string => {
+  const start = new Date(`${call.weekStart}T00:00:00Z`);
+  start.setUTCDate(start.getUTCDate() - 7 * (call.week - call.releaseWeek));
+  return start.toISOString().slice(0, 10);
+};
+
 /** Material calls: what to order, how much, and in which week to release the order. */
 export const materialCallsColumns: ColumnDef<MaterialCall, any>[] = [
   { accessorKey: 'material', header: 'Material', enableHiding: false, cell: ({ row }) => <span className="font-semibold">{row.original.material}</span> },
@@ -20,10 +29,10 @@ export const materialCallsColumns: ColumnDef<MaterialCall, any>[] = [
     cell: ({ row }) =>
       row.original.pastDue ? (
         <span className="font-semibold text-fault-700">
-          <span aria-hidden="true">⚑ </span>past due ({row.original.releaseWeek})
+          <span aria-hidden="true">⚑ </span>past due (week of {formatWeek(releaseWeekStart(row.original))})
         </span>
       ) : (
-        row.original.releaseWeek
+        `${row.original.releaseWeek} (${formatWeek(releaseWeekStart(row.original))})`
       ),
   },
   { accessorKey: 'week', header: 'Needed in week', meta: { numeric: true }, cell: ({ row }) => `${row.original.week} (${formatWeek(row.original.weekStart)})` },
@@ -37,5 +46,5 @@ export const materialCallsColumns: ColumnDef<MaterialCall, any>[] = [
   qty('scheduledReceipt', 'Scheduled receipt'),
   qty('projectedAvailable', 'Projected available'),
   qty('netRequirement', 'Net need'),
-  qty('spend', 'Spend'),
+  { accessorKey: 'spend', header: 'Spend', meta: { numeric: true }, cell: ({ row }) => money.format(row.original.spend) },
 ];
