@@ -102,7 +102,6 @@ describe('shift sheets in the browser', () => {
       await page.getByLabel('Password').fill(demoPassword);
       await page.getByRole('button', { name: 'Sign in' }).click();
       await page.getByRole('heading', { name: 'Shift sheets', level: 1 }).waitFor();
-      floor.signedIn = true;
       expect(new URL(page.url()).searchParams.get('plan')).toBe(String(planId));
       await page.getByText(`#${planId} ${planName}`, { exact: true }).waitFor();
       await page.getByText('Released to the floor').first().waitFor();

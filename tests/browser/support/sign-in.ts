@@ -19,7 +19,6 @@ export async function signIn(w: WatchedPage, email: string): Promise<void> {
   await w.shot('sign-in');
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByRole('navigation', { name: 'Main' }).waitFor();
-  w.signedIn = true;
   // Let the home page finish loading, so a next page.goto does not cut its requests off.
   await page.waitForLoadState('networkidle');
   expect(await page.getByRole('button', { name: 'Sign out' }).isVisible()).toBe(true);

@@ -1,9 +1,18 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me, SignIn } from '@millrace/contracts';
-import { api } from './api-client';
+import type { Me, SessionState, SignIn } from '@millrace/contracts';
+import { api, ApiError } from './api-client';
 
-/** The signed-in person (GET /api/me). Shared by the shell and every feature that mirrors roles. */
-export const getMe = (): Promise<Me> => api.get<Me>('/api/me');
+/**
+ * The signed-in person, from the open GET /api/session (which answers 200 either way, so asking
+ * before anyone has signed in leaves no failed request in the browser). Signed out, it fails
+ * like GET /api/me would, with a 401 ApiError, which the loaders turn into the sign-in page.
+ * Shared by the shell and every feature that mirrors roles.
+ */
+export const getMe = async (): Promise<Me> => {
+  const session = await api.get<SessionState>('/api/session');
+  if (!session.signedIn) throw new ApiError({ status: 401, code: 'unauthenticated', message: 'Sign in to continue.' });
+  return session.person;
+};
 
 export const meQueryOptions = () =>
   queryOptions({

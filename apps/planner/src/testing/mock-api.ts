@@ -19,6 +19,22 @@ export function apiError(status: number, code: string, message: string, extra: R
   return json({ error: { code, message, ...extra } }, { status, headers });
 }
 
+/** The last handler of a list answers every later call too. */
+const next = (queue: Handler[]): Handler => (queue.length > 1 ? queue.shift()! : queue[0]);
+
+/**
+ * The planner asks who is signed in with GET /api/session. Tests may keep describing the
+ * signed-in person as the answer of GET /api/me: without a 'GET /api/session' handler, that
+ * answer is turned into the session's (200 → signed in as that person, 401 → signed out;
+ * anything else passes through). A 'GET /api/session' handler, when given, always wins.
+ */
+async function sessionFromMe(handler: Handler, request: RecordedRequest): Promise<Response> {
+  const me = await handler(request);
+  if (me.status === 200) return json({ signedIn: true, person: await me.json() });
+  if (me.status === 401) return json({ signedIn: false });
+  return me;
+}
+
 export function mockApi(handlers: Record<string, Handler | Handler[]>) {
   const requests: RecordedRequest[] = [];
   const queues = new Map<string, Handler[]>();
@@ -31,14 +47,16 @@ export function mockApi(handlers: Record<string, Handler | Handler[]>) {
     const body = typeof init?.body === 'string' ? JSON.parse(init.body) : undefined;
     const request = { method, path: url.pathname, search: url.search, body };
     requests.push(request);
-    const queue = queues.get(`${method} ${url.pathname}`);
-    if (!queue || queue.length === 0) {
-      unhandled.push(`${method} ${url.pathname}`);
-      return apiError(500, 'internal_error', `No test handler for ${method} ${url.pathname}`);
+    const key = `${method} ${url.pathname}`;
+    const queue = queues.get(key);
+    if ((!queue || queue.length === 0) && key === 'GET /api/session' && (queues.get('GET /api/me')?.length ?? 0) > 0) {
+      return sessionFromMe(next(queues.get('GET /api/me')!), request);
     }
-    // The last handler of a list answers every later call too.
-    const handler = queue.length > 1 ? queue.shift()! : queue[0];
-    return handler(request);
+    if (!queue || queue.length === 0) {
+      unhandled.push(key);
+      return apiError(500, 'internal_error', `No test handler for ${key}`);
+    }
+    return next(queue)(request);
   });
   vi.stubGlobal('fetch', fetchMock);
 
