@@ -16,7 +16,7 @@ import type { KktSolver, KktStatus } from './kkt-solver';
 import { qDiagonal, type IpmProblem } from './ipm-problem';
 
 /** refinement stops once the residual is this small relative to the right-hand side */
-const REFINE_TOLERANCE = 1e-14;
+const REFINE_TOLERANCE = 1e-12;
 
 export class NormalEquations implements KktSolver {
   private readonly F: SymmetricFactorisation;
