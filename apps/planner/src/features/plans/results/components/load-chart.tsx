@@ -1,14 +1,14 @@
-import { useId, useState } from 'react';
+import { useState } from 'react';
 import { Bar, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import type { LoadRow } from '@millrace/contracts';
 import { formatNumber } from '@/lib/format';
 import { ChartFrame, ChartTable } from './chart-frame';
+import { ChartPicker } from './chart-picker';
 
 /** Load (regular and overtime hours, stacked) against available hours, week by week, for one work center. */
 export function LoadChart({ load }: { load: LoadRow[] }) {
   const centers = [...new Map(load.map((r) => [r.workCenter, r.workCenterName])).entries()].sort((a, b) => a[0].localeCompare(b[0]));
   const [picked, setPicked] = useState(centers[0]?.[0] ?? '');
-  const pickerId = useId();
   const rows = load
     .filter((r) => r.workCenter === picked)
     .sort((a, b) => a.week - b.week)
@@ -23,20 +23,7 @@ export function LoadChart({ load }: { load: LoadRow[] }) {
     <ChartFrame
       title={`Load against available hours: ${name}`}
       note="Bars: hours loaded (overtime on top); line: hours the calendar makes available."
-      controls={
-        <div className="flex flex-col gap-1">
-          <label htmlFor={pickerId} className="text-sm font-semibold">
-            Work center
-          </label>
-          <select id={pickerId} value={picked} onChange={(e) => setPicked(e.target.value)} className="rounded border border-line bg-panel px-2 py-1.5">
-            {centers.map(([code, n]) => (
-              <option key={code} value={code}>
-                {code} {n}
-              </option>
-            ))}
-          </select>
-        </div>
-      }
+      controls={<ChartPicker label="Work center" items={centers} value={picked} onChange={setPicked} />}
       table={
         <ChartTable
           caption={`Load of ${name} per week`}

@@ -1,15 +1,15 @@
-import { useId, useState } from 'react';
+import { useState } from 'react';
 import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import type { PlanLine } from '@millrace/contracts';
 import { formatNumber } from '@/lib/format';
 import { ChartFrame, ChartTable } from './chart-frame';
+import { ChartPicker } from './chart-picker';
 
 /** Stock and backorder (late) over the weeks for the product picked. */
 export function StockChart({ lines }: { lines: PlanLine[] }) {
   const products = [...new Map(lines.map((l) => [l.product, l.productName])).entries()].sort((a, b) => a[0].localeCompare(b[0]));
   const firstWithLate = lines.find((l) => l.late > 1e-9)?.product;
   const [picked, setPicked] = useState(firstWithLate ?? products[0]?.[0] ?? '');
-  const pickerId = useId();
   const rows = lines
     .filter((l) => l.product === picked)
     .sort((a, b) => a.week - b.week)
@@ -19,20 +19,7 @@ export function StockChart({ lines }: { lines: PlanLine[] }) {
     <ChartFrame
       title={`Stock and backorder: ${name}`}
       note="Solid line: stock at the end of each week; dashed line: quantity carried late (backorder)."
-      controls={
-        <div className="flex flex-col gap-1">
-          <label htmlFor={pickerId} className="text-sm font-semibold">
-            Product
-          </label>
-          <select id={pickerId} value={picked} onChange={(e) => setPicked(e.target.value)} className="rounded border border-line bg-panel px-2 py-1.5">
-            {products.map(([code, n]) => (
-              <option key={code} value={code}>
-                {code} {n}
-              </option>
-            ))}
-          </select>
-        </div>
-      }
+      controls={<ChartPicker label="Product" items={products} value={picked} onChange={setPicked} />}
       table={
         <ChartTable
           caption={`Stock and backorder of ${name} per week`}
