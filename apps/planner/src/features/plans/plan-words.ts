@@ -55,10 +55,10 @@ export function formatMoney(value: number, currency: string): string {
 }
 
 /** A signed difference: '+12.5', '−3', '±0' (the sign is part of the text, never colour alone). */
-export function formatSigned(value: number, digits = 2): string {
+export function formatSigned(value: number, digits = 2, fixed = false): string {
   const rounded = Number(value.toFixed(digits));
   if (rounded === 0) return '±0';
-  const text = new Intl.NumberFormat('en-GB', { maximumFractionDigits: digits }).format(Math.abs(rounded));
+  const text = new Intl.NumberFormat('en-GB', { minimumFractionDigits: fixed ? digits : 0, maximumFractionDigits: digits }).format(Math.abs(rounded));
   return rounded > 0 ? `+${text}` : `−${text}`;
 }
 

@@ -6,7 +6,7 @@ import { ErrorState } from '@/components/ui/error-state';
 import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/config/paths';
-import { formatNumber } from '@/lib/format';
+import { formatNumber, formatWhole } from '@/lib/format';
 import { usePlanComparison } from '../api/compare-plans';
 import { usePlans } from '../api/get-plans';
 import { Delta } from '../components/delta';
@@ -35,19 +35,32 @@ function Picker({ label, value, onChange, options }: { label: string; value: num
 
 const cell = 'border border-line px-2 py-1.5';
 
+/** Hours to one decimal, as on the load board and the shift sheets. */
+const hoursFormat = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 1 });
+const hours = (v: number) => hoursFormat.format(v);
+
+type TotalKind = 'money' | 'hours' | 'count';
+const deltaStyle: Record<TotalKind, { digits: number; fixed: boolean }> = {
+  money: { digits: 2, fixed: true },
+  hours: { digits: 1, fixed: false },
+  count: { digits: 2, fixed: false },
+};
+
 function Comparison({ c }: { c: PlanComparison }) {
   const cur = c.a.currency;
-  const totals: [string, { a: number; b: number; delta: number }, 'up' | 'down', (v: number) => string][] = [
-    ['Margin', c.margin, 'up', (v) => formatMoney(v, cur)],
-    ['Revenue', c.revenue, 'up', (v) => formatMoney(v, cur)],
-    ['Material spend', c.materialSpend, 'down', (v) => formatMoney(v, cur)],
-    ['Overtime hours', c.overtimeHours, 'down', formatNumber],
-    ['Overtime cost', c.overtimeCost, 'down', (v) => formatMoney(v, cur)],
-    ['Holding cost', c.holdingCost, 'down', (v) => formatMoney(v, cur)],
-    ['Late penalties', c.latePenalties, 'down', (v) => formatMoney(v, cur)],
-    ['Firm orders short', c.unmetOrderCount, 'down', formatNumber],
-    ['Units short on firm orders', c.unmetQty, 'down', formatNumber],
+  const money = (v: number) => formatMoney(v, cur);
+  const totals: [string, { a: number; b: number; delta: number }, 'up' | 'down', TotalKind][] = [
+    ['Margin', c.margin, 'up', 'money'],
+    ['Revenue', c.revenue, 'up', 'money'],
+    ['Material spend', c.materialSpend, 'down', 'money'],
+    ['Overtime hours', c.overtimeHours, 'down', 'hours'],
+    ['Overtime cost', c.overtimeCost, 'down', 'money'],
+    ['Holding cost', c.holdingCost, 'down', 'money'],
+    ['Late penalties', c.latePenalties, 'down', 'money'],
+    ['Firm orders short', c.unmetOrderCount, 'down', 'count'],
+    ['Units short on firm orders', c.unmetQty, 'down', 'count'],
   ];
+  const show: Record<TotalKind, (v: number) => string> = { money, hours, count: formatNumber };
   return (
     <div className="flex flex-col gap-6">
       <p className="text-sm text-ink-soft">
@@ -73,15 +86,15 @@ function Comparison({ c }: { c: PlanComparison }) {
           </tr>
         </thead>
         <tbody>
-          {totals.map(([label, pair, better, fmt]) => (
+          {totals.map(([label, pair, better, kind]) => (
             <tr key={label} className={Math.abs(pair.delta) > 1e-9 ? 'bg-over-50' : ''}>
               <th scope="row" className={`${cell} text-left`}>
                 {label}
               </th>
-              <td className={`${cell} text-right tabular-nums`}>{fmt(pair.a)}</td>
-              <td className={`${cell} text-right tabular-nums`}>{fmt(pair.b)}</td>
+              <td className={`${cell} text-right tabular-nums`}>{show[kind](pair.a)}</td>
+              <td className={`${cell} text-right tabular-nums`}>{show[kind](pair.b)}</td>
               <td className={`${cell} text-right`}>
-                <Delta value={pair.delta} better={better} />
+                <Delta value={pair.delta} better={better} {...deltaStyle[kind]} />
               </td>
             </tr>
           ))}
@@ -107,18 +120,18 @@ function Comparison({ c }: { c: PlanComparison }) {
                   <span className="font-semibold">{w.workCenter}</span> {w.workCenterName}
                   {changed ? <span className="sr-only"> (changed)</span> : null}
                 </th>
-                <td className={`${cell} text-right tabular-nums`}>{formatNumber(w.loadHours.a)}</td>
-                <td className={`${cell} text-right tabular-nums`}>{formatNumber(w.loadHours.b)}</td>
+                <td className={`${cell} text-right tabular-nums`}>{hours(w.loadHours.a)}</td>
+                <td className={`${cell} text-right tabular-nums`}>{hours(w.loadHours.b)}</td>
                 <td className={`${cell} text-right`}>
-                  <Delta value={w.loadHours.delta} />
+                  <Delta value={w.loadHours.delta} digits={1} />
                 </td>
-                <td className={`${cell} text-right tabular-nums`}>{formatNumber(w.overtimeHours.a)}</td>
-                <td className={`${cell} text-right tabular-nums`}>{formatNumber(w.overtimeHours.b)}</td>
+                <td className={`${cell} text-right tabular-nums`}>{hours(w.overtimeHours.a)}</td>
+                <td className={`${cell} text-right tabular-nums`}>{hours(w.overtimeHours.b)}</td>
                 <td className={`${cell} text-right`}>
-                  <Delta value={w.overtimeHours.delta} better="down" />
+                  <Delta value={w.overtimeHours.delta} better="down" digits={1} />
                 </td>
-                <td className={`${cell} text-right tabular-nums`}>{w.peakPercent.a === null ? '—' : `${formatNumber(w.peakPercent.a)} %`}</td>
-                <td className={`${cell} text-right tabular-nums`}>{w.peakPercent.b === null ? '—' : `${formatNumber(w.peakPercent.b)} %`}</td>
+                <td className={`${cell} text-right tabular-nums`}>{w.peakPercent.a === null ? '—' : `${formatWhole(w.peakPercent.a)} %`}</td>
+                <td className={`${cell} text-right tabular-nums`}>{w.peakPercent.b === null ? '—' : `${formatWhole(w.peakPercent.b)} %`}</td>
                 <td className={`${cell} text-right tabular-nums`}>{w.bindingWeeks.a.length === 0 ? '—' : w.bindingWeeks.a.join(', ')}</td>
                 <td className={`${cell} text-right tabular-nums`}>{w.bindingWeeks.b.length === 0 ? '—' : w.bindingWeeks.b.join(', ')}</td>
               </tr>

@@ -54,4 +54,25 @@ describe('comparison of two plan versions', () => {
     expect(within(screen.getByRole('table', { name: 'Shortfall per firm order in A and B' }) ).getByRole('row', { name: /SO-1/ })).toHaveTextContent('42▼ −2');
     expect(within(screen.getByRole('table', { name: /Make, ship and late quantities/ })).getByRole('row', { name: /T-1/ })).toHaveTextContent('810▲ +2');
   });
+
+  it('when figures have long fractions, then money keeps its cents, hours one decimal and peaks whole percents', async () => {
+    // Money to the cent, hours to a tenth, load in whole percent: common practice, no source.
+    const c = comparison();
+    c.materialSpend = pair(23891.79, 24174.89);
+    c.loadByWorkCenter = [
+      { workCenter: 'ASM', workCenterName: 'Assembly', loadHours: pair(793.16, 794.2), overtimeHours: pair(2.27, 1.22), peakPercent: { a: 101.64, b: 101.53 }, bindingWeeks: { a: [2], b: [2] } },
+    ];
+    mockApi({
+      'GET /api/me': () => json(people.planner),
+      'GET /api/plans': () => json([]),
+      'GET /api/plans/compare': () => json(c),
+    });
+    renderApp('/plans/compare?a=1&b=2');
+    const totals = await screen.findByRole('table', { name: 'Totals' }, { timeout: 5000 });
+    expect(within(totals).getByRole('row', { name: /^Material spend/ })).toHaveTextContent('23,891.79 EUR24,174.89 EUR▲ +283.10');
+    const row = within(screen.getByRole('table', { name: 'Load per work center over the horizon' })).getByRole('row', { name: /ASM Assembly/ });
+    expect(row).toHaveTextContent('793.2794.2▲ +1');
+    expect(row).toHaveTextContent('2.31.2▼ −1.1');
+    expect(row).toHaveTextContent('102 %102 %');
+  });
 });
