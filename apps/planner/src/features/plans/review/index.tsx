@@ -17,15 +17,31 @@ import { formatMoney, solveStatusWords } from '../plan-words';
 
 type ChangeRow = { item: string; weekStart: string; before: number; after: number; delta: number };
 
-function ChangeTable({ caption, itemHeader, rows, better, unit }: { caption: string; itemHeader: string; rows: ChangeRow[]; better: 'up' | 'down' | 'neutral'; unit: string }) {
-  if (rows.length === 0) return <p className="text-sm text-ink-soft">No change.</p>;
+/** Without an approved version there is nothing to subtract: only this version's figures are shown. */
+function ChangeTable({
+  caption,
+  itemHeader,
+  rows,
+  better,
+  unit,
+  hasBaseline,
+}: {
+  caption: string;
+  itemHeader: string;
+  rows: ChangeRow[];
+  better: 'up' | 'down' | 'neutral';
+  unit: string;
+  hasBaseline: boolean;
+}) {
+  if (rows.length === 0) return <p className="text-sm text-ink-soft">{hasBaseline ? 'No change.' : 'None in this version.'}</p>;
+  const headers = hasBaseline ? [itemHeader, 'Week', 'Last approved', 'This version', 'Change'] : [itemHeader, 'Week', 'This version'];
   return (
     <div className="max-h-80 overflow-auto rounded border border-line">
       <table className="w-full border-collapse bg-panel text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead className="sticky top-0 bg-race-50">
           <tr>
-            {[itemHeader, 'Week', 'Last approved', 'This version', 'Change'].map((h, i) => (
+            {headers.map((h, i) => (
               <th key={h} scope="col" className={`border-b border-line px-2 py-1.5 ${i >= 2 ? 'text-right' : 'text-left'}`}>
                 {h}
               </th>
@@ -37,11 +53,21 @@ function ChangeTable({ caption, itemHeader, rows, better, unit }: { caption: str
             <tr key={`${r.item}|${r.weekStart}`} className="border-b border-line/60">
               <td className="px-2 py-1 font-semibold">{r.item}</td>
               <td className="px-2 py-1">{formatWeek(r.weekStart)}</td>
-              <td className="px-2 py-1 text-right tabular-nums">{formatNumber(r.before)}{unit}</td>
-              <td className="px-2 py-1 text-right tabular-nums">{formatNumber(r.after)}{unit}</td>
-              <td className="px-2 py-1 text-right">
-                <Delta value={r.delta} better={better} unit={unit} />
+              {hasBaseline ? (
+                <td className="px-2 py-1 text-right tabular-nums">
+                  {formatNumber(r.before)}
+                  {unit}
+                </td>
+              ) : null}
+              <td className="px-2 py-1 text-right tabular-nums">
+                {formatNumber(r.after)}
+                {unit}
               </td>
+              {hasBaseline ? (
+                <td className="px-2 py-1 text-right">
+                  <Delta value={r.delta} better={better} unit={unit} />
+                </td>
+              ) : null}
             </tr>
           ))}
         </tbody>
@@ -78,7 +104,7 @@ function Headline({ review }: { review: PlanReview }) {
             </th>
             <td className="border border-line px-2 py-1.5 text-right tabular-nums">{review.baseline ? before : '—'}</td>
             <td className="border border-line px-2 py-1.5 text-right tabular-nums">{after}</td>
-            <td className="border border-line px-2 py-1.5 text-right">{delta}</td>
+            <td className="border border-line px-2 py-1.5 text-right">{review.baseline ? delta : '—'}</td>
           </tr>
         ))}
       </tbody>
@@ -182,21 +208,21 @@ export function PlanReviewPage({ planId, role }: { planId: number; role: Role })
           </section>
           <section aria-labelledby="quantities-heading" className="flex flex-col gap-2">
             <h2 id="quantities-heading" className="text-lg font-semibold">
-              Quantities made ({c.quantities.length} changes)
+              Quantities made ({c.quantities.length} {r.baseline ? 'changes' : 'product-weeks'})
             </h2>
-            <ChangeTable caption="Changed quantities" itemHeader="Product" better="neutral" unit="" rows={c.quantities.map((q) => ({ item: q.product, ...q }))} />
+            <ChangeTable caption="Changed quantities" itemHeader="Product" hasBaseline={r.baseline !== null} better="neutral" unit="" rows={c.quantities.map((q) => ({ item: q.product, ...q }))} />
           </section>
           <section aria-labelledby="load-heading" className="flex flex-col gap-2">
             <h2 id="load-heading" className="text-lg font-semibold">
-              Load ({c.load.length} changes)
+              Load ({c.load.length} {r.baseline ? 'changes' : 'work-center weeks'})
             </h2>
-            <ChangeTable caption="Changed load hours" itemHeader="Work center" better="neutral" unit=" h" rows={c.load.map((q) => ({ item: q.workCenter, ...q }))} />
+            <ChangeTable caption="Changed load hours" itemHeader="Work center" hasBaseline={r.baseline !== null} better="neutral" unit=" h" rows={c.load.map((q) => ({ item: q.workCenter, ...q }))} />
           </section>
           <section aria-labelledby="overtime-heading" className="flex flex-col gap-2">
             <h2 id="overtime-heading" className="text-lg font-semibold">
-              Overtime ({c.overtime.length} changes)
+              Overtime ({c.overtime.length} {r.baseline ? 'changes' : 'work-center weeks'})
             </h2>
-            <ChangeTable caption="Changed overtime hours" itemHeader="Work center" better="down" unit=" h" rows={c.overtime.map((q) => ({ item: q.workCenter, ...q }))} />
+            <ChangeTable caption="Changed overtime hours" itemHeader="Work center" hasBaseline={r.baseline !== null} better="down" unit=" h" rows={c.overtime.map((q) => ({ item: q.workCenter, ...q }))} />
           </section>
           <section aria-labelledby="unmet-heading" className="flex flex-col gap-2">
             <h2 id="unmet-heading" className="text-lg font-semibold">
@@ -206,7 +232,9 @@ export function PlanReviewPage({ planId, role }: { planId: number; role: Role })
               {(['before', 'after'] as const).map((side) => (
                 <div key={side} className="rounded border border-line bg-panel p-3">
                   <h3 className="font-semibold">{side === 'before' ? 'Last approved' : 'This version'}</h3>
-                  {r.unmet[side].length === 0 ? (
+                  {side === 'before' && r.baseline === null ? (
+                    <p className="text-ink-soft">No approved version yet.</p>
+                  ) : r.unmet[side].length === 0 ? (
                     <p className="text-ink-soft">None.</p>
                   ) : (
                     <details open={r.unmet[side].length <= 5}>

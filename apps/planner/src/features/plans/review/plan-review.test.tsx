@@ -37,6 +37,23 @@ describe('supervisor review', () => {
     expect(screen.getByRole('region', { name: 'Certificate' })).toHaveTextContent('Verified by a second solver');
   });
 
+  it('when no version was approved before, then nothing is shown as a change against zero', async () => {
+    const first = planReview(submitted);
+    first.baseline = null;
+    first.changes.quantities = [{ product: 'T-1', weekStart: '2026-12-14', before: 0, after: 8, delta: 8 }];
+    first.unmet = { before: [], after: [] };
+    reviewApi('supervisor', { 'GET /api/plans/1/review': () => json(first) });
+    renderApp('/plans/1/review');
+    const totals = await screen.findByRole('table', { name: 'Totals against the last approved version' }, firstLoad);
+    expect(within(totals).getByRole('row', { name: /Margin/ })).toHaveTextContent('Margin—990.00 EUR—');
+    expect(within(totals).queryByText(/▲|▼/)).toBeNull();
+    const quantities = screen.getByRole('table', { name: 'Changed quantities' });
+    expect(within(quantities).queryByRole('columnheader', { name: 'Last approved' })).toBeNull();
+    expect(within(quantities).getByRole('row', { name: /T-1/ })).toHaveTextContent(/^T-114 Dec8$/);
+    expect(screen.getByRole('heading', { name: 'Quantities made (1 product-weeks)' })).toBeInTheDocument();
+    expect(screen.getByText('No approved version yet.')).toBeInTheDocument();
+  });
+
   it('when the supervisor returns the plan without a comment, then the comment is asked for and nothing is sent; with one, it is sent', async () => {
     const api = reviewApi('supervisor', { 'POST /api/plans/1/return': () => json(planDetail({ state: 'returned' })) });
     renderApp('/plans/1/review');
