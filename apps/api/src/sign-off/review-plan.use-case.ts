@@ -29,7 +29,7 @@ export async function reviewPlan(db: EntityManager, planId: number): Promise<Pla
       kind: 'unmet_orders',
       item: null,
       week: null,
-      message: `${results.unmet.length} firm order(s) are not shipped in full on time (${round(results.totals.unmetQty)} units short in total).`,
+      message: `${results.unmet.length === 1 ? '1 firm order is' : `${results.unmet.length} firm orders are`} not shipped in full on time (${round(results.totals.unmetQty)} units short in total).`,
     });
   }
   const check = detail.certificate?.crossCheck;
