@@ -4,6 +4,7 @@ import { validatePlanningData } from '@millrace/plan-model';
 import { createApp } from '../src/app';
 import { loadConfig } from '../src/config';
 import { seedDemoPlant } from '../src/db/seed-demo';
+import { demoWorkCenterAssignments } from '../src/db/demo-plant/plant';
 import { getHomeSummary } from '../src/home/get-home-summary.use-case';
 import { loadPlanningData } from '../src/planning-data/load-planning-data';
 import { createTestDatabase, type TestDatabase } from './support/test-db';
@@ -78,5 +79,14 @@ describe('demo plant loader', () => {
       expect(res.status).toBe(200);
       expect(res.body.role).toBe(role);
     }
+  });
+
+  it('when loaded, then the demo floor lead is assigned the work centers the demo data names, and nobody else any', async () => {
+    const rows: { email: string; code: string }[] = await db.dataSource.query(
+      'SELECT p.email, w.code FROM person_work_center l JOIN person p ON p.id = l.person_id JOIN work_center w ON w.id = l.work_center_id ORDER BY p.email, w.code',
+    );
+    const expected = Object.entries(demoWorkCenterAssignments).flatMap(([email, codes]) => [...codes].sort().map((code) => ({ email, code })));
+    expect(rows).toEqual(expected);
+    expect(rows.every((r) => r.email === 'floor@millrace.test')).toBe(true);
   });
 });

@@ -143,6 +143,14 @@ export type UnscheduledWorkLine = z.infer<typeof unscheduledWorkSchema>;
 export const sheetLabourLawNote =
   'Working-time limits here are the plant’s settings; their defaults follow the EU Working Time Directive 2003/88/EC (at most 48 hours a week on average including overtime, at least 11 consecutive hours of daily rest). Local labour law, collective agreements and licensed practice take precedence; Millrace gives no legal advice.';
 
+/**
+ * Which work centers a week of sheets holds: `all` for planners, supervisors and admins;
+ * `assigned` for a floor lead with assigned work centers (only those); `none_assigned` for a
+ * floor lead with none assigned, who sees every work center (the UI says so).
+ */
+export const sheetWorkCenterScopeSchema = z.enum(['all', 'assigned', 'none_assigned']);
+export type SheetWorkCenterScope = z.infer<typeof sheetWorkCenterScopeSchema>;
+
 /** GET /api/plans/:id/shift-sheets answer: one week of a plan version. */
 export const shiftSheetsWeekSchema = z.object({
   plan: z.object({
@@ -158,6 +166,8 @@ export const shiftSheetsWeekSchema = z.object({
   weeks: z.array(isoDateSchema),
   limits: z.object({ maxWeeklyHours: z.number(), minDailyRestHours: z.number(), source: z.string() }),
   labourLawNote: z.string(),
+  workCenterScope: sheetWorkCenterScopeSchema,
+  /** the work centers, their cautions and unscheduled work are those of the scope */
   workCenters: z.array(sheetWorkCenterSchema),
   cautions: z.array(crewCautionSchema),
   unscheduled: z.array(unscheduledWorkSchema),

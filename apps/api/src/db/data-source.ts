@@ -22,12 +22,13 @@ import { PersonTokenEntity } from './entities/person-token.entity';
 import { PasswordResetRequestEntity } from './entities/password-reset-request.entity';
 import { PasswordResetRequests1764810000000 } from './migrations/1764810000000-password-reset-requests';
 import { FirmOrderMustShip1764813600000 } from './migrations/1764813600000-firm-order-must-ship';
+import { PersonWorkCenters1764817200000 } from './migrations/1764817200000-person-work-centers';
 
 /** Every entity (EntitySchema objects, no decorators). Areas append theirs here. */
 export const entities: EntitySchema<any>[] = [PersonEntity, SessionEntity, SignInAttemptEntity, PlanVersionEntity, ScenarioEntity, SolveJobEntity, PlanAuditEntity, OutboxMessageEntity, PersonTokenEntity, ...masterDataEntities, ImportRunEntity, ImportMappingEntity, PasswordResetRequestEntity];
 
 /** Every migration, in order. Areas append theirs here (timestamps keep the order). */
-export const migrations: MixedList<Function> = [PeopleAndSessions1764633600000, MasterData1764637200000, PlansAndSignOff1764720000000, PlanVersionPlan1764723600000, PersonTokens1764727200000, Imports1764806400000, PasswordResetRequests1764810000000, FirmOrderMustShip1764813600000];
+export const migrations: MixedList<Function> = [PeopleAndSessions1764633600000, MasterData1764637200000, PlansAndSignOff1764720000000, PlanVersionPlan1764723600000, PersonTokens1764727200000, Imports1764806400000, PasswordResetRequests1764810000000, FirmOrderMustShip1764813600000, PersonWorkCenters1764817200000];
 
 /** How long a query may wait for a free pooled connection or a new connection (ms). */
 const connectTimeoutMs = 5_000;

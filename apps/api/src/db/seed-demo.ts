@@ -3,6 +3,7 @@ import { addDays } from '@millrace/contracts';
 import { hashPassword } from '../auth/password';
 import { loadConfig } from '../config';
 import { insertPerson } from '../people/people.repository';
+import { replacePersonWorkCenters } from '../people/person-work-centers.repository';
 import { currentWeekStart } from '../master-data/weeks';
 import { createDataSource } from './data-source';
 import { BomLineEntity } from './entities/bom-line.entity';
@@ -18,7 +19,7 @@ import { ScheduledReceiptEntity } from './entities/scheduled-receipt.entity';
 import { WorkCenterEntity } from './entities/work-center.entity';
 import { demoDemand } from './demo-plant/demand';
 import { demoMaterials } from './demo-plant/materials';
-import { demoPassword, demoPeople, demoPlant } from './demo-plant/plant';
+import { demoPassword, demoPeople, demoPlant, demoWorkCenterAssignments } from './demo-plant/plant';
 import { demoProducts } from './demo-plant/products';
 import { demoCalendar, demoWorkCenters } from './demo-plant/work-centers';
 
@@ -56,9 +57,14 @@ export async function seedDemoPlant(dataSource: DataSource, now: Date = new Date
         updatedAt: now,
       },
     );
-    for (const [i, person] of demoPeople.entries()) await insertPerson(db, { ...person, passwordHash: hashes[i] });
+    const personIds = new Map<string, number>();
+    for (const [i, person] of demoPeople.entries()) personIds.set(person.email, (await insertPerson(db, { ...person, passwordHash: hashes[i] })).id);
 
     const wcIds = await insertByCode(db, WorkCenterEntity, demoWorkCenters.map(({ shiftPattern, ...w }) => ({ ...w, ...shiftPattern, ...stamp })));
+    for (const [email, codes] of Object.entries(demoWorkCenterAssignments)) {
+      const ids = codes.map((code) => wcIds.get(code) ?? fail(`demo plant: ${email} is assigned work center ${code}, which the demo plant does not have`));
+      await replacePersonWorkCenters(db, personIds.get(email) ?? fail(`demo plant: work centers are assigned to ${email}, who is not a demo person`), ids);
+    }
     await db.getRepository(CalendarWeekEntity).insert(
       demoCalendar.map((c) => ({ workCenterId: wcIds.get(c.workCenter)!, weekStart: weekAt(c.weekOffset), holidayDays: c.holidayDays, downtimeHours: c.downtimeHours, extraShifts: 0, note: c.note })),
     );
@@ -96,6 +102,10 @@ export async function seedDemoPlant(dataSource: DataSource, now: Date = new Date
     );
     return 'loaded';
   });
+}
+
+function fail(message: string): never {
+  throw new Error(message);
 }
 
 /** Inserts rows that have a `code` and returns their ids by code; a code the data names twice fails the load. */

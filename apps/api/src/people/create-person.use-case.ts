@@ -20,6 +20,7 @@ export async function createPerson(dataSource: DataSource, input: PersonCreate):
       });
     }
     const passwordHash = input.password === undefined ? null : await hashPassword(input.password);
-    return insertPerson(db, { email, name: input.name.trim(), role: input.role, passwordHash });
+    const person = await insertPerson(db, { email, name: input.name.trim(), role: input.role, passwordHash });
+    return { ...person, workCenterIds: [] };
   });
 }

@@ -1,6 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import type { Person, Role } from '@millrace/contracts';
 import { PersonEntity, type PersonRow } from '../db/entities/person.entity';
+import { workCenterIdsByPerson } from './person-work-centers.repository';
 
 /** A person plus the stored hash: only for the auth use cases, never sent out. */
 export interface PersonWithHash extends Person {
@@ -20,9 +21,11 @@ function toPerson(row: PersonRow): Person {
   };
 }
 
+/** Everyone, by name, with their assigned work centers. */
 export async function listPeople(db: EntityManager): Promise<Person[]> {
   const rows = await db.getRepository(PersonEntity).find({ order: { name: 'ASC', id: 'ASC' } });
-  return rows.map(toPerson);
+  const assigned = await workCenterIdsByPerson(db);
+  return rows.map((row) => ({ ...toPerson(row), workCenterIds: assigned.get(row.id) ?? [] }));
 }
 
 export async function findPersonById(db: EntityManager, id: number): Promise<PersonWithHash | null> {

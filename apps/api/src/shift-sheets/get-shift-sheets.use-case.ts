@@ -1,5 +1,5 @@
 import type { EntityManager } from 'typeorm';
-import { sheetLabourLawNote, type DataIssue, type Role, type ShiftSheetsWeek } from '@millrace/contracts';
+import { sheetLabourLawNote, type DataIssue, type ShiftSheetsWeek } from '@millrace/contracts';
 import { buildShiftSheets, ShiftSheetError, type HorizonWeek, type Plan, type PlanningData, type ShiftSheetResult } from '@millrace/plan-model';
 import { AppError } from '../http/app-error';
 import { findPlan, loadPlanInputs, loadPlanModelPlan } from '../plans/plans.repository';
@@ -7,12 +7,13 @@ import { findApproval } from '../sign-off/audit.repository';
 import { assertSheetsReadable } from './sheet-access';
 import { currentWorkCenterCodes } from './shift-sheets.repository';
 import { toSheetsWeek } from './to-sheets-week';
+import { scopeSheetsWeek, workCenterScopeOf, type SheetReader } from './work-center-scope';
 
 export interface ShiftSheetsRequest {
   planId: number;
   /** start date of the week; default the plan's first week */
   week?: string;
-  role: Role;
+  reader: SheetReader;
 }
 
 /**
@@ -20,13 +21,14 @@ export interface ShiftSheetsRequest {
  * and may be read (approved or released; floor leads released only), find the week in the plan,
  * refuse sheets for work centers deleted since the plan was built, let plan-model sequence the
  * week (its bad input — a loaded work center with no open shift, a routing step without its
- * work center — comes back as 422 naming each item), then add the header data. Nothing is
+ * work center — comes back as 422 naming each item), then add the header data and keep a
+ * floor lead's assigned work centers only (all of them when none are assigned). Nothing is
  * stored: the sheets are rebuilt from the approved plan each time.
  */
 export async function getShiftSheets(db: EntityManager, req: ShiftSheetsRequest): Promise<ShiftSheetsWeek> {
   const plan = await findPlan(db, req.planId);
   if (!plan) throw AppError.notFound(`Plan version ${req.planId} does not exist.`);
-  assertSheetsReadable(plan, req.role);
+  assertSheetsReadable(plan, req.reader.role);
 
   const [data, modelPlan] = [await loadPlanInputs(db, plan.id), await loadPlanModelPlan(db, plan.id)];
   if (!data || !modelPlan) throw AppError.conflict(`Plan version ${plan.id} has no stored plan to build shift sheets from; solve it again.`);
@@ -41,7 +43,7 @@ export async function getShiftSheets(db: EntityManager, req: ShiftSheetsRequest)
   assertWorkCentersStillExist(plan.id, data, modelPlan, week, await currentWorkCenterCodes(db));
   const result = sequenceWeek(plan.id, data, modelPlan, week.index);
   const approval = await findApproval(db, plan.id);
-  return toSheetsWeek({
+  const whole = toSheetsWeek({
     plan: { id: plan.id, name: plan.name, state: plan.state, approvedBy: approval?.by ?? null, approvedAt: approval?.at ?? null },
     data,
     modelPlan,
@@ -49,6 +51,7 @@ export async function getShiftSheets(db: EntityManager, req: ShiftSheetsRequest)
     result,
     labourLawNote: sheetLabourLawNote,
   });
+  return scopeSheetsWeek(whole, await workCenterScopeOf(db, req.reader));
 }
 
 /** Products made in the week whose routing sends them to a work center the plant no longer has. */

@@ -20,7 +20,8 @@ function selfUrl(req: Request): string {
 /**
  * Shift sheets: the plan versions with sheets the person may read, one week of sheets as JSON,
  * and the same week printed to PDF. Planners, supervisors and admins read approved and released
- * plan versions; floor leads released ones only.
+ * plan versions; floor leads released ones only, and only their assigned work centers when
+ * they have any.
  */
 export function shiftSheetsRouter(ctx: ApiContext): Router {
   const router = Router();
@@ -34,7 +35,7 @@ export function shiftSheetsRouter(ctx: ApiContext): Router {
   });
   router.get('/api/plans/:id/shift-sheets', allow(...readers), week, async (_req, res) => {
     const { params, query } = week.from(res);
-    res.json(await getShiftSheets(db(), { planId: params.id, week: query.week, role: currentPerson(res).role }));
+    res.json(await getShiftSheets(db(), { planId: params.id, week: query.week, reader: currentPerson(res) }));
   });
   router.get('/api/plans/:id/shift-sheets.pdf', allow(...readers), pdf, async (req, res) => {
     const { params, query } = pdf.from(res);
@@ -43,7 +44,7 @@ export function shiftSheetsRouter(ctx: ApiContext): Router {
       week: query.week,
       workCenter: query.workCenter,
       paper: query.paper,
-      role: currentPerson(res).role,
+      reader: currentPerson(res),
       selfUrl: selfUrl(req),
       sessionCookie: { name: ctx.lucia.sessionCookieName, value: res.locals.auth!.sessionId! },
       printViewServed: Boolean(ctx.config.plannerDist),

@@ -25,7 +25,8 @@ export const limitsSource =
 /**
  * plan-model's sheets of one week → the API's shape: per work center (in the plan's order) its
  * open shifts (the timeline's background) and its days and shifts with work, with due weeks as
- * dates and next work centers by name.
+ * dates and next work centers by name. Every work center of the plan (scope `all`); a floor
+ * lead's scope is applied afterwards.
  */
 export function toSheetsWeek(parts: SheetsWeekParts): ShiftSheetsWeek {
   const { data, modelPlan, weekIndex, result } = parts;
@@ -101,6 +102,7 @@ export function toSheetsWeek(parts: SheetsWeekParts): ShiftSheetsWeek {
     weeks: data.weeks.map((w) => w.startDate),
     limits: { maxWeeklyHours: data.plant.maxWeeklyHours, minDailyRestHours: data.plant.minDailyRestHours, source: limitsSource },
     labourLawNote: parts.labourLawNote,
+    workCenterScope: 'all',
     workCenters,
     cautions,
     unscheduled: result.unscheduled

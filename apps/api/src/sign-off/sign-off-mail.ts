@@ -14,6 +14,8 @@ export interface MailEvent {
   actorName: string;
   comment: string | null;
   publicUrl: string;
+  /** release only: the readers' assigned work centers (empty or absent: they see every work center) */
+  workCenters?: ReadonlyArray<{ code: string; name: string }>;
 }
 
 /** Where each e-mail's link points in the planner. */
@@ -55,13 +57,19 @@ export function signOffMail(event: MailEvent, to: string[]): OutgoingMail {
           linkText: 'Open the plan',
           link: mailLinks.plan(event.publicUrl, plan.id),
         };
-      case 'release':
+      case 'release': {
+        const centers = event.workCenters ?? [];
+        const ready =
+          centers.length === 0
+            ? 'Your shift sheets for these weeks are ready to print.'
+            : `Your shift sheets for these weeks are ready to print, for ${centers.length === 1 ? 'your work center' : 'your work centers'} ${centers.map((w) => `${w.code} (${w.name})`).join(', ')}.`;
         return {
           subject: `New shift sheets: plan "${plan.name}" is released`,
-          lines: [`${actorName} released plan version ${plan.id}, "${plan.name}" (${weeks}).`, 'Your shift sheets for these weeks are ready to print.'],
+          lines: [`${actorName} released plan version ${plan.id}, "${plan.name}" (${weeks}).`, ready],
           linkText: 'Open your shift sheets',
           link: mailLinks.shiftSheets(event.publicUrl, plan.id),
         };
+      }
     }
   })();
   const commentText = comment ? `Comment from ${actorName}: "${comment}"` : null;

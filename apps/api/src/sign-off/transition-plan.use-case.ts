@@ -5,6 +5,7 @@ import { AppError } from '../http/app-error';
 import { enqueueMail } from '../mail/outbox.repository';
 import { findPlan, findPlanDetail, findReleasedOverlapping, setPlanState, type PlanRecord } from '../plans/plans.repository';
 import { appendAudit } from './audit.repository';
+import { floorLeadGroups } from './floor-lead-recipients';
 import { decideTransition } from './plan-state-machine';
 import { signOffMail } from './sign-off-mail';
 
@@ -43,9 +44,13 @@ export async function transitionPlan(ds: DataSource, req: TransitionRequest): Pr
       resultsHash: plan.resultsHash,
     });
     if (req.action === 'release') await supersedeOverlapping(db, plan, req.person);
-    const to = await recipients(db, req.action, plan);
-    if (to.length > 0) {
-      await enqueueMail(db, signOffMail({ action: req.action, plan, actorName: req.person.name, comment: req.comment, publicUrl: req.publicUrl }, to));
+    const event = { action: req.action, plan, actorName: req.person.name, comment: req.comment, publicUrl: req.publicUrl };
+    if (req.action === 'release') {
+      // floor leads: one e-mail per set of assigned work centers, naming them
+      for (const group of await floorLeadGroups(db)) await enqueueMail(db, signOffMail({ ...event, workCenters: group.workCenters }, group.to));
+    } else {
+      const to = await recipients(db, req.action, plan);
+      if (to.length > 0) await enqueueMail(db, signOffMail(event, to));
     }
   });
   const detail = await findPlanDetail(ds.manager, req.planId);
@@ -83,15 +88,13 @@ async function supersedeOverlapping(db: EntityManager, plan: PlanRecord, person:
   }
 }
 
-/** submitted → supervisors; approved/returned → the submitting planner; released → floor leads. */
-async function recipients(db: EntityManager, action: PlanAction, plan: PlanRecord): Promise<string[]> {
+/** submitted → supervisors; approved/returned → the submitting planner (released → floor leads: floorLeadGroups). */
+async function recipients(db: EntityManager, action: Exclude<PlanAction, 'release'>, plan: PlanRecord): Promise<string[]> {
   const byRole = async (role: Role) =>
     ((await db.query('SELECT email FROM person WHERE role = ? AND active = 1 ORDER BY id', [role])) as { email: string }[]).map((r) => r.email);
   switch (action) {
     case 'submit':
       return byRole('supervisor');
-    case 'release':
-      return byRole('floor_lead');
     case 'approve':
     case 'return': {
       if (plan.submittedBy === null) return [];

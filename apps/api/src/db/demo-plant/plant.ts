@@ -20,3 +20,8 @@ export const demoPeople: Array<{ email: string; name: string; role: Role }> = [
   { email: 'supervisor@millrace.test', name: 'Sam Supervisor', role: 'supervisor' },
   { email: 'floor@millrace.test', name: 'Flo Floorlead', role: 'floor_lead' },
 ];
+
+/** Work centers assigned to demo people, by e-mail: the demo floor lead runs the panel and machining shop. */
+export const demoWorkCenterAssignments: Record<string, string[]> = {
+  'floor@millrace.test': ['SAW', 'PRESS', 'CNC'],
+};

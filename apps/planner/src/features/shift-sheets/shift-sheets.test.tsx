@@ -35,6 +35,7 @@ const week: ShiftSheetsWeek = {
   weeks: ['2027-01-04', '2027-01-11', '2027-01-18', '2027-01-25'],
   limits: { maxWeeklyHours: 48, minDailyRestHours: 11, source: 'EU Working Time Directive 2003/88/EC defaults' },
   labourLawNote: sheetLabourLawNote,
+  workCenterScope: 'all',
   workCenters: [
     {
       code: 'W1', name: 'First', plannedMinutes: 1000, availableMinutes: 960, overtimeMinutes: 60,
@@ -116,5 +117,29 @@ describe('shift sheets for the floor', () => {
     expect(second).toHaveTextContent('the crew is planned for 52.0 h');
     await userEvent.setup().click(screen.getByRole('button', { name: 'Print' }));
     await waitFor(() => expect(print).toHaveBeenCalledTimes(1));
+  });
+
+  it('when a floor lead has no work centers assigned, then the page says every work center is shown', async () => {
+    sheetsApi({ 'GET /api/plans/7/shift-sheets': () => json({ ...week, workCenterScope: 'none_assigned' }) });
+    renderApp('/shift-sheets?plan=7&week=2027-01-04');
+    expect(await screen.findByText('No work centers assigned: showing all.', {}, firstLoad)).toBeInTheDocument();
+    expect(screen.queryByText('Your work centers:')).toBeNull();
+  });
+
+  it('when a floor lead has work centers assigned, then the page names them and shows no "showing all" note', async () => {
+    const mine = { ...week, workCenterScope: 'assigned' as const, workCenters: week.workCenters.slice(0, 1) };
+    sheetsApi({ 'GET /api/plans/7/shift-sheets': () => json(mine) });
+    renderApp('/shift-sheets?plan=7&week=2027-01-04');
+    expect(await screen.findByText('Your work centers:', {}, firstLoad)).toBeInTheDocument();
+    expect(screen.getByText('Your work centers:').parentElement).toHaveTextContent('Your work centers: W1 First');
+    expect(screen.queryByText(/No work centers assigned/)).toBeNull();
+    expect(screen.getByRole('option', { name: 'All your work centers' })).toBeInTheDocument();
+  });
+
+  it('when a planner reads the sheets, then there is no note about assigned work centers', async () => {
+    sheetsApi({ 'GET /api/me': () => json(people.planner) });
+    renderApp('/shift-sheets?plan=7&week=2027-01-04');
+    await screen.findByRole('figure', { name: 'Timeline of the week starting 2027-01-04' }, firstLoad);
+    expect(screen.queryByText(/No work centers assigned|Your work centers/)).toBeNull();
   });
 });
