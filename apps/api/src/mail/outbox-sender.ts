@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { Mailer } from '../app-context';
+import { PollingLoop } from '../background/polling-loop';
 import { leaseDueMail, markMailAttemptFailed, markMailSent } from './outbox.repository';
 
 export interface OutboxSenderSettings {
@@ -39,10 +40,8 @@ export type SendRoundOutcome = { sent: number; failed: number };
  * (admins see it in GET /api/outbox).
  */
 export class OutboxSender {
-  private timer: NodeJS.Timeout | null = null;
-  private running: Promise<unknown> | null = null;
-  private stopped = true;
   private readonly settings: OutboxSenderSettings;
+  private readonly loop: PollingLoop;
 
   constructor(
     private readonly ds: DataSource,
@@ -50,19 +49,23 @@ export class OutboxSender {
     settings: Partial<OutboxSenderSettings> = {},
   ) {
     this.settings = { ...defaultOutboxSenderSettings, ...settings };
+    // Always a full poll interval between rounds, even after a full batch.
+    this.loop = new PollingLoop(
+      async () => {
+        await this.sendDue();
+        return 'idle';
+      },
+      this.settings.pollMs,
+      'outbox: a send round failed',
+    );
   }
 
   start(): void {
-    if (!this.stopped) return;
-    this.stopped = false;
-    this.schedule(0);
+    this.loop.start();
   }
 
   async stop(): Promise<void> {
-    this.stopped = true;
-    if (this.timer) clearTimeout(this.timer);
-    this.timer = null;
-    await this.running;
+    await this.loop.stop();
   }
 
   /** Sends what is due now; used by the loop and by tests that want no waiting. */
@@ -82,17 +85,5 @@ export class OutboxSender {
       }
     }
     return outcome;
-  }
-
-  private schedule(delay: number): void {
-    if (this.stopped) return;
-    this.timer = setTimeout(() => {
-      this.running = this.sendDue()
-        .catch((err: unknown) => console.error('outbox: a send round failed:', err instanceof Error ? err.message : err))
-        .finally(() => {
-          this.running = null;
-          this.schedule(this.settings.pollMs);
-        });
-    }, delay);
   }
 }

@@ -1,6 +1,7 @@
 import { hostname } from 'node:os';
 import type { DataSource } from 'typeorm';
 import type { CrossCheck, CrossCheckSolver } from '@millrace/contracts';
+import { PollingLoop } from '../background/polling-loop';
 import type { SolveJobKind } from '../db/entities/solve-job.entity';
 import { findPlan, findPlanDetail, loadPlanInputs, loadPlanMps, setSolveStatus, storeCrossCheck, storeSolveOutcome } from '../plans/plans.repository';
 import type { ComputeProgress } from './compute-plan';
@@ -34,7 +35,7 @@ export const defaultSolverJobRunnerSettings: SolverJobRunnerSettings = {
 export class SolverJobRunner {
   private readonly settings: SolverJobRunnerSettings;
   private readonly workerId = `${hostname()}:${process.pid}:${Math.random().toString(36).slice(2, 8)}`;
-  private readonly lanes: Lane[];
+  private readonly lanes: PollingLoop[];
   /** one long-lived worker thread per lane */
   private readonly threads: Record<SolveJobKind, SolverThread>;
   private stopping = false;
@@ -45,7 +46,9 @@ export class SolverJobRunner {
   ) {
     this.settings = { ...defaultSolverJobRunnerSettings, ...settings };
     // Two lanes, so a long cross-check never holds up the next plan's solve.
-    this.lanes = (['solve', 'cross_check'] as const).map((kind) => new Lane(() => this.claimAndRun(kind), this.settings.pollMs));
+    this.lanes = (['solve', 'cross_check'] as const).map(
+      (kind) => new PollingLoop(async () => ((await this.claimAndRun(kind)) ? 'busy' : 'idle'), this.settings.pollMs, 'solver jobs: a round failed'),
+    );
     this.threads = { solve: new SolverThread(), cross_check: new SolverThread() };
   }
 
@@ -234,44 +237,4 @@ function notFinished(solver: CrossCheckSolver, message: string): CrossCheck {
     seconds: null,
     message: `The cross-check could not finish: ${message}`,
   };
-}
-
-/** One claim loop: run a round, go again at once after work, wait `pollMs` when idle. */
-class Lane {
-  private timer: NodeJS.Timeout | null = null;
-  private current: Promise<void> | null = null;
-  private stopped = true;
-
-  constructor(
-    private readonly round: () => Promise<boolean>,
-    private readonly pollMs: number,
-  ) {}
-
-  start(): void {
-    if (!this.stopped) return;
-    this.stopped = false;
-    this.schedule(0);
-  }
-
-  async stop(): Promise<void> {
-    this.stopped = true;
-    if (this.timer) clearTimeout(this.timer);
-    this.timer = null;
-    await this.current;
-  }
-
-  private schedule(delay: number): void {
-    if (this.stopped) return;
-    this.timer = setTimeout(() => {
-      this.current = this.round()
-        .catch((err: unknown) => {
-          console.error('solver jobs: a round failed:', err instanceof Error ? err.message : err);
-          return false;
-        })
-        .then((ran) => {
-          this.current = null;
-          this.schedule(ran ? 0 : this.pollMs);
-        });
-    }, delay);
-  }
 }
