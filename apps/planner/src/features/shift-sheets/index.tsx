@@ -89,6 +89,16 @@ export function ShiftSheetsPage({ role }: { role: Role }) {
             {data.plan.approvedBy ? ` · approved by ${data.plan.approvedBy}${data.plan.approvedAt ? ` on ${formatStamp(data.plan.approvedAt)}` : ''}` : ''} · {data.plantName}
           </p>
         ) : null}
+        {data?.workCenterScope === 'none_assigned' ? (
+          <p role="note" className="text-sm">
+            <span className="font-semibold">No work centers assigned: showing all.</span> An admin can assign your work centers on the People page.
+          </p>
+        ) : null}
+        {data?.workCenterScope === 'assigned' ? (
+          <p role="note" className="text-sm">
+            <span className="font-semibold">Your work centers:</span> {data.workCenters.map((c) => `${c.code} ${c.name}`).join(', ') || 'none of them is in this plan version'}
+          </p>
+        ) : null}
       </div>
 
       {sheets.isPending ? <Loading label="Laying out the week…" /> : null}
@@ -159,7 +169,7 @@ export function ShiftSheetsPage({ role }: { role: Role }) {
                   value={workCenter ?? ''}
                   onChange={(e) => choose({ plan: data.plan.id, week: data.week.start, workCenter: e.target.value || undefined })}
                 >
-                  <option value="">All work centers</option>
+                  <option value="">{data.workCenterScope === 'assigned' ? 'All your work centers' : 'All work centers'}</option>
                   {data.workCenters.map((c) => (
                     <option key={c.code} value={c.code}>
                       {c.code} {c.name}

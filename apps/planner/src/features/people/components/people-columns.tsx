@@ -2,12 +2,17 @@ import type { ColumnDef } from '@tanstack/react-table';
 import { roles, type Person, type Role } from '@millrace/contracts';
 import { Button } from '@/components/ui/button';
 import { roleLabels } from '@/lib/authorization';
+import type { WorkCenterChoice } from '../api/get-work-center-choices';
+import { assignedWorkCentersText, WorkCenterPicker } from './work-center-picker';
 
 export type PeopleActions = {
   myEmail: string;
   busyId: number | null;
   changeRole: (person: Person, role: Role) => void;
   setActive: (person: Person, active: boolean) => void;
+  setWorkCenters: (person: Person, workCenterIds: number[]) => void;
+  workCenterChoices: WorkCenterChoice[] | undefined;
+  workCenterChoicesError?: string;
 };
 
 export function peopleColumns(actions: PeopleActions): ColumnDef<Person, any>[] {
@@ -37,6 +42,35 @@ export function peopleColumns(actions: PeopleActions): ColumnDef<Person, any>[] 
               </option>
             ))}
           </select>
+        );
+      },
+    },
+    {
+      id: 'workCenters',
+      header: 'Work centers',
+      enableSorting: false,
+      accessorFn: (p) => (p.workCenterIds ?? []).length,
+      cell: ({ row }) => {
+        const p = row.original;
+        const ids = p.workCenterIds ?? [];
+        if (p.role === 'floor_lead') {
+          return (
+            <WorkCenterPicker
+              key={`${p.id}-${p.version}`}
+              person={p}
+              choices={actions.workCenterChoices}
+              choicesError={actions.workCenterChoicesError}
+              busy={actions.busyId === p.id}
+              onSave={(next) => actions.setWorkCenters(p, next)}
+            />
+          );
+        }
+        return ids.length === 0 ? (
+          <span className="text-ink-soft">—</span>
+        ) : (
+          <span className="text-ink-soft" title="Kept for when they are a floor lead again; only floor leads' sheets follow them.">
+            {assignedWorkCentersText(ids, actions.workCenterChoices)} (used for floor leads only)
+          </span>
         );
       },
     },
