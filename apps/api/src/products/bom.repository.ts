@@ -17,6 +17,23 @@ interface BomLineJoined {
   scrap_pct: string;
 }
 
+/** A joined BOM row as the contract's line; the unit is the component product's or the material's. */
+function toBomLine(r: BomLineJoined): BomLine {
+  return {
+    id: r.id,
+    position: r.position,
+    componentProductId: r.component_product_id,
+    componentProductCode: r.cp_code,
+    componentProductName: r.cp_name,
+    materialId: r.material_id,
+    materialCode: r.m_code,
+    materialName: r.m_name,
+    unit: r.cp_unit ?? r.m_unit ?? '',
+    qtyPer: Number(r.qty_per),
+    scrapPct: Number(r.scrap_pct),
+  };
+}
+
 /** The BOM lines of a parent product, in their saved order, with component codes and names. */
 export async function listBomLines(db: EntityManager, parentId: number): Promise<BomLine[]> {
   const rows = (await db.query(
@@ -29,19 +46,7 @@ export async function listBomLines(db: EntityManager, parentId: number): Promise
       ORDER BY b.position, b.id`,
     [parentId],
   )) as BomLineJoined[];
-  return rows.map((r) => ({
-    id: r.id,
-    position: r.position,
-    componentProductId: r.component_product_id,
-    componentProductCode: r.cp_code,
-    componentProductName: r.cp_name,
-    materialId: r.material_id,
-    materialCode: r.m_code,
-    materialName: r.m_name,
-    unit: r.cp_unit ?? r.m_unit ?? '',
-    qtyPer: Number(r.qty_per),
-    scrapPct: Number(r.scrap_pct),
-  }));
+  return rows.map(toBomLine);
 }
 
 /** Replaces all BOM lines of a parent (inside the caller's transaction). */
@@ -89,19 +94,5 @@ export async function listAllBomLines(db: EntityManager): Promise<Array<BomLine 
        LEFT JOIN material m ON m.id = b.material_id
       ORDER BY pp.code, b.position, b.id`,
   )) as Array<BomLineJoined & { parent_product_id: number; parent_code: string }>;
-  return rows.map((r) => ({
-    id: r.id,
-    parentProductId: r.parent_product_id,
-    parentCode: r.parent_code,
-    position: r.position,
-    componentProductId: r.component_product_id,
-    componentProductCode: r.cp_code,
-    componentProductName: r.cp_name,
-    materialId: r.material_id,
-    materialCode: r.m_code,
-    materialName: r.m_name,
-    unit: r.cp_unit ?? r.m_unit ?? '',
-    qtyPer: Number(r.qty_per),
-    scrapPct: Number(r.scrap_pct),
-  }));
+  return rows.map((r) => ({ ...toBomLine(r), parentProductId: r.parent_product_id, parentCode: r.parent_code }));
 }

@@ -2,15 +2,19 @@ import type { EntityManager } from 'typeorm';
 import type { RoutingStep, RoutingStepInput } from '@millrace/contracts';
 import { RoutingStepEntity } from '../db/entities/routing-step.entity';
 
-/** The routing steps of a product, in sequence, with work-center codes and names. */
-export async function listRoutingSteps(db: EntityManager, productId: number): Promise<RoutingStep[]> {
-  const rows = (await db.query(
-    `SELECT r.id, r.sequence, r.work_center_id, w.code, w.name, r.hours_per_unit, r.setup_hours
-       FROM routing_step r JOIN work_center w ON w.id = r.work_center_id
-      WHERE r.product_id = ? ORDER BY r.sequence`,
-    [productId],
-  )) as Array<{ id: number; sequence: number; work_center_id: number; code: string; name: string; hours_per_unit: string; setup_hours: string }>;
-  return rows.map((r) => ({
+interface RoutingStepJoined {
+  id: number;
+  sequence: number;
+  work_center_id: number;
+  code: string;
+  name: string;
+  hours_per_unit: string;
+  setup_hours: string;
+}
+
+/** A routing row joined with its work center, as the contract's step. */
+function toRoutingStep(r: RoutingStepJoined): RoutingStep {
+  return {
     id: r.id,
     sequence: r.sequence,
     workCenterId: r.work_center_id,
@@ -18,7 +22,18 @@ export async function listRoutingSteps(db: EntityManager, productId: number): Pr
     workCenterName: r.name,
     hoursPerUnit: Number(r.hours_per_unit),
     setupHours: Number(r.setup_hours),
-  }));
+  };
+}
+
+/** The routing steps of a product, in sequence, with work-center codes and names. */
+export async function listRoutingSteps(db: EntityManager, productId: number): Promise<RoutingStep[]> {
+  const rows = (await db.query(
+    `SELECT r.id, r.sequence, r.work_center_id, w.code, w.name, r.hours_per_unit, r.setup_hours
+       FROM routing_step r JOIN work_center w ON w.id = r.work_center_id
+      WHERE r.product_id = ? ORDER BY r.sequence`,
+    [productId],
+  )) as RoutingStepJoined[];
+  return rows.map(toRoutingStep);
 }
 
 /** Replaces all routing steps of a product (inside the caller's transaction). */
@@ -35,16 +50,6 @@ export async function listAllRoutingSteps(db: EntityManager): Promise<Array<Rout
     `SELECT r.id, r.product_id, p.code AS product_code, r.sequence, r.work_center_id, w.code, w.name, r.hours_per_unit, r.setup_hours
        FROM routing_step r JOIN work_center w ON w.id = r.work_center_id JOIN product p ON p.id = r.product_id
       ORDER BY p.code, r.sequence`,
-  )) as Array<{ id: number; product_id: number; product_code: string; sequence: number; work_center_id: number; code: string; name: string; hours_per_unit: string; setup_hours: string }>;
-  return rows.map((r) => ({
-    id: r.id,
-    productId: r.product_id,
-    productCode: r.product_code,
-    sequence: r.sequence,
-    workCenterId: r.work_center_id,
-    workCenterCode: r.code,
-    workCenterName: r.name,
-    hoursPerUnit: Number(r.hours_per_unit),
-    setupHours: Number(r.setup_hours),
-  }));
+  )) as Array<RoutingStepJoined & { product_id: number; product_code: string }>;
+  return rows.map((r) => ({ ...toRoutingStep(r), productId: r.product_id, productCode: r.product_code }));
 }
