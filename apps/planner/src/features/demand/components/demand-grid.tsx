@@ -55,7 +55,7 @@ const GridRow = memo(function GridRow({ line, index, weeks, weekNames, pending, 
   const firstOfProduct = line.kind === 'firm';
   return (
     <tr role="row" aria-rowindex={index + 2} style={{ height: lineHeightPx }} className={firstOfProduct ? 'border-t border-line' : ''}>
-      <th role="rowheader" scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
+      <th role="rowheader" scope="row" className="sticky left-0 z-[1] whitespace-nowrap bg-panel px-2 py-1 text-left font-normal">
         {firstOfProduct ? (
           <>
             <span className="font-semibold">{line.row.productCode}</span> {line.row.productName}
@@ -346,9 +346,9 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
           if (!e.currentTarget.contains(e.relatedTarget as Node | null)) focusInside.current = false;
         }}
       >
-        <thead className="sticky top-0 z-[1] bg-race-50">
+        <thead className="sticky top-0 z-[2] bg-race-50">
           <tr role="row" aria-rowindex={1}>
-            <th role="columnheader" scope="col" className="px-2 py-1.5 text-left">
+            <th role="columnheader" scope="col" className="sticky left-0 bg-race-50 px-2 py-1.5 text-left">
               Product
             </th>
             <th role="columnheader" scope="col" className="px-2 py-1.5 text-left">
@@ -396,10 +396,10 @@ export function DemandGrid({ lines, weeks, pending, cellErrors, readOnly, onEdit
             </tr>
           ) : null}
         </tbody>
-        <tfoot className="sticky bottom-0 bg-race-50 font-semibold">
+        <tfoot className="sticky bottom-0 z-[2] bg-race-50 font-semibold">
           {(['firm', 'forecast'] as const).map((kind, i) => (
             <tr key={kind} role="row" aria-rowindex={rowCount + 2 + i}>
-              <th role="rowheader" scope="row" className="px-2 py-1.5 text-left">
+              <th role="rowheader" scope="row" className="sticky left-0 bg-race-50 px-2 py-1.5 text-left">
                 Week total
               </th>
               <th role="rowheader" scope="row" className="px-2 py-1.5 text-left">
