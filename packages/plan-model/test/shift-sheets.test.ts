@@ -4,10 +4,10 @@ import { mapSolution } from '../src/map-solution';
 import { roundPlan } from '../src/round-plan';
 import type { Plan } from '../src/plan';
 import type { PlanningData } from '../src/planning-data';
-import { buildShiftSheets, ShiftSheetError } from '../src/shift-sheets/build-shift-sheets';
+import { buildShiftSheets, DEFAULT_SHIFT_SHEET_SETTINGS, ShiftSheetError } from '../src/shift-sheets/build-shift-sheets';
 import { workingTimeCautions } from '../src/shift-sheets/working-time';
 import { shiftWindows } from '../src/shift-sheets/shift-windows';
-import type { ShiftSheet } from '../src/shift-sheets/shift-sheet';
+import type { ShiftSheet, ShiftSheetSettings } from '../src/shift-sheets/shift-sheet';
 import { generatePlant, type PlantSize } from './support/generate-plant';
 import { solveUnderTest, solverName } from './support/solver';
 
@@ -20,17 +20,67 @@ async function approvedPlan(seed: number, size: PlantSize, whole: boolean): Prom
   return { data, plan: whole ? roundPlan(data, lp).plan : lp };
 }
 
-const cases: [number, PlantSize, boolean, number][] = [
-  [61, { finished: 6, subassemblies: 3, workCenters: 3, materials: 4, weeks: 3 }, true, 0],
-  [62, { finished: 10, subassemblies: 4, workCenters: 4, materials: 5, weeks: 3 }, true, 45],
-  [63, { finished: 8, subassemblies: 4, workCenters: 3, materials: 4, weeks: 2 }, false, 15],
+/** seed, size, whole units, transfer lag (min), transfer batch settings */
+const cases: [number, PlantSize, boolean, number, Partial<ShiftSheetSettings>][] = [
+  [61, { finished: 6, subassemblies: 3, workCenters: 3, materials: 4, weeks: 3 }, true, 0, {}],
+  [62, { finished: 10, subassemblies: 4, workCenters: 4, materials: 5, weeks: 3 }, true, 45, { transferBatchShare: 0.1 }],
+  [63, { finished: 8, subassemblies: 4, workCenters: 3, materials: 4, weeks: 2 }, false, 15, { transferBatchShare: 0.3 }],
+  [61, { finished: 6, subassemblies: 3, workCenters: 3, materials: 4, weeks: 3 }, true, 30, { transferBatchShare: 1 }],
+  [66, { finished: 8, subassemblies: 3, workCenters: 4, materials: 3, weeks: 2 }, true, 0, { transferBatchUnits: { 'P-1': 1, 'P-2': 7, 'S-1': 5 } }],
 ];
 
+/** the minute a step has completed `cumulative` units, read off its jobs (each runs at a steady rate) */
+function completedAt(jobs: { quantity: number; startMinute: number; endMinute: number }[], cumulative: number): number {
+  const total = jobs.reduce((a, j) => a + j.quantity, 0);
+  if (cumulative >= total - 1e-9) return Math.max(...jobs.map((j) => j.endMinute));
+  let before = 0;
+  for (const j of [...jobs].sort((a, b) => a.startMinute - b.startMinute)) {
+    if (j.quantity > 1e-12 && before + j.quantity >= cumulative - 1e-9) return j.startMinute + (Math.max(0, cumulative - before) / j.quantity) * (j.endMinute - j.startMinute);
+    before += j.quantity;
+  }
+  throw new Error('unreachable');
+}
+
+/** transfer batch per the settings' definition: share of the week's quantity or units per product, ≥ 1 unit, whole when the quantity is whole */
+function batchOf(settings: ShiftSheetSettings, product: string, quantity: number): number {
+  const raw = Math.max(settings.transferBatchUnits[product] ?? settings.transferBatchShare * quantity, Math.min(1, quantity));
+  return Math.min(quantity, Math.abs(quantity - Math.round(quantity)) < 1e-9 ? Math.ceil(raw - 1e-9) : raw);
+}
+
+/**
+ * Transfer-batch precedence: every batch k of the later jobs (cumulative units ((k−1)b, kb])
+ * starts no earlier than the feeding jobs completed their share of batch k, plus the lag; the
+ * first job's setup starts no earlier than batch 1 is there.
+ */
+function expectBatchPrecedence(
+  feeding: { quantity: number; startMinute: number; endMinute: number }[],
+  later: { quantity: number; startMinute: number; endMinute: number; setupStartMinute: number }[],
+  batch: number,
+  quantity: number,
+  lag: number,
+  scale: number,
+) {
+  const fed = feeding.reduce((a, j) => a + j.quantity, 0);
+  const readyAt = (cumulative: number) => completedAt(feeding, Math.min(fed, scale * cumulative)) + lag;
+  let before = 0;
+  const sorted = [...later].sort((a, b) => a.setupStartMinute - b.setupStartMinute);
+  if (sorted.length > 0) expect(sorted[0].setupStartMinute).toBeGreaterThanOrEqual(readyAt(Math.min(batch, quantity)) - 1e-6);
+  for (const j of sorted) {
+    const rate = j.quantity > 1e-12 ? (j.endMinute - j.startMinute) / j.quantity : 0;
+    for (let k = 1; (k - 1) * batch < before + j.quantity - 1e-9; k++) {
+      if (k * batch <= before + 1e-9) continue;
+      const batchStart = j.startMinute + Math.max(0, (k - 1) * batch - before) * rate;
+      expect(batchStart).toBeGreaterThanOrEqual(readyAt(Math.min(k * batch, quantity)) - 1e-6);
+    }
+    before += j.quantity;
+  }
+}
+
 describe(`shift sheets: properties over generated plans (solver: ${solverName})`, () => {
-  for (const [seed, size, whole, lag] of cases) {
-    it(`seed ${seed} (${whole ? 'whole units' : 'LP quantities'}, transfer lag ${lag} min): conservation, precedence, no overlap, inside open shifts, within shift + overtime`, async () => {
+  for (const [seed, size, whole, lag, batches] of cases) {
+    it(`seed ${seed} (${whole ? 'whole units' : 'LP quantities'}, transfer lag ${lag} min, batches ${JSON.stringify(batches)}): conservation, batch precedence, no overlap, inside open shifts, within shift + overtime, one setup per run`, async () => {
       const { data, plan } = await approvedPlan(seed, size, whole);
-      const { sheets, unscheduled } = buildShiftSheets(data, plan, { transferLagMinutes: lag });
+      const { sheets, unscheduled, settings } = buildShiftSheets(data, plan, { transferLagMinutes: lag, ...batches });
       expect(sheets.length).toBeGreaterThan(0);
       const jobs = sheets.flatMap((s) => s.jobs.map((j) => ({ ...j, sheet: s })));
 
@@ -42,16 +92,37 @@ describe(`shift sheets: properties over generated plans (solver: ${solverName})`
           expect(Math.abs(scheduled + left - l.make)).toBeLessThan(1e-9 * (1 + l.make));
         }
       }
-      // 2. routing precedence: a step starts only after the earlier step has finished, plus the lag
-      for (const week of new Set(jobs.map((j) => j.sheet.week)))
-        for (const p of data.products) {
-          const steps = data.routings.filter((r) => r.product === p.code).sort((a, b) => a.sequence - b.sequence);
+      // 2. routing precedence by transfer batches (lot streaming: Trietsch & Baker 1993, from
+      // memory): batch k of a later step starts only after the earlier step finished batch k,
+      // plus the lag; a product's first step takes batch k only after each sub-assembly made
+      // that week finished the same share of what it completed, plus the lag
+      for (const l of plan.products.filter((x) => x.make > 1e-9)) {
+        const week = l.week;
+        const batch = batchOf(settings, l.product, l.make);
+        const steps = data.routings.filter((r) => r.product === l.product).sort((a, b) => a.sequence - b.sequence);
+        const stepJobs = (product: string, operation: number) => jobs.filter((j) => j.sheet.week === week && j.product === product && j.operation === operation);
+        for (let k = 1; k < steps.length; k++) expectBatchPrecedence(stepJobs(l.product, steps[k - 1].sequence), stepJobs(l.product, steps[k].sequence), batch, l.make, lag, 1);
+        if (steps.length === 0) continue;
+        const firstJobs = stepJobs(l.product, steps[0].sequence);
+        for (const b of data.bom.filter((x) => x.parent === l.product && x.componentProduct !== undefined)) {
+          const made = plan.products.find((x) => x.product === b.componentProduct && x.week === week && x.make > 1e-9);
+          const compSteps = data.routings.filter((r) => r.product === b.componentProduct).sort((a, b2) => a.sequence - b2.sequence);
+          if (!made || compSteps.length === 0) continue;
+          const compJobs = stepJobs(b.componentProduct!, compSteps[compSteps.length - 1].sequence);
+          if (compJobs.length === 0) continue;
+          const compDone = compJobs.reduce((a, j) => a + j.quantity, 0);
+          expectBatchPrecedence(compJobs, firstJobs, batch, l.make, lag, compDone / l.make);
+        }
+      }
+      // a split into transfer batches only ever helps the floor: with batches of the whole
+      // quantity the later steps start after the whole earlier step (the classic rule)
+      if (settings.transferBatchShare === 1 && Object.keys(settings.transferBatchUnits).length === 0)
+        for (const l of plan.products.filter((x) => x.make > 1e-9)) {
+          const steps = data.routings.filter((r) => r.product === l.product).sort((a, b) => a.sequence - b.sequence);
           for (let k = 1; k < steps.length; k++) {
-            const before = jobs.filter((j) => j.sheet.week === week && j.product === p.code && j.operation === steps[k - 1].sequence);
-            const after = jobs.filter((j) => j.sheet.week === week && j.product === p.code && j.operation === steps[k].sequence);
-            if (after.length === 0) continue;
-            const ready = Math.max(...before.map((j) => j.endMinute)) + lag;
-            for (const j of after) expect(j.setupStartMinute).toBeGreaterThanOrEqual(ready - 1e-9);
+            const before = jobs.filter((j) => j.sheet.week === l.week && j.product === l.product && j.operation === steps[k - 1].sequence);
+            for (const j of jobs.filter((x) => x.sheet.week === l.week && x.product === l.product && x.operation === steps[k].sequence))
+              expect(j.setupStartMinute).toBeGreaterThanOrEqual(Math.max(...before.map((b) => b.endMinute)) + lag - 1e-9);
           }
         }
       // 3. no two jobs overlap on one work center (setups included)
@@ -75,6 +146,13 @@ describe(`shift sheets: properties over generated plans (solver: ${solverName})`
         expect(j.materials.map((m) => m.item)).toEqual(lines.map((b) => b.material ?? b.componentProduct));
         j.materials.forEach((m, i) => expect(m.quantity).toBeCloseTo((lines[i].qtyPer / (1 - lines[i].scrapPct / 100)) * j.quantity, 9));
       }
+      // setups counted once per run: an operation's setup is on its first job only, its other jobs continue it
+      for (const l of plan.products.filter((x) => x.make > 1e-9))
+        for (const r of data.routings.filter((x) => x.product === l.product)) {
+          const mine = jobs.filter((j) => j.sheet.week === l.week && j.product === l.product && j.operation === r.sequence).sort((a, b) => a.setupStartMinute - b.setupStartMinute);
+          mine.slice(1).forEach((j) => expect([j.setupMinutes, j.continued]).toEqual([0, true]));
+          if (mine.length > 0) expect(mine[0].continued).toBe(false);
+        }
       // whole-unit plans are split in whole units
       if (whole) for (const j of jobs) expect(Math.abs(j.quantity - Math.round(j.quantity))).toBeLessThan(1e-9);
     });
@@ -119,12 +197,61 @@ describe('shift sheets: a job without setup that does not fit the rest of a shif
       products: [{ product: 'P', week: 1, make: 8 }],
       workCenters: [{ workCenter: 'WC-B', week: 1, overtimeHours: 2.5 }],
     } as unknown as Plan;
-    const { sheets } = buildShiftSheets(data, plan);
+    // the whole quantity moves at once here, so step 20 waits for all 8 units of step 10
+    const { sheets } = buildShiftSheets(data, plan, { transferBatchShare: 1 });
     const b = sheets.filter((s) => s.workCenter === 'WC-B');
     expect(b.map((s) => s.date)).toEqual(['2027-01-05']);
     const job = b[0].jobs[0];
     expect([job.setupStart, job.start, job.quantity]).toEqual(['2027-01-05T07:00', '2027-01-05T07:00', 8]);
     expect(b[0].plannedMinutes).toBe(8 * 60);
+  });
+});
+
+describe('shift sheets: transfer batches (overlapping operations)', () => {
+  // One product, 8 units, two steps on two work centers with one 12 h shift from 06:00, so
+  // nothing splits across shifts. With n equal sublots of s = Q/n units on two machines the
+  // makespan is s·p1 + (n−1)·s·max(p1, p2) + s·p2 (two-machine lot streaming with equal
+  // sublots: Trietsch & Baker 1993, Basic techniques for lot streaming, Operations Research
+  // 41(6), from memory); with the whole quantity at once it is Q·p1 + Q·p2.
+  const pattern = { shiftsPerDay: 1, hoursPerShift: 12, daysPerWeek: 5, shiftStarts: ['06:00'] };
+  const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
+  const twoSteps = (p1: number, p2: number): PlanningData => ({
+    plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
+    weeks: [{ index: 1, startDate: '2027-01-04' }],
+    products: [{ code: 'P', name: 'P', unit: 'pcs', kind: 'finished', price: 1, safetyStock: 0, batchMultiple: 1, openingStock: 0, latePenalty: 0 }],
+    bom: [],
+    routings: [
+      { product: 'P', sequence: 10, workCenter: 'WC-A', hoursPerUnit: p1, setupHours: 0 },
+      { product: 'P', sequence: 20, workCenter: 'WC-B', hoursPerUnit: p2, setupHours: 0 },
+    ],
+    workCenters: [wc('WC-A'), wc('WC-B')],
+    materials: [],
+    demand: [],
+  });
+  const plan = { horizonWeeks: 1, outcome: 'optimal', products: [{ product: 'P', week: 1, make: 8 }], workCenters: [] } as unknown as Plan;
+  const stepB = (data: PlanningData, settings: Partial<ShiftSheetSettings>) =>
+    buildShiftSheets(data, plan, settings).sheets.filter((s) => s.workCenter === 'WC-B').flatMap((s) => s.jobs.map((j) => `${j.quantity} ${j.start.slice(11)}–${j.end.slice(11)}${j.continued ? ' continued' : ''}`));
+
+  it('equal run times, four batches of 2: makespan 2 + 3·2 + 2 = 10 h, where the whole quantity waits for step 10', () => {
+    expect(stepB(twoSteps(1, 1), { transferBatchShare: 0.25 })).toEqual(['8 08:00–16:00']);
+    // whole quantity: step 20 starts at 14:00 and the 18:00 shift end splits it
+    expect(stepB(twoSteps(1, 1), { transferBatchShare: 1 })).toEqual(['4 14:00–18:00', '4 06:00–10:00 continued']);
+  });
+  it('a faster later step waits for each batch: 2·1 + 3·2·1 + 2·0.5 = 9 h, four lines without a new setup', () => {
+    expect(stepB(twoSteps(1, 0.5), { transferBatchShare: 0.25 })).toEqual(['2 08:00–09:00', '2 10:00–11:00 continued', '2 12:00–13:00 continued', '2 14:00–15:00 continued']);
+  });
+  it('a slower later step runs without a wait: 2·0.5 + 3·2·1 + 2·1 = 9 h', () => {
+    expect(stepB(twoSteps(0.5, 1), { transferBatchShare: 0.25 })).toEqual(['8 07:00–15:00']);
+  });
+  it('one-unit batches per product: 1 + 7·1 + 1 = 9 h; the default is a quarter of the quantity', () => {
+    expect(stepB(twoSteps(1, 1), { transferBatchUnits: { P: 1 } })).toEqual(['8 07:00–15:00']);
+    expect(stepB(twoSteps(1, 1), {})).toEqual(['8 08:00–16:00']);
+    expect(DEFAULT_SHIFT_SHEET_SETTINGS.transferBatchShare).toBe(0.25);
+  });
+  it('refuses a batch share outside (0, 1] and a batch that is not a positive number of units, naming the product', () => {
+    expect(() => buildShiftSheets(twoSteps(1, 1), plan, { transferBatchShare: 0 })).toThrow(/transfer batch share must be above 0 and at most 1, got 0/);
+    expect(() => buildShiftSheets(twoSteps(1, 1), plan, { transferBatchShare: 1.5 })).toThrow(/got 1\.5/);
+    expect(() => buildShiftSheets(twoSteps(1, 1), plan, { transferBatchUnits: { P: -2 } })).toThrow(/the transfer batch of P must be a positive number of units, got -2/);
   });
 });
 

@@ -14,8 +14,15 @@ import { componentUsePerUnit } from '../bom-graph';
  * dispatching), ties in the order of weekOperations (earliest firm due week first, grouped by
  * family and product, sub-assemblies before their parents, routing steps in sequence):
  *
- *  - an operation starts at the latest of: its work center free, the previous routing step's
- *    finish (whole quantity) plus the transfer lag, its sub-assemblies' finish plus the lag;
+ *  - operations overlap by transfer batches (lot streaming: Trietsch & Baker 1993, Basic
+ *    techniques for lot streaming, Operations Research 41(6), from memory; DOMAIN.md §4
+ *    "previous operation's finish plus transfer"): a product's quantity
+ *    moves on in batches (settings.transferBatchShare of the week's quantity, or
+ *    settings.transferBatchUnits per product), and batch k of an operation starts at the latest
+ *    of: the work center free (after the batch before it), the previous routing step's finish
+ *    of batch k plus the transfer lag, and — for a first step — its sub-assemblies' finish of the
+ *    same share plus the lag; when the later step is faster it waits for the next batch, and
+ *    the sheet shows the continuation as its own line;
  *  - a setup is needed when the product changes on the work center (× the family factor when
  *    the previous product is of the same family) and is never started where it cannot finish
  *    inside the shift (overtime included);
@@ -25,7 +32,19 @@ import { componentUsePerUnit } from '../bom-graph';
  *  - overtime from the plan extends the day's last shift and is marked on the jobs in it;
  *  - what does not fit in the week is listed as unscheduled with its reason, never dropped.
  */
-export const DEFAULT_SHIFT_SHEET_SETTINGS: ShiftSheetSettings = { transferLagMinutes: 0, familySetupFactor: 1, nightRunDays: 5 };
+/**
+ * Defaults: no transfer lag; transfer batches of a quarter of the week's quantity (four batches,
+ * rounded up to whole units — common practice, no source: a split into a few batches gains
+ * most of the overlap, smaller ones mostly add handling); no family setup saving; a caution
+ * after five nights in a row.
+ */
+export const DEFAULT_SHIFT_SHEET_SETTINGS: ShiftSheetSettings = {
+  transferLagMinutes: 0,
+  transferBatchShare: 0.25,
+  transferBatchUnits: {},
+  familySetupFactor: 1,
+  nightRunDays: 5,
+};
 
 export interface ShiftSheetIssue {
   item: string;
@@ -55,6 +74,11 @@ const EPS = 1e-9;
 export function buildShiftSheets(data: PlanningData, plan: Plan, options: Partial<ShiftSheetSettings> & { weeks?: number[] } = {}): ShiftSheetResult {
   const settings: ShiftSheetSettings = { ...DEFAULT_SHIFT_SHEET_SETTINGS, ...options };
   if (!(settings.transferLagMinutes >= 0)) throw new ShiftSheetError([{ item: 'settings', message: `transfer lag must be ≥ 0 minutes, got ${settings.transferLagMinutes}` }]);
+  if (!(settings.transferBatchShare > 0 && settings.transferBatchShare <= 1))
+    throw new ShiftSheetError([{ item: 'settings', message: `transfer batch share must be above 0 and at most 1, got ${settings.transferBatchShare}` }]);
+  const badBatches = Object.entries(settings.transferBatchUnits).filter(([, units]) => !(units > 0 && Number.isFinite(units)));
+  if (badBatches.length > 0)
+    throw new ShiftSheetError(badBatches.map(([product, units]) => ({ item: `product ${product}`, message: `the transfer batch of ${product} must be a positive number of units, got ${units}` })));
   if (!(settings.familySetupFactor >= 0 && settings.familySetupFactor <= 1))
     throw new ShiftSheetError([{ item: 'settings', message: `family setup factor must be between 0 and 1, got ${settings.familySetupFactor}` }]);
   if (plan.outcome !== 'optimal') throw new ShiftSheetError([{ item: 'plan', message: `the plan has no production to schedule (outcome ${plan.outcome})` }]);
@@ -110,8 +134,8 @@ function scheduleWeek(
   const pieces: Piece[] = [];
   const cursor = new Map<string, number>();
   const last = new Map<string, { product: string; family: string | null }>();
-  /** per product: end of its latest operation and the quantity that operation completed */
-  const done = new Map<string, { end: number; quantity: number }>();
+  /** per product: how its latest operation this week completed its output */
+  const done = new Map<string, Completion>();
   const lag = settings.transferLagMinutes;
 
   // Non-delay dispatching (Giffler & Thompson 1960; Baker & Trietsch 2009, ch. on dispatching):
@@ -127,15 +151,33 @@ function scheduleWeek(
     if (b.componentProduct !== undefined && queues.has(b.componentProduct) && queues.has(b.parent) && b.componentProduct !== b.parent)
       componentsOf.set(b.parent, [...(componentsOf.get(b.parent) ?? []), b.componentProduct]);
   const ready = (product: string) => done.has(product) || (componentsOf.get(product) ?? []).every((c) => queues.get(c)!.length === 0);
-  const earliestStart = (op: WeekOperation) => {
+
+  /**
+   * What an operation may work and when each of its transfer batches is released: a later
+   * routing step gets batch k (cumulative quantity c_k) when the earlier step has completed c_k
+   * units, plus the lag, and can only work what the earlier step completed this week; a first
+   * step gets batch k when each sub-assembly made this week has completed the same share
+   * (c_k ÷ quantity) of what it completed, plus the lag.
+   */
+  const feed = (op: WeekOperation) => {
     const before = done.get(op.product);
-    let release = before ? before.end + lag : 0;
-    if (!before)
-      for (const c of componentsOf.get(op.product) ?? []) {
-        const d = done.get(c);
-        if (d) release = Math.max(release, d.end + lag);
-      }
-    return Math.max(cursor.get(op.workCenter) ?? 0, release);
+    const quantity = before ? Math.min(op.quantity, before.quantity) : op.quantity;
+    const batch = transferBatch(settings, op.product, op.quantity);
+    const release = (cumulative: number): number => {
+      if (before) return completedAt(before, cumulative) + lag;
+      let t = 0;
+      for (const b of data.bom)
+        if (b.parent === op.product && b.componentProduct !== undefined) {
+          const c = done.get(b.componentProduct);
+          if (c) t = Math.max(t, completedAt(c, quantity > EPS ? (c.quantity * cumulative) / quantity : c.quantity) + lag);
+        }
+      return t;
+    };
+    return { before, quantity, batch, release };
+  };
+  const earliestStart = (op: WeekOperation) => {
+    const f = feed(op);
+    return Math.max(cursor.get(op.workCenter) ?? 0, f.release(Math.min(f.batch, f.quantity)));
   };
   const next = (): WeekOperation | undefined => {
     let pick: string | undefined;
@@ -153,34 +195,22 @@ function scheduleWeek(
 
   for (let op = next(); op !== undefined; op = next()) {
     const windows = windowsOf.get(`${op.workCenter}|${week}`)!;
-    const before = done.get(op.product);
-    let quantity = op.quantity;
-    let release = 0;
-    if (before) {
-      // a later step can only work what the earlier step finished this week
-      if (before.quantity < quantity - EPS) {
-        unscheduled.push({
-          workCenter: op.workCenter, week, product: op.product, operation: op.operation, quantity: quantity - before.quantity,
-          hours: ((quantity - before.quantity) * op.runMinutesPerUnit) / 60, reason: 'the previous operation did not finish this quantity in the week',
-        });
-        quantity = before.quantity;
-      }
-      release = before.end + lag;
-    } else {
-      for (const b of data.bom)
-        if (b.parent === op.product && b.componentProduct !== undefined) {
-          const c = done.get(b.componentProduct);
-          if (c) release = Math.max(release, c.end + lag);
-        }
+    const { before, quantity, batch, release } = feed(op);
+    // a later step can only work what the earlier step finished this week
+    if (before && before.quantity < op.quantity - EPS) {
+      unscheduled.push({
+        workCenter: op.workCenter, week, product: op.product, operation: op.operation, quantity: op.quantity - before.quantity,
+        hours: ((op.quantity - before.quantity) * op.runMinutesPerUnit) / 60, reason: 'the previous operation did not finish this quantity in the week',
+      });
     }
     if (quantity <= EPS) {
-      done.set(op.product, { end: release, quantity: 0 });
+      done.set(op.product, { end: release(0), quantity: 0, runs: [] });
       continue;
     }
     const prev = last.get(op.workCenter);
     const setup = prev?.product === op.product ? 0 : prev && op.family !== null && prev.family === op.family ? op.setupMinutes * settings.familySetupFactor : op.setupMinutes;
     const whole = Math.abs(quantity - Math.round(quantity)) < 1e-9;
-    const t0 = Math.max(cursor.get(op.workCenter) ?? 0, release);
+    const t0 = Math.max(cursor.get(op.workCenter) ?? 0, release(Math.min(batch, quantity)));
 
     // the setup must finish inside one shift (overtime included)
     let wi = windows.findIndex((w) => Math.max(t0, w.start) + setup <= w.overtimeEnd + EPS && (setup > 0 || Math.max(t0, w.start) < w.overtimeEnd));
@@ -189,47 +219,95 @@ function scheduleWeek(
         workCenter: op.workCenter, week, product: op.product, operation: op.operation, quantity,
         hours: (setup + quantity * op.runMinutesPerUnit) / 60, reason: 'no open shift time left in the week',
       });
-      done.set(op.product, { end: Number.POSITIVE_INFINITY, quantity: 0 });
+      done.set(op.product, { end: Number.POSITIVE_INFINITY, quantity: 0, runs: [] });
       continue;
     }
     const setupStart = Math.max(t0, windows[wi].start);
     let cur = setupStart + setup;
-    let left = quantity;
+    let placed = 0;
     let first = true;
     let end = cur;
-    while (left > EPS && wi < windows.length) {
-      const w = windows[wi];
-      cur = Math.max(cur, w.start);
-      const room = w.overtimeEnd - cur;
-      let units: number;
-      if (op.runMinutesPerUnit <= 0) units = left;
-      else if (whole) units = Math.min(left, Math.floor(room / op.runMinutesPerUnit + 1e-9));
-      else units = Math.min(left, room / op.runMinutesPerUnit);
-      if (!whole && left - units < 1e-9) units = left;
-      if (units > EPS || (first && setup > 0)) {
-        const runEnd = cur + units * op.runMinutesPerUnit;
-        pieces.push({
-          op, window: w, setupStart: first && setup > 0 ? setupStart : cur, start: cur, end: runEnd,
-          setupMinutes: first ? setup : 0, quantity: units, continued: !first,
-        });
-        first = false;
-        left -= units;
-        end = runEnd;
-        cur = runEnd;
+    const runs: Completion['runs'] = [];
+    let mine: Piece | undefined;
+    // batch by batch: each starts at the latest of the work center free and its release
+    for (let k = 1; placed < quantity - EPS && wi < windows.length; k++) {
+      const target = Math.min(k * batch, quantity);
+      let left = target - placed;
+      if (left <= EPS) continue;
+      if (!first) {
+        cur = Math.max(cur, release(target));
+        while (wi < windows.length && windows[wi].overtimeEnd - cur <= EPS) wi++;
       }
-      if (left > EPS) wi++;
+      while (left > EPS && wi < windows.length) {
+        const w = windows[wi];
+        cur = Math.max(cur, w.start);
+        const room = Math.max(0, w.overtimeEnd - cur);
+        let units: number;
+        if (op.runMinutesPerUnit <= 0) units = left;
+        else if (whole) units = Math.min(left, Math.floor(room / op.runMinutesPerUnit + 1e-9));
+        else units = Math.min(left, room / op.runMinutesPerUnit);
+        if (!whole && left - units < 1e-9) units = left;
+        if (units > EPS || (first && setup > 0)) {
+          const runEnd = cur + units * op.runMinutesPerUnit;
+          if (units > EPS) runs.push({ start: cur, end: runEnd, before: placed, units });
+          if (mine && mine.window === w && Math.abs(mine.end - cur) <= EPS) {
+            // the next batch follows on without a wait: one job line
+            mine.end = runEnd;
+            mine.quantity += units;
+          } else {
+            mine = {
+              op, window: w, setupStart: first && setup > 0 ? setupStart : cur, start: cur, end: runEnd,
+              setupMinutes: first ? setup : 0, quantity: units, continued: !first,
+            };
+            pieces.push(mine);
+          }
+          first = false;
+          left -= units;
+          placed += units;
+          end = runEnd;
+          cur = runEnd;
+        }
+        if (left > EPS) wi++;
+      }
     }
-    if (left > EPS) {
+    if (quantity - placed > EPS) {
       unscheduled.push({
-        workCenter: op.workCenter, week, product: op.product, operation: op.operation, quantity: left,
-        hours: (left * op.runMinutesPerUnit) / 60, reason: 'no open shift time left in the week',
+        workCenter: op.workCenter, week, product: op.product, operation: op.operation, quantity: quantity - placed,
+        hours: ((quantity - placed) * op.runMinutesPerUnit) / 60, reason: 'no open shift time left in the week',
       });
     }
     cursor.set(op.workCenter, end);
     last.set(op.workCenter, { product: op.product, family: op.family });
-    done.set(op.product, { end, quantity: quantity - left });
+    done.set(op.product, { end, quantity: placed, runs });
   }
   return pieces;
+}
+
+/** how an operation completed its output: runs of units in time order, each at a steady rate */
+interface Completion {
+  /** end of the operation (its release when it worked nothing, +∞ when it found no room) */
+  end: number;
+  /** units completed this week */
+  quantity: number;
+  runs: { start: number; end: number; before: number; units: number }[];
+}
+
+/** the minute the operation has completed `cumulative` units (its end from its last unit on) */
+function completedAt(c: Completion, cumulative: number): number {
+  if (cumulative >= c.quantity - EPS) return c.end;
+  for (const r of c.runs) if (r.before + r.units >= cumulative - EPS) return r.start + (Math.max(0, cumulative - r.before) / r.units) * (r.end - r.start);
+  return c.end;
+}
+
+/**
+ * The transfer batch of a product's operations in a week (see ShiftSheetSettings): the product's
+ * own size in units, else the share of the week's quantity; at least one unit (or the whole
+ * quantity when it is less), whole units when the quantity is whole, at most the quantity.
+ */
+export function transferBatch(settings: ShiftSheetSettings, product: string, quantity: number): number {
+  const raw = Math.max(settings.transferBatchUnits[product] ?? settings.transferBatchShare * quantity, Math.min(1, quantity));
+  const whole = Math.abs(quantity - Math.round(quantity)) < 1e-9;
+  return Math.min(quantity, whole ? Math.ceil(raw - 1e-9) : raw);
 }
 
 /** what to issue to the first operation of a job: BOM components × quantity, scrap included */

@@ -23,7 +23,7 @@ export interface ShiftSheetJob {
   setupMinutes: number;
   /** part of the job runs in overtime added to the shift */
   overtime: boolean;
-  /** this job continues a job begun in an earlier shift (no new setup) */
+  /** this job continues a job begun earlier — in an earlier shift, or before a wait for the next transfer batch (no new setup) */
   continued: boolean;
   /** earliest week with firm orders this production serves, null if none */
   dueWeek: number | null;
@@ -84,8 +84,18 @@ export interface WorkingTimeCaution {
 }
 
 export interface ShiftSheetSettings {
-  /** minutes between an operation's end and the next operation's start on another work center */
+  /** minutes between a transfer batch's last unit on one work center and its first on the next (move, cooling, drying) */
   transferLagMinutes: number;
+  /**
+   * Transfer batch as a share of the week's quantity of a product, 0 < share ≤ 1: a routing step
+   * hands its output to the next step (and a sub-assembly to the product using it) batch by
+   * batch, so the next step may start once the first batch plus the lag is done (overlapping
+   * operations). 1 = the whole quantity moves at once. Rounded up to whole units when the
+   * quantity is whole, and never below one unit.
+   */
+  transferBatchShare: number;
+  /** transfer batch in units per product code, overriding the share for that product */
+  transferBatchUnits: Record<string, number>;
   /** setup multiplier when the previous job on the work center is of the same family (1 = no saving) */
   familySetupFactor: number;
   /** consecutive night shifts that earn a fatigue caution */
