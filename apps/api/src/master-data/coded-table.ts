@@ -1,5 +1,5 @@
 import type { DeepPartial, EntityManager, EntitySchema, FindOptionsWhere } from 'typeorm';
-import { updateIfVersion, type VersionedWrite } from './versioned-update';
+import { definedOnly, updateIfVersion, type VersionedWrite } from './versioned-update';
 
 /** What every coded master-data row has: id, unique code and an optimistic-lock version. */
 export interface CodedRow {
@@ -41,6 +41,12 @@ export function codedTable<Row extends CodedRow, Plain>(entity: EntitySchema<Row
       const r = repo(db);
       const saved = await r.save(r.create({ ...columns, version: 1, createdAt: now, updatedAt: now } as DeepPartial<Row>));
       return toPlain(await r.findOneByOrFail(where({ id: saved.id })));
+    },
+
+    /** Writes the fields a PATCH body carries (absent ones are `undefined`) if the row is still at `version`. */
+    patchIfVersion(db: EntityManager, id: number, input: { version: number }): Promise<VersionedWrite> {
+      const { version, ...changes } = input;
+      return updateIfVersion(db, entity, id, version, definedOnly(changes));
     },
 
     /** Bumps the version only (a save of the row's own sub-table counts as a change of it). */

@@ -4,7 +4,7 @@ import { MaterialEntity, type MaterialRow } from '../db/entities/material.entity
 import { ScheduledReceiptEntity } from '../db/entities/scheduled-receipt.entity';
 import { codedTable } from '../master-data/coded-table';
 import { pageFrom } from '../master-data/list-query';
-import { definedOnly, updateIfVersion, type VersionedWrite } from '../master-data/versioned-update';
+import type { VersionedWrite } from '../master-data/versioned-update';
 
 export function toMaterial(row: MaterialRow): Material {
   return {
@@ -50,10 +50,7 @@ export const findMaterialByCode = materials.findByCode;
 export const findMaterialsByIds = materials.findByIds;
 export const insertMaterial = (db: EntityManager, input: MaterialCreate): Promise<Material> => materials.insert(db, input);
 
-export async function updateMaterialIfVersion(db: EntityManager, id: number, input: MaterialUpdate): Promise<VersionedWrite> {
-  const { version, ...changes } = input;
-  return updateIfVersion(db, MaterialEntity, id, version, definedOnly(changes));
-}
+export const updateMaterialIfVersion = (db: EntityManager, id: number, input: MaterialUpdate): Promise<VersionedWrite> => materials.patchIfVersion(db, id, input);
 
 export const touchMaterialIfVersion = materials.touchIfVersion;
 export const deleteMaterialRow = materials.deleteRow;

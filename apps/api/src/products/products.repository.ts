@@ -3,7 +3,7 @@ import type { Page, Product, ProductCreate, ProductListQuery, ProductUpdate } fr
 import { ProductEntity, type ProductRow } from '../db/entities/product.entity';
 import { codedTable } from '../master-data/coded-table';
 import { pageFrom } from '../master-data/list-query';
-import { updateIfVersion, definedOnly, type VersionedWrite } from '../master-data/versioned-update';
+import type { VersionedWrite } from '../master-data/versioned-update';
 
 export function toProduct(row: ProductRow): Product {
   return {
@@ -80,10 +80,7 @@ export const findProductByCode = products.findByCode;
 export const findProductsByIds = products.findByIds;
 export const insertProduct = (db: EntityManager, input: ProductCreate): Promise<Product> => products.insert(db, input);
 
-export async function updateProductIfVersion(db: EntityManager, id: number, input: ProductUpdate): Promise<VersionedWrite> {
-  const { version, ...changes } = input;
-  return updateIfVersion(db, ProductEntity, id, version, definedOnly(changes));
-}
+export const updateProductIfVersion = (db: EntityManager, id: number, input: ProductUpdate): Promise<VersionedWrite> => products.patchIfVersion(db, id, input);
 
 /** Bumps the version (a BOM or routing save counts as a change of the product). */
 export const touchProductIfVersion = products.touchIfVersion;
