@@ -17,6 +17,8 @@ describe('load board', () => {
     const binding = screen.getByRole('cell', { name: /^Edge bander, week of 14 Dec 2026: 115 % of available/ });
     expect(binding).toHaveAccessibleName(expect.stringContaining('binding, one more hour is worth 38.1'));
     expect(within(binding).getByText('◆')).toBeInTheDocument();
+    // The key to the symbols describes the board.
+    expect(screen.getByRole('table', { name: 'Load per work center and week' })).toHaveAccessibleDescription(/binding \(every hour used/);
     // A dual of 1e-9 is solver noise, not a binding week; a cell without a value is never binding.
     const saw = screen.getByRole('cell', { name: /^Saw, week of 14 Dec 2026/ });
     expect(saw).not.toHaveAccessibleName(expect.stringContaining('binding'));

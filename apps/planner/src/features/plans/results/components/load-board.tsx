@@ -1,3 +1,4 @@
+import { useId } from 'react';
 import type { Bottleneck, Caution, LoadRow } from '@millrace/contracts';
 import { Caution as CautionNote } from '@/components/ui/caution';
 import { formatHours, formatNumber, formatWeek, formatWeekLong, formatWhole } from '@/lib/format';
@@ -74,18 +75,21 @@ export function LoadBoard({ load, bottlenecks, cautions }: { load: LoadRow[]; bo
   const centers = [...new Map(load.map((r) => [r.workCenter, r.workCenterName])).entries()].sort((a, b) => a[0].localeCompare(b[0]));
   const byKey = new Map(load.map((r) => [key(r.workCenter, r.week), r]));
   const anyOvertime = load.some((r) => r.overtimeHours > 1e-6);
+  const keyId = useId();
 
   return (
     <div className="flex flex-col gap-3">
+      {/* The key sits outside the scroller so it wraps to the page width, not the table's. */}
+      <p id={keyId} className="text-sm text-ink-soft">
+        Load as % of available hours. <span aria-hidden="true">◆</span> binding (every hour used; one more hour would add margin). Hatched cells with “+h
+        OT” plan overtime; <span aria-hidden="true">⚠</span> “over limit” means a crew would pass the plant’s working-time limit.
+      </p>
       <div className="overflow-x-auto">
-        <table className="w-full border-collapse bg-panel text-sm">
-          <caption className="mb-2 text-left text-ink-soft">
-            Load as % of available hours. <span aria-hidden="true">◆</span> binding (every hour used; one more hour would add margin). Hatched cells with
-            “+h OT” plan overtime; <span aria-hidden="true">⚠</span> “over limit” means a crew would pass the plant’s working-time limit.
-          </caption>
+        <table aria-describedby={keyId} className="w-full border-collapse bg-panel text-sm">
+          <caption className="sr-only">Load per work center and week</caption>
           <thead>
             <tr className="bg-race-50">
-              <th scope="col" className="border border-line px-2 py-1.5 text-left">
+              <th scope="col" className="sticky left-0 z-[1] border border-line bg-race-50 px-2 py-1.5 text-left">
                 Work center
               </th>
               {weeks.map(([week, start]) => (
@@ -99,7 +103,7 @@ export function LoadBoard({ load, bottlenecks, cautions }: { load: LoadRow[]; bo
           <tbody>
             {centers.map(([code, name]) => (
               <tr key={code}>
-                <th scope="row" className="border border-line px-2 py-1.5 text-left font-normal">
+                <th scope="row" className="sticky left-0 z-[1] border border-line bg-panel px-2 py-1.5 text-left font-normal">
                   <span className="font-semibold">{code}</span> {name}
                 </th>
                 {weeks.map(([week]) => {
