@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { roles, sheetPlanSchema, shiftSheetsWeekSchema, type PlanLine, type Role, type ShiftSheetsWeek } from '@millrace/contracts';
+import { DEFAULT_SHIFT_SHEET_SETTINGS } from '@millrace/plan-model';
 import { SolverJobRunner } from '../../src/solver-jobs/solver-job-runner';
 import { testPeople } from '../support/seed-people';
 import { FIRST_WEEK, WEEKS, seedSmallPlant, type SmallPlant } from '../support/small-plant';
@@ -165,20 +166,49 @@ describe('the sheets of an approved plan', () => {
     }
   });
 
-  it('when a product has a later routing step, then that step starts after the earlier step has finished, and the sheet names the next work center', () => {
+  it('when a product has a later routing step, then each transfer batch of that step starts after the earlier step has finished it, and the sheet names the next work center', () => {
+    // default transfer batch: a quarter of the week's quantity, whole units (plan-model's documented default)
+    const share = DEFAULT_SHIFT_SHEET_SETTINGS.transferBatchShare;
+    type Job = { quantity: number; start: string; end: string; setupStart: string };
+    // the minute a step has completed `units`, read off its jobs (each runs at a steady rate); sheet times are whole minutes
+    const completedAt = (jobs: Job[], units: number) => {
+      let before = 0;
+      for (const j of [...jobs].sort((a, b) => minutesOf(a.start) - minutesOf(b.start))) {
+        if (j.quantity > 0 && before + j.quantity >= units - 1e-9) return minutesOf(j.start) + ((units - before) / j.quantity) * (minutesOf(j.end) - minutesOf(j.start));
+        before += j.quantity;
+      }
+      return Math.max(...jobs.map((j) => minutesOf(j.end)));
+    };
+    // batch k of the later jobs starts no earlier than the feeding jobs completed their share of it (1 min of rounding)
+    const expectBatches = (feeding: Job[], later: Job[], make: number, scale: number) => {
+      if (feeding.length === 0 || later.length === 0) return;
+      const batch = Math.min(make, Math.max(1, Math.ceil(share * make - 1e-9)));
+      const fed = feeding.reduce((a, j) => a + j.quantity, 0);
+      const ready = (units: number) => completedAt(feeding, Math.min(fed, scale * Math.min(units, make)));
+      let before = 0;
+      const sorted = [...later].sort((a, b) => minutesOf(a.setupStart) - minutesOf(b.setupStart));
+      expect(minutesOf(sorted[0].setupStart)).toBeGreaterThanOrEqual(ready(batch) - 1);
+      for (const j of sorted) {
+        const rate = j.quantity > 0 ? (minutesOf(j.end) - minutesOf(j.start)) / j.quantity : 0;
+        for (let k = 1; (k - 1) * batch < before + j.quantity - 1e-9; k++)
+          if (k * batch > before + 1e-9) expect(minutesOf(j.start) + Math.max(0, (k - 1) * batch - before) * rate).toBeGreaterThanOrEqual(ready(k * batch) - 1);
+        before += j.quantity;
+      }
+    };
     for (const w of weeks) {
       const jobs = w.workCenters.flatMap((c) => c.days.flatMap((d) => d.shifts.flatMap((s) => s.jobs.map((j) => ({ ...j, wc: c.code })))));
+      const makeOf = (product: string) => lines.find((l) => l.product === product && l.weekStart === w.week.start)?.make ?? 0;
       for (const product of ['TBL', 'BEN']) {
         const first = jobs.filter((j) => j.product === product && j.operation === 10);
         const second = jobs.filter((j) => j.product === product && j.operation === 20);
         for (const j of first) expect([j.wc, j.nextWorkCenter, j.nextWorkCenterName]).toEqual(['SAW', 'ASM', 'Assembly bench']);
         for (const j of second) expect([j.wc, j.nextWorkCenter]).toEqual(['ASM', null]);
-        if (first.length && second.length) expect(Math.min(...second.map((j) => minutesOf(j.start)))).toBeGreaterThanOrEqual(Math.max(...first.map((j) => minutesOf(j.end))));
+        expectBatches(first, second, makeOf(product), 1);
       }
-      // the table top (a sub-assembly of the table) is cut before the table's own saw step
+      // the table top (a sub-assembly of the table) is cut batch by batch ahead of the table's own saw step
       const tops = jobs.filter((j) => j.product === 'TOP');
       const tables = jobs.filter((j) => j.product === 'TBL' && j.operation === 10);
-      if (tops.length && tables.length) expect(Math.min(...tables.map((j) => minutesOf(j.start)))).toBeGreaterThanOrEqual(Math.max(...tops.map((j) => minutesOf(j.end))));
+      if (tops.length && tables.length) expectBatches(tops, tables, makeOf('TBL'), tops.reduce((a, j) => a + j.quantity, 0) / makeOf('TBL'));
     }
   });
 
