@@ -1,6 +1,10 @@
 import { z } from 'zod';
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as YYYY-MM-DD.');
+/** A week-start date; an empty field asks for the week instead of naming a format the date picker hides. */
+const isoDate = z
+  .string()
+  .min(1, { message: 'Choose a week.', abort: true })
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as YYYY-MM-DD.');
 const code = z.string().trim().min(1, 'Enter a code.').max(40, 'Use at most 40 characters.');
 
 /** Weeks an override applies to, as ISO week-start dates (inclusive). */
