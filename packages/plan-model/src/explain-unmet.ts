@@ -5,6 +5,14 @@ import { money, qty, weekRanges } from './format';
 import { TOLERANCES } from './tolerances';
 
 /**
+ * A work center is named as a cause only if its bottleneck value is at least this share of the
+ * largest bottleneck value among the work centers on the order's path (5 %). Smaller values are
+ * real but do not explain the shortfall: one more hour there gains next to nothing beside the
+ * main bottleneck. Common practice, no source.
+ */
+export const MIN_BOTTLENECK_SHARE = 0.05;
+
+/**
  * Every firm order not shipped complete in its week, with its causes in words.
  *
  * Backlog is assigned to orders first-in-first-out by due week, ordinary orders first: in the
@@ -14,7 +22,8 @@ import { TOLERANCES } from './tolerances';
  * (multi-level), in the weeks up to the due week: work centers whose capacity binds, materials
  * limited by their supply cap or by lead time, materials scarce beyond their purchase cost. If
  * none binds, the shortfall is economic: delivering on time would cost more than the late
- * penalty it avoids.
+ * penalty it avoids. A work center whose bottleneck value is below MIN_BOTTLENECK_SHARE of the
+ * largest on the path is left out; values carry the plant currency ("72.50 EUR/h").
  */
 export function explainUnmetOrders(
   data: PlanningData,
@@ -102,7 +111,7 @@ function shortageCauses(
   const below = bomDescendants(data.bom, product);
   const made = new Set([product, ...below.products]);
   const wcs = new Set(data.routings.filter((r) => made.has(r.product)).map((r) => r.workCenter));
-  const causes: ShortageCause[] = [];
+  const capacity: ShortageCause[] = [];
   for (const w of data.workCenters) {
     if (!wcs.has(w.code)) continue;
     const binding = (lines.workCenters.get(w.code) ?? []).filter((l) => l.week <= dueWeek && l.binding);
@@ -111,14 +120,18 @@ function shortageCauses(
     const value = Math.max(...binding.map((l) => l.bottleneckValue));
     const atCap = binding.some((l) => l.overtimeCapHours !== null && l.overtimeCapHours > 0 && l.overtimeHours >= l.overtimeCapHours - TOLERANCES.quantity);
     const noOvertime = binding.every((l) => l.overtimeCapHours === 0);
-    causes.push({
+    // a plan never loads a work center beyond its regular time and the overtime it may use, so a
+    // binding row means its hours are all used, not that it is over-loaded
+    capacity.push({
       kind: 'capacity',
       item: w.code,
       weeks,
       value,
-      text: `${w.name} over-loaded ${weekRanges(weeks)} (bottleneck value ${money(value)}/h${atCap ? ', overtime at its cap' : noOvertime ? ', no overtime allowed' : ''})`,
+      text: `${w.name} fully used ${weekRanges(weeks)} (bottleneck value ${money(value)} ${data.plant.currency}/h${atCap ? ', overtime at its cap' : noOvertime ? ', no overtime allowed' : ''})`,
     });
   }
+  const largest = Math.max(0, ...capacity.map((c) => c.value ?? 0));
+  const causes: ShortageCause[] = capacity.filter((c) => (c.value ?? 0) >= MIN_BOTTLENECK_SHARE * largest);
   for (const m of data.materials) {
     if (!below.materials.has(m.code)) continue;
     const ml = (lines.materials.get(m.code) ?? []).filter((l) => l.week <= dueWeek);

@@ -6,6 +6,8 @@ import { mapSolution } from '../src/map-solution';
 import { checkPlan } from '../src/check-plan';
 import { materialCalls } from '../src/material-calls';
 import { diagnoseMustShip } from '../src/must-ship-diagnosis';
+import { explainUnmetOrders, MIN_BOTTLENECK_SHARE } from '../src/explain-unmet';
+import type { ProductWeekLine } from '../src/plan';
 import { sailboatPlant } from './support/sailboat';
 import { solveUnderTest, solverName } from './support/solver';
 
@@ -125,7 +127,26 @@ describe(`model features (solver: ${solverName})`, () => {
     expect(refs).toContain('Q1');
     const q1 = plan.unmetOrders.find((u) => u.orderRef === 'Q1')!;
     expect(q1.causes.map((c) => c.kind)).toContain('capacity');
-    expect(q1.text).toMatch(/^Order Q1: 10 short in week 1 \(complete in week 3\) — Boat yard over-loaded week 1 \(bottleneck value \d+\.\d\d\/h, no overtime allowed\)/);
+    expect(q1.text).toMatch(/^Order Q1: 10 short in week 1 \(complete in week 3\) — Boat yard fully used week 1 \(bottleneck value \d+\.\d\d USD\/h, no overtime allowed\)/);
+  });
+
+  it('an order names only work centers whose bottleneck value is at least 5 % of the largest on its path', () => {
+    // Read-back rule of our own (MIN_BOTTLENECK_SHARE, common practice, no source): the lines are
+    // given by hand so the values are known exactly; the two work centers both make the sailboat.
+    const data = sailboatPlant();
+    data.workCenters.push({ ...data.workCenters[0], code: 'RIG', name: 'Rigging' });
+    data.workCenters.push({ ...data.workCenters[0], code: 'SAIL', name: 'Sail loft' });
+    data.routings.push({ product: 'BOAT', sequence: 20, workCenter: 'RIG', hoursPerUnit: 0.1, setupHours: 0 });
+    data.routings.push({ product: 'BOAT', sequence: 30, workCenter: 'SAIL', hoursPerUnit: 0.1, setupHours: 0 });
+    const wc = (workCenter: string, bottleneckValue: number) => ({
+      workCenter, week: 1, loadHours: 40, availableHours: 40, overtimeHours: 0, overtimeCapHours: 0, loadPct: 100, binding: true, bottleneckValue,
+    });
+    const products = [1, 2, 3, 4].map((week) => ({ product: 'BOAT', week, late: week === 1 ? 10 : 0 })) as unknown as ProductWeekLine[];
+    const [order] = explainUnmetOrders(data, 4, { products, workCenters: [wc('YARD', 72.5), wc('RIG', 0.08), wc('SAIL', 3.625)], materials: [] });
+    // 3.625 is exactly 5 % of 72.50 and stays; 0.08 is about 0.1 % and is left out
+    expect(order.causes.map((c) => c.item)).toEqual(['YARD', 'SAIL']);
+    expect(order.causes[0].text).toBe('Boat yard fully used week 1 (bottleneck value 72.50 USD/h, no overtime allowed)');
+    expect(MIN_BOTTLENECK_SHARE).toBe(0.05);
   });
 
   it('a capacity reserve holds back that share of regular time (Winston §3.10 data with 36 regular boats a quarter)', async () => {
