@@ -65,7 +65,7 @@ export const defaultIpmSettings: Readonly<IpmSettings> = Object.freeze({
   regPrimal: 1e-12,
   regFree: 1e-8,
   regDual: 1e-10,
-  pivotTolerance: 1e-30,
+  pivotTolerance: 1e-12,
   stepToBoundary: 0.9995,
   maxCorrectors: 2,
   denseColumnRatio: 0.3,
