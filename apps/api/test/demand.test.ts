@@ -99,7 +99,7 @@ describe('demand grid and batch save', () => {
       ],
     });
     expect(misaligned.status).toBe(400);
-    expect(misaligned.body.error.fields).toEqual([{ path: 'changes.1.weekStart', message: `${tuesday} is a tuesday; weeks start on monday.` }]);
+    expect(misaligned.body.error.fields).toEqual([{ path: 'changes.1.weekStart', message: `${tuesday} is a Tuesday; weeks start on Monday.` }]);
     expect(await countRows(ctx.dataSource, 'firm_order')).toBe(firmBefore);
     expect(await countRows(ctx.dataSource, 'demand_forecast')).toBe(forecastBefore);
   });

@@ -66,7 +66,7 @@ describe('materials', () => {
     const friday = addDays(thisWeek, 4);
     const misaligned = await planner.put(`/api/materials/${m.id}/receipts`).send({ version: detail.version, receipts: [{ weekStart: friday, qty: 1 }] });
     expect(misaligned.status).toBe(400);
-    expect(misaligned.body.error.fields).toEqual([{ path: 'receipts.0.weekStart', message: `${friday} is a friday; weeks start on monday.` }]);
+    expect(misaligned.body.error.fields).toEqual([{ path: 'receipts.0.weekStart', message: `${friday} is a Friday; weeks start on Monday.` }]);
     const zero = await planner.put(`/api/materials/${m.id}/receipts`).send({ version: detail.version, receipts: [{ weekStart: thisWeek, qty: 0 }] });
     expect(zero.status).toBe(400);
     expect(zero.body.error.fields).toEqual([{ path: 'receipts.0.qty', message: 'A receipt quantity must be more than 0.' }]);

@@ -87,7 +87,7 @@ describe('work centers', () => {
     const wednesday = addDays(thisWeek, 2);
     const bad = await planner.put(`/api/work-centers/${wc.id}/calendar`).send({ version: wc.version, weeks: [{ weekStart: wednesday }] });
     expect(bad.status).toBe(400);
-    expect(bad.body.error.fields).toEqual([{ path: 'weeks.0.weekStart', message: `${wednesday} is a wednesday; weeks start on monday.` }]);
+    expect(bad.body.error.fields).toEqual([{ path: 'weeks.0.weekStart', message: `${wednesday} is a Wednesday; weeks start on Monday.` }]);
     const holidays = await planner.put(`/api/work-centers/${wc.id}/calendar`).send({ version: wc.version, weeks: [{ weekStart: thisWeek, holidayDays: 6 }] });
     expect(holidays.status).toBe(400);
     expect(holidays.body.error.fields).toEqual([{ path: 'weeks.0.holidayDays', message: 'WC-CALBAD works 5 days a week; at most 5 holidays.' }]);

@@ -25,5 +25,10 @@ export async function assertWeekStarts(db: EntityManager, dates: Array<{ path: s
 export function weekStartErrors(weekStart: Weekday, dates: Array<{ path: string; date: string }>): FieldError[] {
   return dates
     .filter((d) => weekdayOf(d.date) !== weekStart)
-    .map((d) => ({ path: d.path, message: `${d.date} is a ${weekdayOf(d.date)}; weeks start on ${weekStart}.` }));
+    .map((d) => ({ path: d.path, message: `${d.date} is a ${dayName(weekdayOf(d.date))}; weeks start on ${dayName(weekStart)}.` }));
+}
+
+/** A weekday as written in a sentence ("monday" → "Monday"). */
+function dayName(day: Weekday): string {
+  return day.charAt(0).toUpperCase() + day.slice(1);
 }

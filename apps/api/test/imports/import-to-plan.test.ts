@@ -81,7 +81,7 @@ describe('from files to a plan', () => {
       ].join('\n');
     const flaggedDemand = await upload(planner, 'demand', demand(true), 'demand.csv');
     expect(flaggedDemand.body.mapping).toEqual({ product: 'Artikel', weekStart: 'Woche', type: 'Typ', orderRef: 'Auftrag', qty: 'Menge', unit: null });
-    expect(errorLines(flaggedDemand.body)).toEqual(['row 2 weekStart: 2027-01-05 is a tuesday; weeks start on monday.']);
+    expect(errorLines(flaggedDemand.body)).toEqual(['row 2 weekStart: 2027-01-05 is a Tuesday; weeks start on Monday.']);
     expect(await apply('demand', demand(false), 'demand.csv')).toEqual({ created: 41, updated: 0, unchanged: 0, removed: 0 });
 
     const created = await planner.post('/api/plans').send({ name: 'From spreadsheets', horizonWeeks: 4, firstWeek: weeks[0], wholeUnits: false });

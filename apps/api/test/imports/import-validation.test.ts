@@ -131,7 +131,7 @@ describe('row checks', () => {
     const { preview } = await check('demand', 'product,week start,type,order reference,quantity\nTABLE-1,2026-03-03,forecast,,5\nTABLE-1,2026-03-02,firm,,5\nTABLE-1,2026-03-02,forecast,SO-3,5\n');
     // 2026-03-03 is a Tuesday; the plant's weeks start on Monday (the settings default).
     expect(errorLines(preview)).toEqual([
-      'row 2 weekStart: 2026-03-03 is a tuesday; weeks start on monday.',
+      'row 2 weekStart: 2026-03-03 is a Tuesday; weeks start on Monday.',
       'row 3 orderRef: A firm order needs its customer order reference.',
       'row 4 orderRef: A forecast has no order reference; leave it empty or make the row firm.',
     ]);
