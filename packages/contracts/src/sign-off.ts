@@ -28,7 +28,8 @@ export const auditEntrySchema = z.object({
   planId: z.number().int(),
   at: z.string(),
   actor: z.object({ id: z.number().int().nullable(), name: z.string(), role: roleSchema.nullable() }),
-  action: z.union([planActionSchema, systemActionSchema, z.literal('create'), z.literal('solve')]),
+  /** 'solve' notes a queued run; 'solved' a finished one (outcome and objective in the comment, with its results hash) */
+  action: z.union([planActionSchema, systemActionSchema, z.literal('create'), z.literal('solve'), z.literal('solved')]),
   fromState: planStateSchema.nullable(),
   toState: planStateSchema,
   comment: z.string().nullable(),

@@ -9,6 +9,8 @@ import { chooseCrossCheckSolver, crossCheckSolverLabel, defaultCrossCheckSetting
 import { SolverThread, type RunningTask } from './solver-thread';
 import { cancelRequested, claimNextJob, enqueueJob, finishJob, requeueJob, writeProgress, type ClaimedJob } from './solve-jobs.repository';
 import { readMps } from '@millrace/lp-core';
+import { appendAudit } from '../sign-off/audit.repository';
+import { solvedAuditComment } from './solved-audit-comment';
 
 export interface SolverJobRunnerSettings {
   /** how often an idle runner looks for queued jobs (ms) */
@@ -141,6 +143,16 @@ export class SolverJobRunner {
       await this.ds.transaction(async (db) => {
         await storeSolveOutcome(db, job.planId, { ...record, crossCheck });
         await finishJob(db, job.id, 'finished', [record.message, `Stages: ${stages}.`].filter(Boolean).join(' '));
+        await appendAudit(db, {
+          planId: job.planId,
+          actor: null,
+          action: 'solved',
+          fromState: plan.state,
+          toState: plan.state,
+          comment: solvedAuditComment(job.id, record.solveStatus, record.objective, plan.currency),
+          inputsHash: plan.inputsHash,
+          resultsHash: record.resultsHash,
+        });
         await db.query('UPDATE solve_job SET elapsed_seconds = ?, iteration = ?, relative_gap = ? WHERE id = ?', [
           (performance.now() - started) / 1000,
           record.certificate?.iterations ?? 0,

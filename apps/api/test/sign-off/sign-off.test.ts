@@ -122,13 +122,18 @@ describe('sign-off rules beyond the table', () => {
     expect(audit.map((e: { action: string; fromState: string | null; toState: string }) => [e.action, e.fromState, e.toState])).toEqual([
       ['create', null, 'draft'],
       ['solve', 'draft', 'draft'],
+      ['solved', 'draft', 'draft'],
       ['submit', 'draft', 'submitted'],
       ['approve', 'submitted', 'approved'],
       ['release', 'approved', 'released'],
     ]);
     for (const e of audit) expect(e.inputsHash).toBe(plan.inputsHash);
     for (const e of audit.slice(2)) expect(e.resultsHash).toBe(plan.resultsHash);
-    expect(audit[2].comment).toBe('Ready');
+    // the finished solve is noted by the system with its outcome and the plan's objective
+    expect(audit[2].actor).toEqual({ id: null, name: 'Millrace', role: null });
+    const objective = new Intl.NumberFormat('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 }).format(plan.objective);
+    expect(audit[2].comment).toBe(`Run ${plan.latestRunId} finished: solved; objective ${objective} ${plan.currency}.`);
+    expect(audit[3].comment).toBe('Ready');
   });
 
   it('when someone tries to change or delete an audit row in the database, then the database refuses', async () => {

@@ -42,6 +42,7 @@ export const crossCheckWords: Record<CrossCheckStatus, { label: string; symbol: 
 export const auditActionWords: Record<AuditEntry['action'], string> = {
   create: 'Created',
   solve: 'Solve started',
+  solved: 'Solved',
   submit: 'Submitted',
   approve: 'Approved',
   return: 'Returned',
