@@ -90,7 +90,11 @@ export function PlanNewPage() {
 /** One plan version: its settings, solve with live progress, outcome, certificate, sign-off, audit trail. */
 export function PlanPage({ planId, role }: { planId: number; role: Role }) {
   const plan = usePlan(planId);
+  const plans = usePlans();
   const solve = useSolvePlan();
+  // the review compares with the version approved last; approved, released and superseded versions all were approved once
+  const baselineKnown = plans.data !== undefined;
+  const anotherApproved = (plans.data ?? []).some((q) => q.id !== planId && (q.state === 'approved' || q.state === 'released' || q.state === 'superseded'));
 
   if (plan.isPending) return <Loading label="Loading the plan version…" />;
   if (plan.isError) return <ErrorState error={plan.error} onRetry={() => void plan.refetch()} />;
@@ -118,10 +122,18 @@ export function PlanPage({ planId, role }: { planId: number; role: Role }) {
                 Open results
               </Link>
             ) : null}
-            {hasResults ? (
+            {hasResults && role === 'supervisor' && p.state === 'submitted' ? (
               <Link className={linkSecondaryClass} to={paths.planReview.getHref(p.id)}>
-                {role === 'supervisor' && p.state === 'submitted' ? 'Review for sign-off' : 'Changes since last approved'}
+                Review for sign-off
               </Link>
+            ) : hasResults && baselineKnown ? (
+              anotherApproved ? (
+                <Link className={linkSecondaryClass} to={paths.planReview.getHref(p.id)}>
+                  Changes since last approved
+                </Link>
+              ) : (
+                <span className="px-3 py-1.5 text-ink-soft">No approved version yet</span>
+              )
             ) : null}
             <Link className={linkSecondaryClass} to={paths.planCompare.getHref(p.id)}>
               Compare
