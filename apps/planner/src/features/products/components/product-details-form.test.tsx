@@ -88,6 +88,7 @@ describe('product editor (master-data form)', () => {
     const api = mockApi({
       'GET /api/me': () => json(people.planner),
       'GET /api/products/7': [() => json(product), () => json(theirs)],
+      'GET /api/settings': () => json({ currency: 'EUR' }),
       'PATCH /api/products/7': [
         () => apiError(409, 'conflict', 'Someone else changed product T-1 since you opened it; reload to see their change.'),
         () => json({ ...theirs, price: 130, version: 6 }),
@@ -95,7 +96,9 @@ describe('product editor (master-data form)', () => {
     });
     renderApp('/products/7');
     const user = userEvent.setup();
-    const price = await screen.findByRole('textbox', { name: 'Price per unit' });
+    // money fields carry the plant currency from the settings (a price is in a currency: common practice, no source)
+    const price = await screen.findByRole('textbox', { name: 'Price per unit (EUR)' });
+    expect(screen.getByRole('textbox', { name: 'Late penalty per unit per week (EUR)' })).toBeInTheDocument();
     await user.clear(price);
     await user.type(price, '130');
     await user.click(screen.getByRole('button', { name: 'Save product' }));
