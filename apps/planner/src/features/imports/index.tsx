@@ -11,6 +11,7 @@ import { useApplyImport } from './api/apply-import';
 import { useImportRuns } from './api/get-import-runs';
 import { usePreviewImport } from './api/preview-import';
 import { useUndoImport } from './api/undo-import';
+import { ImportColumns } from './components/import-columns';
 import { ImportHistory } from './components/import-history';
 import { importKindLabels } from './components/import-kinds';
 import { ImportPreview } from './components/import-preview';
@@ -133,6 +134,8 @@ export function ImportsPage({ canImport }: { canImport: boolean }) {
           </span>
         </div>
       </div>
+
+      <ImportColumns kind={kind} />
 
       <div role="status" aria-live="polite">
         {notice ? (

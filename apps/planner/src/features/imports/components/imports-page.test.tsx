@@ -66,6 +66,23 @@ describe('imports page', () => {
     await waitFor(() => expect(api.sent('GET', '/api/imports').length).toBeGreaterThan(1));
   });
 
+  it('when a kind is chosen, then a collapsible panel lists the headers read for it with the other names accepted', async () => {
+    mockApi({ 'GET /api/me': () => json(people.planner), 'GET /api/imports': () => json([]) });
+    renderApp('/imports?kind=routings');
+    const user = userEvent.setup();
+    const summary = await screen.findByText('Columns we read');
+    const table = screen.getByRole('table', { name: 'Columns read from a routings file', hidden: true });
+    expect(table).not.toBeVisible();
+    await user.click(summary);
+    expect(table).toBeVisible();
+    // run time per unit and setup time are the usual routing columns (common practice, no source)
+    expect(screen.getByRole('row', { name: /hours per unit Required run hours, run time/ })).toBeInTheDocument();
+    expect(screen.getByRole('row', { name: /setup hours Optional setup, setup time/ })).toBeInTheDocument();
+    // another kind lists its own fields, with the allowed values of a choice
+    await user.selectOptions(screen.getByRole('combobox', { name: 'What the file holds' }), 'demand');
+    expect(await screen.findByRole('row', { name: /type Optional .* one of firm, forecast/ })).toBeInTheDocument();
+  });
+
   it('when a supervisor opens imports, then it is not part of their role', async () => {
     mockApi({ 'GET /api/me': () => json(people.supervisor) });
     renderApp('/imports');
