@@ -12,8 +12,7 @@ const summary = ({ certificate, solveMessage, checkViolations, rounding, infeasi
   return rest;
 };
 
-function pageWith(others: ReturnType<typeof planDetail>[]) {
-  const plan = planDetail({ id: 1, state: 'draft' });
+function pageWith(others: ReturnType<typeof planDetail>[], plan = planDetail({ id: 1, state: 'draft' })) {
   mockApi({
     'GET /api/me': () => json(people.planner),
     'GET /api/plans': () => json([plan, ...others].map(summary)),
@@ -35,5 +34,18 @@ describe('plan version page', () => {
     pageWith([planDetail({ id: 2, name: 'Last week', state: 'released' })]);
     expect(await screen.findByRole('link', { name: 'Changes since last approved' }, { timeout: 5000 })).toHaveAttribute('href', '/plans/1/review');
     expect(screen.queryByText('No approved version yet')).toBeNull();
+  });
+
+  it('when whole units are on, then the whole-units margin is the main figure and the LP optimum is named the LP bound', async () => {
+    // the rounded plan's margin sits below the LP relaxation's optimum, which bounds it
+    // (Winston, Operations Research, ch. 9, from memory: the LP relaxation bounds an integer programme)
+    const plan = planDetail({ id: 1, objective: 634_689.9, rounding: { outcome: 'repaired', margin: 633_590.15, lpBound: 634_689.9, gap: 1_099.75, relativeGap: 1_099.75 / 634_689.9 } });
+    pageWith([], plan);
+    const facts = await screen.findByText('Margin, whole units', { selector: 'dt' }, { timeout: 5000 });
+    expect(facts.nextElementSibling).toHaveTextContent('633,590.15 EUR');
+    expect(screen.getByText('LP bound', { selector: 'dt' }).nextElementSibling).toHaveTextContent('634,689.90 EUR');
+    // the whole-units margin comes first
+    const labels = screen.getAllByRole('term').map((t) => t.textContent);
+    expect(labels.indexOf('Margin, whole units')).toBeLessThan(labels.indexOf('LP bound'));
   });
 });

@@ -33,4 +33,24 @@ describe('plan versions list', () => {
     // Supervisors do not create plans.
     expect(screen.queryByRole('link', { name: 'New plan version' })).toBeNull();
   });
+
+  it('when a version was rounded to whole units, then its row shows the whole-units margin first and the LP bound beside it, each named', async () => {
+    // 1,100 LP bound and 1,090 whole-units margin: a rounded plan cannot beat its LP relaxation
+    // (Winston, Operations Research, ch. 9, from memory: the LP relaxation bounds an integer programme).
+    const rounded = planDetail({ id: 4, name: 'Rounded', objective: 1100, rounding: { outcome: 'repaired', margin: 1090, lpBound: 1100, gap: 10, relativeGap: 10 / 1100 } });
+    const fractional = planDetail({ id: 5, name: 'Fractional', wholeUnits: false, objective: 1200 });
+    mockApi({
+      'GET /api/me': () => json(people.planner),
+      'GET /api/plans': () => json([summary(rounded), summary(fractional)]),
+      'GET /api/plans/4': () => json(rounded),
+      'GET /api/plans/5': () => json(fractional),
+    });
+    renderApp('/plans');
+    const table = await screen.findByRole('table', { name: 'Plan versions' }, { timeout: 5000 });
+    const row = await within(table).findByRole('row', { name: /#4 Rounded/ });
+    await within(row).findByText('1,090.00 EUR');
+    expect(row).toHaveTextContent('Margin, whole units; LP bound 1,100.00 EUR');
+    expect(within(table).getByRole('row', { name: /#5 Fractional/ })).toHaveTextContent('1,200.00 EURMargin (LP optimum, fractional units)');
+    expect(within(table).getByRole('columnheader', { name: /^Margin/ })).toBeInTheDocument();
+  });
 });

@@ -1,14 +1,49 @@
 import type { ColumnDef } from '@tanstack/react-table';
 import { Link } from 'react-router-dom';
-import type { CrossCheckStatus, PlanSummary } from '@millrace/contracts';
+import type { CrossCheckStatus, PlanDetail, PlanSummary } from '@millrace/contracts';
 import { planStateSchema } from '@millrace/contracts';
 import { paths } from '@/config/paths';
 import { formatWeek } from '@/lib/format';
+import { marginFigures, marginLabels } from '../margin-words';
 import { crossCheckWords, formatDateTime, formatMoney, planStateWords, solveStatusWords } from '../plan-words';
 import { PlanStateBadge } from './plan-state-badge';
 
-/** A listed plan version with the state of its certificate (read from the version's detail). */
-export type PlanRow = PlanSummary & { certificate: CrossCheckStatus | 'none' | 'loading' | 'unknown' };
+/** A listed plan version with the state of its certificate and its rounding (read from the version's detail). */
+export type PlanRow = PlanSummary & { certificate: CrossCheckStatus | 'none' | 'loading' | 'unknown'; rounding: PlanDetail['rounding'] };
+
+/** The main margin figure of a row: the whole-units margin when known, else the LP optimum. */
+const mainMargin = (row: PlanRow): number | undefined => {
+  const m = marginFigures(row);
+  return m.kind === 'whole_units' ? m.margin : m.kind === 'lp_optimum' ? m.margin : m.kind === 'lp_bound_only' ? m.lpBound : undefined;
+};
+
+function MarginCell({ row }: { row: PlanRow }) {
+  const m = marginFigures(row);
+  const money = (v: number | null) => (v === null ? '—' : formatMoney(v, row.currency));
+  if (m.kind === 'none') return <>—</>;
+  if (m.kind === 'whole_units')
+    return (
+      <>
+        {money(m.margin)}
+        <span className="block text-xs text-ink-soft">
+          {marginLabels.wholeUnits}; {marginLabels.lpBound} {money(m.lpBound)}
+        </span>
+      </>
+    );
+  if (m.kind === 'lp_bound_only')
+    return (
+      <>
+        {money(m.lpBound)}
+        <span className="block text-xs text-ink-soft">{marginLabels.lpBound} (whole-units margin {row.certificate === 'loading' ? 'being read' : 'on the plan page'})</span>
+      </>
+    );
+  return (
+    <>
+      {money(m.margin)}
+      <span className="block text-xs text-ink-soft">{marginLabels.lpOptimum}</span>
+    </>
+  );
+}
 
 const certificateText = (row: PlanRow): string => {
   if (row.certificate === 'none') return row.solveStatus === 'solved' ? 'No certificate' : '—';
@@ -43,11 +78,12 @@ export const plansColumns: ColumnDef<PlanRow, any>[] = [
     cell: ({ row }) => `${row.original.horizonWeeks} weeks from ${formatWeek(row.original.firstWeek)}`,
   },
   {
-    accessorKey: 'objective',
-    header: 'Margin (LP optimum)',
+    id: 'margin',
+    header: 'Margin',
+    accessorFn: mainMargin,
     meta: { numeric: true },
     sortUndefined: 'last',
-    cell: ({ row }) => (row.original.objective === null ? '—' : formatMoney(row.original.objective, row.original.currency)),
+    cell: ({ row }) => <MarginCell row={row.original} />,
   },
   { id: 'certificate', header: 'Certificate', accessorFn: certificateText },
   { id: 'scenario', header: 'Scenario', accessorFn: (p) => p.scenarioName ?? 'Current data' },

@@ -37,7 +37,7 @@ export function SolveOutcome({ plan }: { plan: PlanDetail }) {
       ) : null}
       {plan.rounding ? (
         <p>
-          Whole units: margin {formatMoney(plan.rounding.margin, plan.currency)} against the LP bound {formatMoney(plan.rounding.lpBound, plan.currency)}{' '}
+          Margin, whole units: {formatMoney(plan.rounding.margin, plan.currency)}; LP bound: {formatMoney(plan.rounding.lpBound, plan.currency)}{' '}
           (gap {formatNumber(plan.rounding.gap)}, {formatNumber(plan.rounding.relativeGap * 100)} %)
           {plan.rounding.outcome === 'violations_remain' ? '; the repair pass could not make every row hold.' : '.'}
         </p>

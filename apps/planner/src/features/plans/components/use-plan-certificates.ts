@@ -7,8 +7,8 @@ import type { PlanRow } from './plans-columns';
 const maxDetailsRead = 40;
 
 /**
- * The list answer carries no certificate, so the certificate column reads each solved version's
- * detail (shared with the plan page's cache).
+ * The list answer carries no certificate nor whole-units margin, so the list reads each solved
+ * version's detail (shared with the plan page's cache).
  */
 export function usePlanRows(plans: PlanSummary[]): PlanRow[] {
   const solved = plans.filter((p) => p.solveStatus === 'solved').slice(0, maxDetailsRead);
@@ -16,9 +16,9 @@ export function usePlanRows(plans: PlanSummary[]): PlanRow[] {
   const byId = new Map(solved.map((p, i) => [p.id, details[i]]));
   return plans.map((p) => {
     const d = byId.get(p.id);
-    if (!d) return { ...p, certificate: 'none' };
-    if (d.isPending) return { ...p, certificate: 'loading' };
-    if (d.isError) return { ...p, certificate: 'unknown' };
-    return { ...p, certificate: d.data.certificate?.crossCheck?.status ?? 'none' };
+    if (!d) return { ...p, certificate: 'none', rounding: null };
+    if (d.isPending) return { ...p, certificate: 'loading', rounding: null };
+    if (d.isError) return { ...p, certificate: 'unknown', rounding: null };
+    return { ...p, certificate: d.data.certificate?.crossCheck?.status ?? 'none', rounding: d.data.rounding };
   });
 }
