@@ -26,6 +26,10 @@ const variants: Array<{ label: string; settings: Partial<ShiftSheetSettings> }> 
   { label: 'transfer batches of 1/10 of the quantity', settings: { transferBatchShare: 0.1 } },
   { label: 'one-unit transfer batches', settings: { transferBatchShare: 1e-9 } },
   { label: 'default settings + 60 min transfer lag', settings: { transferLagMinutes: 60 } },
+  { label: 'default batches, earliest start only (base order breaks ties)', settings: { dispatchRule: 'earliest_start' } },
+  { label: 'default batches, most work remaining first', settings: { dispatchRule: 'most_work_remaining' } },
+  { label: 'default batches, most loaded downstream work center first', settings: { dispatchRule: 'bottleneck_first' } },
+  { label: 'batches of 1/10, bottleneck first', settings: { dispatchRule: 'bottleneck_first', transferBatchShare: 0.1 } },
 ];
 
 async function demoPlan(): Promise<{ data: PlanningData; plan: Plan }> {
@@ -59,7 +63,7 @@ async function main(): Promise<void> {
     const result = buildShiftSheets(data, plan, v.settings);
     const perWeek = weeks.map((w) => sum(result.unscheduled.filter((u) => u.week === w).map((u) => u.hours)));
     const total = sum(perWeek);
-    console.log(`\n${v.label} (transferBatchShare ${result.settings.transferBatchShare}, lag ${result.settings.transferLagMinutes} min)`);
+    console.log(`\n${v.label} (transferBatchShare ${result.settings.transferBatchShare}, lag ${result.settings.transferLagMinutes} min, ${result.settings.dispatchRule})`);
     console.log(`  unscheduled: ${total.toFixed(1)} h of ${sum(planned).toFixed(1)} h = ${((100 * total) / sum(planned)).toFixed(1)} %`);
     console.log(`  per week (h): ${perWeek.map((x) => x.toFixed(1)).join(' ')}`);
     const w1 = plannedHours(data, plan, 1);

@@ -43,4 +43,5 @@ export * from './shift-sheets/shift-windows';
 export * from './shift-sheets/week-operations';
 export * from './shift-sheets/plant-clock';
 export * from './shift-sheets/working-time';
+export * from './shift-sheets/dispatch-priority';
 export * from './shift-sheets/build-shift-sheets';

@@ -27,6 +27,9 @@ const cases: [number, PlantSize, boolean, number, Partial<ShiftSheetSettings>][]
   [63, { finished: 8, subassemblies: 4, workCenters: 3, materials: 4, weeks: 2 }, false, 15, { transferBatchShare: 0.3 }],
   [61, { finished: 6, subassemblies: 3, workCenters: 3, materials: 4, weeks: 3 }, true, 30, { transferBatchShare: 1 }],
   [66, { finished: 8, subassemblies: 3, workCenters: 4, materials: 3, weeks: 2 }, true, 0, { transferBatchUnits: { 'P-1': 1, 'P-2': 7, 'S-1': 5 } }],
+  [62, { finished: 10, subassemblies: 4, workCenters: 4, materials: 5, weeks: 3 }, true, 0, { dispatchRule: 'earliest_start' }],
+  [63, { finished: 8, subassemblies: 4, workCenters: 3, materials: 4, weeks: 2 }, false, 15, { dispatchRule: 'bottleneck_first', transferBatchShare: 0.1 }],
+  [66, { finished: 8, subassemblies: 3, workCenters: 4, materials: 3, weeks: 2 }, true, 30, { dispatchRule: 'bottleneck_first' }],
 ];
 
 /** the minute a step has completed `cumulative` units, read off its jobs (each runs at a steady rate) */
@@ -282,6 +285,66 @@ describe('shift sheets: non-delay dispatching', () => {
       ['2027-01-04', ['P2 07:00–15:00']],
       ['2027-01-05', ['P1 07:00–08:00']],
     ]);
+  });
+});
+
+describe('shift sheets: dispatch rules for jobs that could start at the same time', () => {
+  const pattern = { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] };
+  const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
+  const product = (code: string) => ({ code, name: code, unit: 'pcs', kind: 'finished' as const, price: 1, safetyStock: 0, batchMultiple: 1, openingStock: 0, latePenalty: 0 });
+  const week = (routings: PlanningData['routings'], make: Record<string, number>): { data: PlanningData; plan: Plan } => ({
+    data: {
+      plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
+      weeks: [{ index: 1, startDate: '2027-01-04' }],
+      products: Object.keys(make).map(product),
+      bom: [],
+      routings,
+      workCenters: [...new Set(routings.map((r) => r.workCenter))].map(wc),
+      materials: [],
+      // P1 has the earliest firm order: the base order (earliest due date, Jackson 1955) runs it first
+      demand: [{ product: 'P1', week: 1, kind: 'firm', qty: make.P1, orderRef: 'SO-1' }],
+    },
+    plan: { horizonWeeks: 1, outcome: 'optimal', products: Object.entries(make).map(([p, m]) => ({ product: p, week: 1, make: m })), workCenters: [] } as unknown as Plan,
+  });
+  const onA = (r: { data: PlanningData; plan: Plan }, rule: ShiftSheetSettings['dispatchRule']) =>
+    buildShiftSheets(r.data, r.plan, { dispatchRule: rule, transferBatchShare: 1 }).sheets.filter((s) => s.workCenter === 'WC-A').flatMap((s) => s.jobs.map((j) => `${j.product} ${j.start.slice(11)}–${j.end.slice(11)}`));
+
+  // P1 (due first): 2 h on WC-A only; P2: 2 h on WC-A, then 4 h on WC-B. Both can start on WC-A at 07:00.
+  const twoJobs = week(
+    [
+      { product: 'P1', sequence: 10, workCenter: 'WC-A', hoursPerUnit: 1, setupHours: 0 },
+      { product: 'P2', sequence: 10, workCenter: 'WC-A', hoursPerUnit: 1, setupHours: 0 },
+      { product: 'P2', sequence: 20, workCenter: 'WC-B', hoursPerUnit: 2, setupHours: 0 },
+    ],
+    { P1: 2, P2: 2 },
+  );
+  it('most work remaining first: P2 (4 h still ahead on WC-B) runs before P1 (nothing ahead) and the week ends 2 h sooner (Conway, Maxwell & Miller 1967, from memory)', () => {
+    expect(onA(twoJobs, 'most_work_remaining')).toEqual(['P2 07:00–09:00', 'P1 09:00–11:00']);
+    const b = buildShiftSheets(twoJobs.data, twoJobs.plan, { transferBatchShare: 1 }).sheets.filter((s) => s.workCenter === 'WC-B').flatMap((s) => s.jobs);
+    // makespan 2 + 4 = 6 h → 13:00, against 2 + 2 + 4 = 8 h → 15:00 when P1 goes first
+    expect(b.map((j) => `${j.start.slice(11)}–${j.end.slice(11)}`)).toEqual(['09:00–13:00']);
+    expect(DEFAULT_SHIFT_SHEET_SETTINGS.dispatchRule).toBe('most_work_remaining');
+  });
+  it('earliest start alone keeps the base order: P1 (due first) runs first, P2 reaches WC-B at 11:00', () => {
+    expect(onA(twoJobs, 'earliest_start')).toEqual(['P1 07:00–09:00', 'P2 09:00–11:00']);
+  });
+  it('bottleneck first: of two jobs with equal work ahead, the one feeding the more loaded work center runs first (DOMAIN.md §4)', () => {
+    // P1 → WC-B (1 h) and P2 → WC-C (1 h) have equal work remaining; P3 loads WC-B with 30 of its 40 h
+    const r = week(
+      [
+        { product: 'P1', sequence: 10, workCenter: 'WC-A', hoursPerUnit: 1, setupHours: 0 },
+        { product: 'P1', sequence: 20, workCenter: 'WC-C', hoursPerUnit: 1, setupHours: 0 },
+        { product: 'P2', sequence: 10, workCenter: 'WC-A', hoursPerUnit: 1, setupHours: 0 },
+        { product: 'P2', sequence: 20, workCenter: 'WC-B', hoursPerUnit: 1, setupHours: 0 },
+        { product: 'P3', sequence: 10, workCenter: 'WC-B', hoursPerUnit: 1, setupHours: 0 },
+      ],
+      { P1: 1, P2: 1, P3: 30 },
+    );
+    expect(onA(r, 'bottleneck_first')).toEqual(['P2 07:00–08:00', 'P1 08:00–09:00']);
+    expect(onA(r, 'most_work_remaining')).toEqual(['P1 07:00–08:00', 'P2 08:00–09:00']);
+  });
+  it('refuses an unknown dispatch rule, naming the rules it knows', () => {
+    expect(() => buildShiftSheets(twoJobs.data, twoJobs.plan, { dispatchRule: 'shortest_first' as ShiftSheetSettings['dispatchRule'] })).toThrow(/dispatch rule must be one of earliest_start, most_work_remaining, bottleneck_first, got shortest_first/);
   });
 });
 

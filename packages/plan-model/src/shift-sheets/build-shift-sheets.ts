@@ -6,13 +6,16 @@ import { weekOperations, type WeekOperation } from './week-operations';
 import { wallClock, weekdayOf } from './plant-clock';
 import { workingTimeCautions } from './working-time';
 import { componentUsePerUnit } from '../bom-graph';
+import { comparePriority, dispatchPriority, DISPATCH_RULES } from './dispatch-priority';
 
 /**
  * Approved plan → shift sheets: for each work center, day and shift, the jobs in run order with
  * times (issue 8; DOMAIN.md §4). Each week is loaded forward, operation by operation: of the
- * operations whose predecessors are placed, the one that can start earliest (non-delay
- * dispatching), ties in the order of weekOperations (earliest firm due week first, grouped by
- * family and product, sub-assemblies before their parents, routing steps in sequence):
+ * operations whose predecessors are placed, the one that can start earliest fixes the work
+ * center and time (non-delay dispatching); of the operations that could start there then, the
+ * settings' dispatch rule picks (dispatch-priority.ts; default most work remaining after the
+ * operation), remaining ties in the order of weekOperations (earliest firm due week first,
+ * grouped by family and product, sub-assemblies before their parents, routing steps in sequence):
  *
  *  - operations overlap by transfer batches (lot streaming: Trietsch & Baker 1993, Basic
  *    techniques for lot streaming, Operations Research 41(6), from memory; DOMAIN.md §4
@@ -44,6 +47,7 @@ export const DEFAULT_SHIFT_SHEET_SETTINGS: ShiftSheetSettings = {
   transferBatchUnits: {},
   familySetupFactor: 1,
   nightRunDays: 5,
+  dispatchRule: 'most_work_remaining',
 };
 
 export interface ShiftSheetIssue {
@@ -81,6 +85,8 @@ export function buildShiftSheets(data: PlanningData, plan: Plan, options: Partia
     throw new ShiftSheetError(badBatches.map(([product, units]) => ({ item: `product ${product}`, message: `the transfer batch of ${product} must be a positive number of units, got ${units}` })));
   if (!(settings.familySetupFactor >= 0 && settings.familySetupFactor <= 1))
     throw new ShiftSheetError([{ item: 'settings', message: `family setup factor must be between 0 and 1, got ${settings.familySetupFactor}` }]);
+  if (!DISPATCH_RULES.includes(settings.dispatchRule))
+    throw new ShiftSheetError([{ item: 'settings', message: `dispatch rule must be one of ${DISPATCH_RULES.join(', ')}, got ${String(settings.dispatchRule)}` }]);
   if (plan.outcome !== 'optimal') throw new ShiftSheetError([{ item: 'plan', message: `the plan has no production to schedule (outcome ${plan.outcome})` }]);
   const weeks = options.weeks ?? Array.from({ length: plan.horizonWeeks }, (_, i) => i + 1);
 
@@ -140,9 +146,10 @@ function scheduleWeek(
 
   // Non-delay dispatching (Giffler & Thompson 1960; Baker & Trietsch 2009, ch. on dispatching):
   // of the operations whose predecessors are placed — the product's previous routing step, or
-  // for a first step every sub-assembly made this week — place next the one that can start
-  // earliest on its work center; ties go to the priority order of weekOperations. A work center
-  // thus never waits for a late-released job while work that is ready could run.
+  // for a first step every sub-assembly made this week — the one that can start earliest fixes
+  // its work center and time; of all that could start there at that time the dispatch rule
+  // picks, then the priority order of weekOperations. A work center thus never waits for a
+  // late-released job while work that is ready could run.
   const queues = new Map<string, WeekOperation[]>();
   for (const op of ops) queues.set(op.product, [...(queues.get(op.product) ?? []), op]);
   const priority = [...queues.keys()];
@@ -179,14 +186,27 @@ function scheduleWeek(
     const f = feed(op);
     return Math.max(cursor.get(op.workCenter) ?? 0, f.release(Math.min(f.batch, f.quantity)));
   };
+  const rank = dispatchPriority(data, ops, (code) => windowsOf.get(`${code}|${week}`) ?? [], settings.dispatchRule);
   const next = (): WeekOperation | undefined => {
-    let pick: string | undefined;
-    let best = Number.POSITIVE_INFINITY;
+    // the operation that can start earliest fixes the work center and the time; of the
+    // operations that could start on that work center by then (the conflict set), the rule picks
+    let first: { product: string; t: number; wc: string } | undefined;
+    const heads: { product: string; t: number; op: WeekOperation }[] = [];
     for (const product of priority) {
       const head = queues.get(product)![0];
       if (!head || !ready(product)) continue;
       const t = earliestStart(head);
-      if (t < best - EPS) [pick, best] = [product, t];
+      heads.push({ product, t, op: head });
+      if (!first || t < first.t - EPS) first = { product, t, wc: head.workCenter };
+    }
+    let pick = first?.product;
+    if (first) {
+      let best: number[] | undefined;
+      for (const h of heads) {
+        if (h.op.workCenter !== first.wc || h.t > first.t + EPS) continue;
+        const key = rank(h.op);
+        if (best === undefined || comparePriority(key, best) < 0) [pick, best] = [h.product, key];
+      }
     }
     // nothing ready (a cycle among this week's products): fall back to the priority order
     pick ??= priority.find((p) => queues.get(p)!.length > 0);

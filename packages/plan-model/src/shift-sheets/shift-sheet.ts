@@ -1,3 +1,5 @@
+import type { DispatchRule } from './dispatch-priority';
+
 /**
  * Shift sheets: per work center, day and shift, the ordered jobs to run (issue 8). Times are
  * plant-local wall-clock times "YYYY-MM-DDTHH:MM"; `*Minute` fields count minutes from the start
@@ -100,6 +102,8 @@ export interface ShiftSheetSettings {
   familySetupFactor: number;
   /** consecutive night shifts that earn a fatigue caution */
   nightRunDays: number;
+  /** which of the operations able to start at once a work center runs first (dispatch-priority.ts) */
+  dispatchRule: DispatchRule;
 }
 
 export interface ShiftSheetResult {
