@@ -50,7 +50,7 @@ function Comparison({ c }: { c: PlanComparison }) {
   const cur = c.a.currency;
   const money = (v: number) => formatMoney(v, cur);
   const totals: [string, { a: number; b: number; delta: number }, 'up' | 'down', TotalKind][] = [
-    ['Margin', c.margin, 'up', 'money'],
+    [c.a.wholeUnits && c.b.wholeUnits ? 'Margin, whole units' : c.a.wholeUnits || c.b.wholeUnits ? 'Margin (whole units where on)' : 'Margin', c.margin, 'up', 'money'],
     ['Revenue', c.revenue, 'up', 'money'],
     ['Material spend', c.materialSpend, 'down', 'money'],
     ['Overtime hours', c.overtimeHours, 'down', 'hours'],

@@ -73,7 +73,7 @@ export function PlanResultsPage({ planId }: { planId: number }) {
     <>
       {header}
       <div className="flex flex-col gap-4">
-        <ResultsSummary results={r} />
+        <ResultsSummary results={r} wholeUnits={p.wholeUnits} />
         {review.isError ? (
           <p role="note" className="text-sm text-over-700">
             <span aria-hidden="true">⚠ </span>Working-time cautions could not be read ({review.error.message}); check overtime against the plant’s limits by hand.

@@ -3,8 +3,11 @@ import { formatNumber } from '@/lib/format';
 import { formatMoney } from '../../plan-words';
 import { bottleneckSummary } from './bottleneck-summary';
 
-/** The sentence a planner reads first, and the plan's totals. */
-export function ResultsSummary({ results }: { results: PlanResults }) {
+/**
+ * The sentence a planner reads first, and the plan's totals. With whole units on, the margin is
+ * the rounded plan's and the LP optimum is shown beside it as the bound it was measured against.
+ */
+export function ResultsSummary({ results, wholeUnits }: { results: PlanResults; wholeUnits: boolean }) {
   const t = results.totals;
   return (
     <section aria-label="Summary" className="flex flex-col gap-2 rounded border border-race-600 bg-race-50 p-4">
@@ -14,9 +17,15 @@ export function ResultsSummary({ results }: { results: PlanResults }) {
       </p>
       <dl className="mt-1 flex flex-wrap gap-x-6 gap-y-1 text-sm">
         <div>
-          <dt className="inline font-semibold">Margin: </dt>
+          <dt className="inline font-semibold">{wholeUnits ? 'Margin, whole units' : 'Margin'}: </dt>
           <dd className="inline tabular-nums">{formatMoney(t.margin, results.currency)}</dd>
         </div>
+        {wholeUnits ? (
+          <div>
+            <dt className="inline font-semibold">LP bound: </dt>
+            <dd className="inline tabular-nums">{formatMoney(results.objective, results.currency)}</dd>
+          </div>
+        ) : null}
         <div>
           <dt className="inline font-semibold">Overtime: </dt>
           <dd className="inline tabular-nums">
