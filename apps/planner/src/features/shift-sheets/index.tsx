@@ -14,7 +14,7 @@ import { CrewCautions } from './components/crew-cautions';
 import { SheetChoices } from './components/sheet-choices';
 import { ShiftJobList } from './components/shift-job-list';
 import { WeekTimeline } from './components/week-timeline';
-import { formatMinutes, formatQuantity, formatStamp, sheetPlanStateWords } from './sheet-words';
+import { formatMinutes, formatQuantityUnit, formatStamp, sheetPlanStateWords } from './sheet-words';
 
 const parseId = (raw: string | null): number | null => (raw && /^\d+$/.test(raw) && Number(raw) > 0 ? Number(raw) : null);
 
@@ -148,7 +148,7 @@ export function ShiftSheetsPage({ role }: { role: Role }) {
               <ul className="list-disc pl-5">
                 {data.unscheduled.map((u) => (
                   <li key={`${u.workCenter}-${u.product}-${u.operation}`}>
-                    {u.workCenter}: {u.product} operation {u.operation}, {formatQuantity(u.quantity)} units ({formatMinutes(u.hours * 60)}) — {u.reason}. Talk to the planner.
+                    {u.workCenter}: {u.product} operation {u.operation}, {formatQuantityUnit(u.quantity, 'units')} ({formatMinutes(u.hours * 60)}) — {u.reason}. Talk to the planner.
                   </li>
                 ))}
               </ul>

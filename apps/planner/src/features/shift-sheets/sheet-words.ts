@@ -15,6 +15,21 @@ export function formatMinutes(minutes: number): string {
 const quantityFormat = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 2 });
 export const formatQuantity = (q: number): string => quantityFormat.format(q);
 
+/** units spelt as words change with the number; symbols and abbreviations (pcs, kg, m) do not */
+const unitWords: Record<string, string> = { unit: 'units', units: 'units', piece: 'pieces', pieces: 'pieces', set: 'sets', sets: 'sets', box: 'boxes', boxes: 'boxes', pair: 'pairs', pairs: 'pairs' };
+/** Quantity and unit as read aloud: "1 unit", "2 units", "1.5 units", "1 pcs" (pcs unchanged). */
+export function formatQuantityUnit(q: number, unit: string): string {
+  const number = formatQuantity(q);
+  const plural = unitWords[unit.toLowerCase()];
+  if (plural === undefined) return unit === '' ? number : `${number} ${unit}`;
+  const singular = Object.keys(unitWords).find((w) => unitWords[w] === plural && w !== plural)!;
+  return `${number} ${number === '1' ? singular : plural}`;
+}
+
+const weekOfFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
+/** A week by its first day, short enough for one line of a printed column: "2026-11-30" → "wk of 30 Nov". */
+export const formatWeekOf = (isoDate: string): string => `wk of ${weekOfFormat.format(new Date(`${isoDate}T00:00:00Z`))}`;
+
 const dayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 const shortDayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
 /** "2027-01-04" → "Monday 4 January 2027" */

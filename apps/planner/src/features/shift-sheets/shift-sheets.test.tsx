@@ -112,6 +112,9 @@ describe('shift sheets for the floor', () => {
     expect(first).toHaveTextContent('Sam Supervisor');
     expect(within(first).getByRole('img', { name: 'Done: job 1' })).toBeInTheDocument();
     expect(within(first).getByRole('columnheader', { name: 'Initials' })).toBeInTheDocument();
+    // the due week stays on one line of its narrow column, in a short form
+    const due = within(first).getByText('due wk of 4 Jan');
+    expect(due).toHaveClass('whitespace-nowrap');
     const second = screen.getByRole('region', { name: 'Sheet 2 of 2: W1, 2027-01-05, shift 1' });
     expect(second).toHaveTextContent('OVERTIME');
     expect(second).toHaveTextContent('the crew is planned for 52.0 h');

@@ -1,5 +1,5 @@
 import type { SheetJob, SheetWorkCenter, ShiftSheet } from '@millrace/contracts';
-import { clockOf, formatDay, formatMinutes, formatQuantity, shiftLabel } from '../sheet-words';
+import { clockOf, formatDay, formatMinutes, formatQuantityUnit, formatWeekOf, shiftLabel } from '../sheet-words';
 
 /** Notes of a job in words: overtime, continuation, orders and due week. */
 export function jobNotes(j: SheetJob): string[] {
@@ -7,7 +7,7 @@ export function jobNotes(j: SheetJob): string[] {
   if (j.overtime) notes.push('Overtime');
   if (j.continued) notes.push('Continued from the previous shift');
   if (j.orderRefs.length > 0) notes.push(`Orders ${j.orderRefs.join(', ')}`);
-  if (j.dueWeek) notes.push(`Due week of ${j.dueWeek}`);
+  if (j.dueWeek) notes.push(`Due ${formatWeekOf(j.dueWeek)}`);
   return notes;
 }
 
@@ -43,12 +43,12 @@ function ShiftTable({ sheet }: { sheet: ShiftSheet }) {
               <td className="px-2 py-1">
                 <span className="font-semibold">{j.product}</span> {j.productName}
                 {j.materials.length > 0 ? (
-                  <span className="block text-xs text-ink-soft">Issue: {j.materials.map((m) => `${formatQuantity(m.quantity)} ${m.unit} ${m.item}`).join(', ')}</span>
+                  <span className="block text-xs text-ink-soft">Issue: {j.materials.map((m) => `${formatQuantityUnit(m.quantity, m.unit)} ${m.item}`).join(', ')}</span>
                 ) : null}
               </td>
               <td className="px-2 py-1 tabular-nums">{j.operation}</td>
               <td className="px-2 py-1 text-right tabular-nums">
-                {formatQuantity(j.quantity)} {j.unit}
+                {formatQuantityUnit(j.quantity, j.unit)}
               </td>
               <td className="px-2 py-1">{j.setupMinutes > 0 ? `${formatMinutes(j.setupMinutes)} from ${clockOf(j.setupStart)}` : '—'}</td>
               <td className="px-2 py-1 tabular-nums">{clockOf(j.start)}</td>

@@ -1,7 +1,7 @@
 import type { CSSProperties } from 'react';
 import type { ShiftSheetsWeek } from '@millrace/contracts';
 import { addDays } from '@millrace/contracts';
-import { formatMinutes, formatQuantity, formatShortDay } from '../sheet-words';
+import { formatMinutes, formatQuantity, formatQuantityUnit, formatShortDay } from '../sheet-words';
 
 /** Open time closer than this joins one stretch of the axis (minutes; common practice, no source). */
 const joinGapMinutes = 60;
@@ -123,7 +123,7 @@ export function WeekTimeline({ week, highlight }: { week: ShiftSheetsWeek; highl
                     const at = place(j.setupStartMinute, j.endMinute);
                     if (!at) return null;
                     const setupShare = j.endMinute > j.setupStartMinute ? ((j.startMinute - j.setupStartMinute) / (j.endMinute - j.setupStartMinute)) * 100 : 0;
-                    const title = `${j.product} ${j.productName}, operation ${j.operation}: ${formatQuantity(j.quantity)} ${j.unit}, ${j.setupStart.slice(11)}–${j.end.slice(11)}${j.setupMinutes > 0 ? `, setup ${formatMinutes(j.setupMinutes)}` : ''}${j.overtime ? ', runs into overtime' : ''}`;
+                    const title = `${j.product} ${j.productName}, operation ${j.operation}: ${formatQuantityUnit(j.quantity, j.unit)}, ${j.setupStart.slice(11)}–${j.end.slice(11)}${j.setupMinutes > 0 ? `, setup ${formatMinutes(j.setupMinutes)}` : ''}${j.overtime ? ', runs into overtime' : ''}`;
                     return (
                       <span
                         key={`${j.product}-${j.operation}-${j.startMinute}`}

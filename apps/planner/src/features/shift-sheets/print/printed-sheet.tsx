@@ -1,5 +1,5 @@
 import type { CrewCaution, ShiftSheet, ShiftSheetsWeek } from '@millrace/contracts';
-import { clockOf, formatDay, formatMinutes, formatQuantity, formatStamp } from '../sheet-words';
+import { clockOf, formatDay, formatMinutes, formatQuantityUnit, formatStamp, formatWeekOf } from '../sheet-words';
 
 const cell = 'border border-black px-1 py-0.5 align-top';
 const blank = `${cell} h-9`;
@@ -101,18 +101,18 @@ export function PrintedSheet({
                 <span className="font-semibold">{j.product}</span> {j.productName}
                 {j.overtime ? <span className="ml-1 border border-black px-0.5 font-semibold">OVERTIME</span> : null}
                 {j.continued ? <span className="ml-1 italic">(continued)</span> : null}
-                {j.materials.length > 0 ? <span className="block">Issue: {j.materials.map((m) => `${formatQuantity(m.quantity)} ${m.unit} ${m.item}`).join('; ')}</span> : null}
+                {j.materials.length > 0 ? <span className="block">Issue: {j.materials.map((m) => `${formatQuantityUnit(m.quantity, m.unit)} ${m.item}`).join('; ')}</span> : null}
               </td>
               <td className={cell}>{j.operation}</td>
               <td className={`${cell} text-right font-semibold`}>
-                {formatQuantity(j.quantity)} {j.unit}
+                {formatQuantityUnit(j.quantity, j.unit)}
               </td>
               <td className={cell}>{j.setupMinutes > 0 ? `${formatMinutes(j.setupMinutes)} from ${clockOf(j.setupStart)}` : 'none'}</td>
               <td className={cell}>{clockOf(j.start)}</td>
               <td className={cell}>{clockOf(j.end)}</td>
               <td className={cell}>
                 {j.nextWorkCenter ? `→ ${j.nextWorkCenter}` : 'finished goods'}
-                {j.dueWeek ? <span className="block">due wk {j.dueWeek}</span> : null}
+                {j.dueWeek ? <span className="block whitespace-nowrap">due {formatWeekOf(j.dueWeek)}</span> : null}
                 {j.orderRefs.length > 0 ? <span className="block">{j.orderRefs.join(', ')}</span> : null}
               </td>
               <td className={cell}>

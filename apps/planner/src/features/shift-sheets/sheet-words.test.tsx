@@ -1,0 +1,25 @@
+import { describe, expect, it } from 'vitest';
+import { formatQuantityUnit, formatWeekOf } from './sheet-words';
+
+describe('sheet words', () => {
+  // English number agreement: a unit spelt as a word is singular for exactly one and plural
+  // otherwise (decimals included); abbreviations and symbols never take a plural (common practice, no source)
+  it('says "1 unit" and "2 units", "1.5 units", "0 units"; leaves "pcs", "kg" and "m2" as they are', () => {
+    expect(formatQuantityUnit(1, 'units')).toBe('1 unit');
+    expect(formatQuantityUnit(1, 'unit')).toBe('1 unit');
+    expect(formatQuantityUnit(2, 'unit')).toBe('2 units');
+    expect(formatQuantityUnit(1.5, 'units')).toBe('1.5 units');
+    expect(formatQuantityUnit(0, 'units')).toBe('0 units');
+    expect(formatQuantityUnit(1, 'sets')).toBe('1 set');
+    expect(formatQuantityUnit(1, 'boxes')).toBe('1 box');
+    expect(formatQuantityUnit(1, 'pcs')).toBe('1 pcs');
+    expect(formatQuantityUnit(3, 'pcs')).toBe('3 pcs');
+    expect(formatQuantityUnit(1, 'kg')).toBe('1 kg');
+    expect(formatQuantityUnit(12.25, 'm2')).toBe('12.25 m2');
+    expect(formatQuantityUnit(4, '')).toBe('4');
+  });
+  it('names a week by its first day in a few characters: 2026-11-30 is "wk of 30 Nov" (calendar fact)', () => {
+    expect(formatWeekOf('2026-11-30')).toBe('wk of 30 Nov');
+    expect(formatWeekOf('2027-01-04')).toBe('wk of 4 Jan');
+  });
+});
