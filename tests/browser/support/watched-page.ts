@@ -48,6 +48,8 @@ export class WatchedPage {
     page.on('requestfailed', (req) => {
       // A file the browser saves as a download ends its navigation request as aborted.
       if (req.failure()?.errorText === 'net::ERR_ABORTED' && /\.(mps|csv|pdf)$/.test(new URL(req.url()).pathname)) return;
+      // A read the app itself cancels (TanStack Query aborts a query whose page was left) is not a failure.
+      if (req.failure()?.errorText === 'net::ERR_ABORTED' && req.method() === 'GET' && req.resourceType() === 'fetch') return;
       w.problems.push(`request failed: ${req.method()} ${req.url()} ${req.failure()?.errorText ?? ''}`);
     });
     page.on('response', (res) => {
