@@ -1,5 +1,5 @@
 /**
- * The log-barrier method (Boyd & Vandenberghe, Convex Optimization, ch. 11) on problems with known
+ * The log-barrier method (Fiacco & McCormick 1968, from memory) on problems with known
  * answers, and against HiGHS (npm `highs`) on seeded random QPs and LPs.
  */
 import { describe, expect, it } from 'vitest';

@@ -1,5 +1,5 @@
 /**
- * The problem in the form the barrier method works on (Boyd & Vandenberghe §11.1):
+ * The problem in the form the barrier method works on (standard barrier form; Fiacco & McCormick 1968, from memory):
  *
  *   minimise    f₀(x) = ½ xᵀPx + qᵀx
  *   subject to  G x ≤ h      (one row per finite row or column bound, strict inside)
@@ -292,7 +292,7 @@ function rowsOf(problem: Problem, variableOf: Int32Array, fixedValue: Float64Arr
 }
 
 /**
- * Phase I form (Boyd & Vandenberghe §11.4.1): variables (x, s),
+ * Phase I form (the usual 'minimise the largest violation' start; Nocedal & Wright, Numerical Optimization, from memory): variables (x, s),
  *   minimise s  subject to  G x − s ≤ h,  −s ≤ 1,  E x = d.
  * Any (x, s) with s > max(Gx − h) and s > −1 is strictly feasible for it. The floor s ≥ −1 keeps the
  * phase I problem bounded, so its central points exist and lie well inside when s < 0.

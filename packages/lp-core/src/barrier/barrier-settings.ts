@@ -1,6 +1,7 @@
 /**
- * Settings of the log-barrier method (Boyd & Vandenberghe, Convex Optimization, 2004, §11.3
- * barrier method, §9.3 backtracking line search, §9.5/§10.2 Newton's method), with defaults in the
+ * Settings of the log-barrier method (Fiacco & McCormick, Nonlinear
+ * Programming: Sequential Unconstrained Minimization Techniques, 1968, for the barrier method; Nocedal &
+ * Wright, Numerical Optimization, 2nd ed., 2006, for backtracking line search and Newton's method — from memory), with defaults in the
  * ranges that book recommends. Validated once, before any iteration.
  */
 import type { IterationInfo } from '../solution/result';
@@ -31,8 +32,8 @@ export interface BarrierSettings {
   maxNewtonSteps: number;
   /**
    * Columns without a finite lower (upper) bound get an artificial one at ∓R, R = boxRadius ·
-   * max(1, largest finite bound); this keeps every centering problem bounded (Boyd & Vandenberghe
-   * assume bounded sublevel sets). An artificial bound that carries a significant multiplier at the end means unbounded. Default 1e3.
+   * max(1, largest finite bound); this keeps every centering problem bounded (the barrier method's
+   * convergence assumes bounded sublevel sets). An artificial bound that carries a significant multiplier at the end means unbounded. Default 1e3.
    */
   boxRadius: number;
   /** wall-clock limit in seconds, default Infinity */

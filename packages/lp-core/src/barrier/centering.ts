@@ -1,5 +1,5 @@
 /**
- * Centering: Newton's method with equality constraints (Boyd & Vandenberghe, Alg. 10.1) on
+ * Centering: Newton's method with equality constraints (feasible-start Newton with a KKT solve per step; Nocedal & Wright, Numerical Optimization, from memory) on
  *
  *   φ_t(x) = t f₀(x) − Σ_k log s_k,   s = h − G x > 0,   subject to E x = d.
  *

@@ -1,5 +1,5 @@
 /**
- * Phase I (Boyd & Vandenberghe §11.4.1): a strictly feasible start for the barrier method, or a
+ * Phase I (minimise the largest constraint violation; Fiacco & McCormick 1968, from memory): a strictly feasible start for the barrier method, or a
  * proof that none exists.
  *
  * 1. Project a reference point (inside the column bounds where they allow) onto E x = d by least

@@ -1,5 +1,5 @@
 /**
- * The log-barrier method for LPs and convex QPs (Boyd & Vandenberghe, Convex Optimization, Alg. 11.1),
+ * The log-barrier method for LPs and convex QPs (sequential unconstrained minimisation, Fiacco & McCormick 1968, from memory),
  * an independent second solver used to cross-check the interior-point solver:
  *
  *   phase I → strictly feasible x
