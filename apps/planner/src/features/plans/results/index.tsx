@@ -1,16 +1,14 @@
-import { Link } from 'react-router-dom';
 import { DataTable } from '@/components/ui/table/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { Loading } from '@/components/ui/loading';
-import { PageHeader } from '@/components/ui/page-header';
 import { Tabs } from '@/components/ui/tabs';
 import { paths } from '@/config/paths';
 import { usePlan } from '../api/get-plan';
 import { usePlanResults } from '../api/get-plan-results';
 import { usePlanReview } from '../api/get-plan-review';
 import { CertificatePanel } from '../components/certificate-panel';
-import { PlanStateBadge } from '../components/plan-state-badge';
+import { PlanSubPageHeader } from '../components/plan-sub-page-header';
 import { solveStatusWords } from '../plan-words';
 import { BottleneckChart } from './components/bottleneck-chart';
 import { Downloads } from './components/downloads';
@@ -38,19 +36,13 @@ export function PlanResultsPage({ planId }: { planId: number }) {
   if (plan.isError) return <ErrorState error={plan.error} onRetry={() => void plan.refetch()} />;
   const p = plan.data;
   const header = (
-    <PageHeader
-      title={`Results of #${p.id} ${p.name}`}
-      description={
-        <span className="flex items-center gap-3">
-          <PlanStateBadge state={p.state} />
-          <Link className="text-race-700 underline" to={paths.plan.getHref(p.id)}>
-            Back to the plan version
-          </Link>
-          <Link className="text-race-700 underline" to={paths.planCompare.getHref(p.id)}>
-            Compare with another version
-          </Link>
-        </span>
-      }
+    <PlanSubPageHeader
+      title="Results of"
+      plan={p}
+      links={[
+        { to: paths.plan.getHref(p.id), label: 'Back to the plan version' },
+        { to: paths.planCompare.getHref(p.id), label: 'Compare with another version' },
+      ]}
       actions={solved ? <Downloads planId={p.id} /> : undefined}
     />
   );

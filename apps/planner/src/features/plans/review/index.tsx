@@ -4,14 +4,13 @@ import { Caution } from '@/components/ui/caution';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { Loading } from '@/components/ui/loading';
-import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/config/paths';
 import { formatNumber, formatWeek } from '@/lib/format';
 import { usePlan } from '../api/get-plan';
 import { usePlanReview } from '../api/get-plan-review';
 import { CertificatePanel } from '../components/certificate-panel';
 import { Delta } from '../components/delta';
-import { PlanStateBadge } from '../components/plan-state-badge';
+import { PlanSubPageHeader } from '../components/plan-sub-page-header';
 import { SignOffActions } from '../components/sign-off-actions';
 import { formatMoney, solveStatusWords } from '../plan-words';
 
@@ -125,21 +124,13 @@ export function PlanReviewPage({ planId, role }: { planId: number; role: Role })
   if (plan.isError) return <ErrorState error={plan.error} onRetry={() => void plan.refetch()} />;
   const p = plan.data;
   const header = (
-    <PageHeader
-      title={`Review of #${p.id} ${p.name}`}
-      description={
-        <span className="flex items-center gap-3">
-          <PlanStateBadge state={p.state} />
-          <Link className="text-race-700 underline" to={paths.plan.getHref(p.id)}>
-            Plan version and audit trail
-          </Link>
-          {solved ? (
-            <Link className="text-race-700 underline" to={paths.planResults.getHref(p.id)}>
-              Full results
-            </Link>
-          ) : null}
-        </span>
-      }
+    <PlanSubPageHeader
+      title="Review of"
+      plan={p}
+      links={[
+        { to: paths.plan.getHref(p.id), label: 'Plan version and audit trail' },
+        ...(solved ? [{ to: paths.planResults.getHref(p.id), label: 'Full results' }] : []),
+      ]}
     />
   );
   if (!solved) {
