@@ -35,6 +35,19 @@ function Picker({ label, value, onChange, options }: { label: string; value: num
 
 const cell = 'border border-line px-2 py-1.5';
 
+/** The A figure, the B figure and the signed change from A to B, as three cells of a row. */
+function AbCells({ a, b, better }: { a: number; b: number; better?: 'up' | 'down' }) {
+  return (
+    <>
+      <td className={`${cell} text-right tabular-nums`}>{formatNumber(a)}</td>
+      <td className={`${cell} text-right tabular-nums`}>{formatNumber(b)}</td>
+      <td className={`${cell} text-right`}>
+        <Delta value={b - a} better={better} />
+      </td>
+    </>
+  );
+}
+
 /** Hours to one decimal, as on the load board and the shift sheets. */
 const hoursFormat = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 1 });
 const hours = (v: number) => hoursFormat.format(v);
@@ -166,11 +179,7 @@ function Comparison({ c }: { c: PlanComparison }) {
                     </th>
                     <td className={cell}>{o.product}</td>
                     <td className={`${cell} text-right tabular-nums`}>{o.week}</td>
-                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(o.shortA)}</td>
-                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(o.shortB)}</td>
-                    <td className={`${cell} text-right`}>
-                      <Delta value={o.shortB - o.shortA} better="down" />
-                    </td>
+                    <AbCells a={o.shortA} b={o.shortB} better="down" />
                   </tr>
                 ))}
               </tbody>
@@ -204,21 +213,9 @@ function Comparison({ c }: { c: PlanComparison }) {
                       {q.product}
                     </th>
                     <td className={`${cell} text-right tabular-nums`}>{q.week}</td>
-                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.makeA)}</td>
-                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.makeB)}</td>
-                    <td className={`${cell} text-right`}>
-                      <Delta value={q.makeB - q.makeA} />
-                    </td>
-                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.shipA)}</td>
-                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.shipB)}</td>
-                    <td className={`${cell} text-right`}>
-                      <Delta value={q.shipB - q.shipA} better="up" />
-                    </td>
-                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.lateA)}</td>
-                    <td className={`${cell} text-right tabular-nums`}>{formatNumber(q.lateB)}</td>
-                    <td className={`${cell} text-right`}>
-                      <Delta value={q.lateB - q.lateA} better="down" />
-                    </td>
+                    <AbCells a={q.makeA} b={q.makeB} />
+                    <AbCells a={q.shipA} b={q.shipB} better="up" />
+                    <AbCells a={q.lateA} b={q.lateB} better="down" />
                   </tr>
                 ))}
               </tbody>
