@@ -52,8 +52,11 @@ mr_db_init() {
   mkdir -p "$data"
   chmod 700 "$data"
   echo "[millrace] initialising a new MariaDB data directory in ${data#"$MR_REPO"/}"
+  # A private tmpdir: two instances set up at once (product and tests) must not share /tmp's
+  # temporary table names.
+  mkdir -p "$(dirname "$data")/tmp"
   if ! out="$(mariadb-install-db --no-defaults --user="$(id -un)" --datadir="$data" \
-    --auth-root-authentication-method=normal --skip-test-db 2>&1)"; then
+    --tmpdir="$(dirname "$data")/tmp" --auth-root-authentication-method=normal --skip-test-db 2>&1)"; then
     printf '%s\n' "$out" >&2
     echo "[millrace] error: mariadb-install-db failed for $data" >&2
     return 1
@@ -77,7 +80,8 @@ mr_db_start() {
   fi
   mkdir -p "$(dirname "$pidfile")"
   rm -f "$sock" "$run/mysqld.pid"
-  "$mariadbd" --no-defaults --user="$(id -un)" --datadir="$data" --socket="$sock" \
+  mkdir -p "$base/tmp"
+  "$mariadbd" --no-defaults --user="$(id -un)" --datadir="$data" --socket="$sock" --tmpdir="$base/tmp" \
     --pid-file="$run/mysqld.pid" --log-error="$run/mysqld.err" \
     --port="$port" --bind-address=127.0.0.1 --skip-name-resolve \
     --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
