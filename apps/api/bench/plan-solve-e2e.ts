@@ -7,9 +7,13 @@
  *   DB_HOST=127.0.0.1 DB_PORT=3418 DB_USER=… DB_PASSWORD=… DB_NAME=millrace_bench \
  *     node --import tsx apps/api/bench/plan-solve-e2e.ts [demo,200x26,1000x26]
  *
+ * With SAVE_MPS=DIR set, each measured case's model.mps is saved there (for lp-core's CLI and bench).
+ *
  * Each case gets its own throw-away database (DB_NAME plus a random suffix). Generated plants
  * are invented: N finished products on 2 routing steps over N/10 work centers, 1–2 materials each.
  */
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
@@ -102,6 +106,16 @@ async function runCase(c: Case): Promise<void> {
       const t2 = performance.now();
       if (round === 'warm-up') continue;
       const plan = (await agent.get(`/api/plans/${created.body.id}`)).body;
+      if (process.env.SAVE_MPS) {
+        const mps = await agent.get(`/api/plans/${created.body.id}/model.mps`).buffer(true).parse((res, cb) => {
+          let text = '';
+          res.on('data', (chunk: Buffer) => (text += chunk.toString('utf8')));
+          res.on('end', () => cb(null, text));
+        });
+        const file = join(process.env.SAVE_MPS, `${c.label.replace(/[^a-z0-9]+/gi, '-')}.mps`);
+        writeFileSync(file, mps.body as string);
+        console.log(`saved ${file}`);
+      }
       const size = plan.modelSize;
       console.log(
         [

@@ -280,22 +280,51 @@ export class SupernodalLdl {
     return { status: 'factorised', column: -1, replacedPivots: replaced };
   }
 
-  /** x ← (L D Lᵀ)⁻¹ x in the permuted numbering */
+  /**
+   * x ← (L D Lᵀ)⁻¹ x in the permuted numbering. Each supernode's rows start with its own
+   * columns f..l (contiguous in x), so the diagonal block is solved in place and the rows below
+   * are handled as one dense matrix–vector product into tmp, scattered (forward) or gathered
+   * (backward) once per row instead of once per column.
+   */
   solve(x: Float64Array): void {
     const { count, super: sup, rowPtr, rows, blockPtr } = this.sym;
-    const { Lx, D } = this;
+    const { Lx, D, tmp } = this;
     for (let s = 0; s < count; s++) {
       const f = sup[s];
       const ws = sup[s + 1] - f;
       const r0 = rowPtr[s];
       const nrs = rowPtr[s + 1] - r0;
       const off = blockPtr[s];
+      // diagonal block: unit lower triangular, in place
       for (let k = 0; k < ws; k++) {
         const xj = x[f + k];
         if (xj === 0) continue;
         const kb = off + k * nrs;
-        for (let r = k + 1; r < nrs; r++) x[rows[r0 + r]] -= Lx[kb + r] * xj;
+        for (let r = k + 1; r < ws; r++) x[f + r] -= Lx[kb + r] * xj;
       }
+      if (nrs === ws) continue;
+      // rows below: tmp = L_below · x_s, then scatter
+      tmp.fill(0, ws, nrs);
+      let k = 0;
+      for (; k + 3 < ws; k += 4) {
+        const x0 = x[f + k];
+        const x1 = x[f + k + 1];
+        const x2 = x[f + k + 2];
+        const x3 = x[f + k + 3];
+        if (x0 === 0 && x1 === 0 && x2 === 0 && x3 === 0) continue;
+        const b0 = off + k * nrs;
+        const b1 = b0 + nrs;
+        const b2 = b1 + nrs;
+        const b3 = b2 + nrs;
+        for (let r = ws; r < nrs; r++) tmp[r] += Lx[b0 + r] * x0 + Lx[b1 + r] * x1 + Lx[b2 + r] * x2 + Lx[b3 + r] * x3;
+      }
+      for (; k < ws; k++) {
+        const x0 = x[f + k];
+        if (x0 === 0) continue;
+        const b0 = off + k * nrs;
+        for (let r = ws; r < nrs; r++) tmp[r] += Lx[b0 + r] * x0;
+      }
+      for (let r = ws; r < nrs; r++) x[rows[r0 + r]] -= tmp[r];
     }
     for (let j = 0; j < x.length; j++) x[j] /= D[j];
     for (let s = count - 1; s >= 0; s--) {
@@ -304,10 +333,21 @@ export class SupernodalLdl {
       const r0 = rowPtr[s];
       const nrs = rowPtr[s + 1] - r0;
       const off = blockPtr[s];
+      if (nrs > ws) {
+        // rows below: gather once, then one dot product per column
+        for (let r = ws; r < nrs; r++) tmp[r] = x[rows[r0 + r]];
+        for (let k = 0; k < ws; k++) {
+          const kb = off + k * nrs;
+          let t = 0;
+          for (let r = ws; r < nrs; r++) t += Lx[kb + r] * tmp[r];
+          x[f + k] -= t;
+        }
+      }
+      // diagonal block: unit upper triangular (Lᵀ), in place
       for (let k = ws - 1; k >= 0; k--) {
         const kb = off + k * nrs;
         let t = x[f + k];
-        for (let r = k + 1; r < nrs; r++) t -= Lx[kb + r] * x[rows[r0 + r]];
+        for (let r = k + 1; r < ws; r++) t -= Lx[kb + r] * x[f + r];
         x[f + k] = t;
       }
     }
