@@ -13,7 +13,7 @@
  * what the sheets list as unscheduled.
  */
 import { solve } from '@millrace/lp-core';
-import { buildModel, buildShiftSheets, mapSolution, roundPlan, weekOperations, type Plan, type PlanningData, type ShiftSheetSettings } from '@millrace/plan-model';
+import { buildModel, buildShiftSheets, mapSolution, roundPlan, shiftWindows, weekOperations, type Plan, type PlanningData, type ShiftSheetSettings } from '@millrace/plan-model';
 import { seedDemoPlant } from '../src/db/seed-demo';
 import { demoWeeks } from '../src/db/demo-plant/demand';
 import { loadPlanningData } from '../src/planning-data/load-planning-data';
@@ -59,6 +59,24 @@ async function main(): Promise<void> {
   const weeks = Array.from({ length: demoWeeks }, (_, i) => i + 1);
   const planned = weeks.map((w) => sum(plannedHours(data, plan, w).values()));
   console.log(`demo plant, ${demoWeeks} weeks, whole units: ${sum(planned).toFixed(1)} planned h (setup + run, clock hours)`);
+  // the plan's load against the open time of the sheets (capacity.ts clock hours + the plan's overtime, the same time)
+  let over = 0;
+  let setups = 0;
+  const overLines: string[] = [];
+  for (const w of weeks)
+    for (const [wc, hours] of plannedHours(data, plan, w)) {
+      const center = data.workCenters.find((c) => c.code === wc)!;
+      const overtime = plan.workCenters.find((l) => l.workCenter === wc && l.week === w)?.overtimeHours ?? 0;
+      const open = sum(shiftWindows(center, w, overtime).windows.map((x) => (x.overtimeEnd - x.start) / 60));
+      const setup = sum(weekOperations(data, plan, w).filter((o) => o.workCenter === wc).map((o) => o.setupMinutes / 60));
+      setups += setup;
+      if (hours > open + 1e-6) {
+        over += hours - open;
+        overLines.push(`wk ${w} ${wc} ${hours.toFixed(1)}/${open.toFixed(1)}`);
+      }
+    }
+  console.log(`setups on the sheets: ${setups.toFixed(1)} h, which the weekly plan leaves to the floor (routing-load.ts, batch multiple 1)`);
+  console.log(`load above the week's open time (setups the plan does not count): ${over.toFixed(1)} h in ${overLines.length} work-center weeks: ${overLines.join(', ')}`);
   for (const v of variants) {
     const result = buildShiftSheets(data, plan, v.settings);
     const perWeek = weeks.map((w) => sum(result.unscheduled.filter((u) => u.week === w).map((u) => u.hours)));
@@ -74,7 +92,14 @@ async function main(): Promise<void> {
     console.log(`  week 1 scheduled/planned h: ${line.join(', ')}`);
     const reasons = new Map<string, number>();
     for (const u of result.unscheduled) reasons.set(u.reason, (reasons.get(u.reason) ?? 0) + u.hours);
-    console.log(`  by reason (h): ${[...reasons].map(([r, x]) => `${r}: ${x.toFixed(1)}`).join('; ')}`);
+    console.log(`  unscheduled by reason (h): ${[...reasons].map(([r, x]) => `${r}: ${x.toFixed(1)}`).join('; ') || 'none'}`);
+    // carried over: setup + run hours on the sheets of a later week than the plan week they belong to
+    const carriedJobs = result.sheets.flatMap((s) => s.jobs.filter((j) => j.carriedFromWeek !== null).map((j) => ({ j, s })));
+    const carried = sum(carriedJobs.map(({ j }) => (j.endMinute - j.setupStartMinute) / 60));
+    const lateness = sum(carriedJobs.map(({ j, s }) => ((j.endMinute - j.setupStartMinute) / 60) * (s.week - j.carriedFromWeek!)));
+    console.log(`  carried over into a later week: ${carried.toFixed(1)} h = ${((100 * carried) / sum(planned)).toFixed(1)} % (on average ${carried > 0 ? (lateness / carried).toFixed(2) : '0'} weeks later)`);
+    const outOf = weeks.map((w) => sum(result.carriedOver.filter((c) => c.outOfWeek === w).map((c) => c.hours)));
+    console.log(`  open at the end of each week, carried into the next (h): ${outOf.map((x) => x.toFixed(1)).join(' ')}`);
   }
 }
 

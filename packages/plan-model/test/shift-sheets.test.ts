@@ -85,36 +85,51 @@ describe(`shift sheets: properties over generated plans (solver: ${solverName})`
       const { data, plan } = await approvedPlan(seed, size, whole);
       const { sheets, unscheduled, settings } = buildShiftSheets(data, plan, { transferLagMinutes: lag, ...batches });
       expect(sheets.length).toBeGreaterThan(0);
-      const jobs = sheets.flatMap((s) => s.jobs.map((j) => ({ ...j, sheet: s })));
+      // minutes from the plan's first week, so precedence can be checked across week boundaries
+      const offset = (week: number) => Math.round((Date.parse(data.weeks.find((w) => w.index === week)!.startDate) - Date.parse(data.weeks[0].startDate)) / 60000);
+      const jobs = sheets.flatMap((s) =>
+        s.jobs.map((j) => {
+          const o = offset(s.week);
+          return { ...j, sheet: s, lotWeek: j.carriedFromWeek ?? s.week, setupStartMinute: j.setupStartMinute + o, startMinute: j.startMinute + o, endMinute: j.endMinute + o };
+        }),
+      );
+      /** the jobs of one plan week's production of a product's step, wherever they ran */
+      const stepJobs = (product: string, operation: number, week: number) => jobs.filter((j) => j.lotWeek === week && j.product === product && j.operation === operation);
 
-      // 1. conservation: every routing step of every product made in a week gets exactly the plan's quantity
+      // carried work is marked with its plan week, an earlier week than the sheet's
+      for (const j of jobs) if (j.carriedFromWeek !== null) expect(j.carriedFromWeek).toBeLessThan(j.sheet.week);
+      // only what is still open after the plan's last week stays unscheduled
+      for (const u of unscheduled) expect(u.reason).toMatch(/plan's last week/);
+
+      // 1. conservation: every routing step of every product made in a plan week gets exactly the
+      // plan's quantity, over its own week and the weeks it is carried into (issue 8)
       for (const l of plan.products.filter((x) => x.make > 1e-9)) {
         for (const r of data.routings.filter((x) => x.product === l.product)) {
-          const scheduled = jobs.filter((j) => j.sheet.week === l.week && j.product === l.product && j.operation === r.sequence).reduce((a, j) => a + j.quantity, 0);
+          const scheduled = stepJobs(l.product, r.sequence, l.week).reduce((a, j) => a + j.quantity, 0);
           const left = unscheduled.filter((u) => u.week === l.week && u.product === l.product && u.operation === r.sequence).reduce((a, u) => a + u.quantity, 0);
           expect(Math.abs(scheduled + left - l.make)).toBeLessThan(1e-9 * (1 + l.make));
         }
       }
       // 2. routing precedence by transfer batches (lot streaming: Trietsch & Baker 1993, from
-      // memory): batch k of a later step starts only after the earlier step finished batch k,
-      // plus the lag; a product's first step takes batch k only after each sub-assembly made
-      // that week finished the same share of what it completed, plus the lag
+      // memory), across week boundaries too: batch k of a later step starts only after the
+      // earlier step finished batch k, plus the lag; a product's first step takes batch k only
+      // after each sub-assembly made in the same plan week finished the same share of its plan
+      // quantity, plus the lag
       for (const l of plan.products.filter((x) => x.make > 1e-9)) {
         const week = l.week;
         const batch = batchOf(settings, l.product, l.make);
         const steps = data.routings.filter((r) => r.product === l.product).sort((a, b) => a.sequence - b.sequence);
-        const stepJobs = (product: string, operation: number) => jobs.filter((j) => j.sheet.week === week && j.product === product && j.operation === operation);
-        for (let k = 1; k < steps.length; k++) expectBatchPrecedence(stepJobs(l.product, steps[k - 1].sequence), stepJobs(l.product, steps[k].sequence), batch, l.make, lag, 1);
+        for (let k = 1; k < steps.length; k++) expectBatchPrecedence(stepJobs(l.product, steps[k - 1].sequence, week), stepJobs(l.product, steps[k].sequence, week), batch, l.make, lag, 1);
         if (steps.length === 0) continue;
-        const firstJobs = stepJobs(l.product, steps[0].sequence);
+        const firstJobs = stepJobs(l.product, steps[0].sequence, week);
         for (const b of data.bom.filter((x) => x.parent === l.product && x.componentProduct !== undefined)) {
           const made = plan.products.find((x) => x.product === b.componentProduct && x.week === week && x.make > 1e-9);
           const compSteps = data.routings.filter((r) => r.product === b.componentProduct).sort((a, b2) => a.sequence - b2.sequence);
           if (!made || compSteps.length === 0) continue;
-          const compJobs = stepJobs(b.componentProduct!, compSteps[compSteps.length - 1].sequence);
+          const compJobs = stepJobs(b.componentProduct!, compSteps[compSteps.length - 1].sequence, week);
+          expect(firstJobs.reduce((a, j) => a + j.quantity, 0) / l.make).toBeLessThanOrEqual(compJobs.reduce((a, j) => a + j.quantity, 0) / made.make + 1e-9);
           if (compJobs.length === 0) continue;
-          const compDone = compJobs.reduce((a, j) => a + j.quantity, 0);
-          expectBatchPrecedence(compJobs, firstJobs, batch, l.make, lag, compDone / l.make);
+          expectBatchPrecedence(compJobs, firstJobs, batch, l.make, lag, made.make / l.make);
         }
       }
       // a split into transfer batches only ever helps the floor: with batches of the whole
@@ -123,23 +138,22 @@ describe(`shift sheets: properties over generated plans (solver: ${solverName})`
         for (const l of plan.products.filter((x) => x.make > 1e-9)) {
           const steps = data.routings.filter((r) => r.product === l.product).sort((a, b) => a.sequence - b.sequence);
           for (let k = 1; k < steps.length; k++) {
-            const before = jobs.filter((j) => j.sheet.week === l.week && j.product === l.product && j.operation === steps[k - 1].sequence);
-            for (const j of jobs.filter((x) => x.sheet.week === l.week && x.product === l.product && x.operation === steps[k].sequence))
-              expect(j.setupStartMinute).toBeGreaterThanOrEqual(Math.max(...before.map((b) => b.endMinute)) + lag - 1e-9);
+            const before = stepJobs(l.product, steps[k - 1].sequence, l.week);
+            for (const j of stepJobs(l.product, steps[k].sequence, l.week)) expect(j.setupStartMinute).toBeGreaterThanOrEqual(Math.max(...before.map((b) => b.endMinute)) + lag - 1e-9);
           }
         }
-      // 3. no two jobs overlap on one work center (setups included)
-      for (const wc of data.workCenters)
-        for (const week of new Set(jobs.map((j) => j.sheet.week))) {
-          const mine = jobs.filter((j) => j.sheet.workCenter === wc.code && j.sheet.week === week).sort((a, b) => a.setupStartMinute - b.setupStartMinute);
-          for (let i = 1; i < mine.length; i++) expect(mine[i].setupStartMinute).toBeGreaterThanOrEqual(mine[i - 1].endMinute - 1e-9);
-        }
+      // 3. no two jobs overlap on one work center (setups included), carried work and the week's own alike
+      for (const wc of data.workCenters) {
+        const mine = jobs.filter((j) => j.sheet.workCenter === wc.code).sort((a, b) => a.setupStartMinute - b.setupStartMinute);
+        for (let i = 1; i < mine.length; i++) expect(mine[i].setupStartMinute).toBeGreaterThanOrEqual(mine[i - 1].endMinute - 1e-9);
+      }
       // 4. every job inside an open shift window of its work center (overtime counted as open)
       for (const j of jobs) {
-        expect(j.setupStartMinute).toBeGreaterThanOrEqual(j.sheet.shiftStartMinute - 1e-9);
-        expect(j.endMinute).toBeLessThanOrEqual((j.sheet.overtimeEndMinute ?? j.sheet.shiftEndMinute) + 1e-9);
+        const o = offset(j.sheet.week);
+        expect(j.setupStartMinute - o).toBeGreaterThanOrEqual(j.sheet.shiftStartMinute - 1e-9);
+        expect(j.endMinute - o).toBeLessThanOrEqual((j.sheet.overtimeEndMinute ?? j.sheet.shiftEndMinute) + 1e-9);
         expect(j.startMinute - j.setupStartMinute).toBeCloseTo(j.setupMinutes, 9);
-        if (j.overtime) expect(j.endMinute).toBeGreaterThan(j.sheet.shiftEndMinute);
+        if (j.overtime) expect(j.endMinute - o).toBeGreaterThan(j.sheet.shiftEndMinute);
       }
       // 5. total time per shift within its length plus its overtime
       for (const s of sheets) expect(s.plannedMinutes).toBeLessThanOrEqual(s.availableMinutes + s.overtimeMinutes + 1e-9);
@@ -149,29 +163,100 @@ describe(`shift sheets: properties over generated plans (solver: ${solverName})`
         expect(j.materials.map((m) => m.item)).toEqual(lines.map((b) => b.material ?? b.componentProduct));
         j.materials.forEach((m, i) => expect(m.quantity).toBeCloseTo((lines[i].qtyPer / (1 - lines[i].scrapPct / 100)) * j.quantity, 9));
       }
-      // setups counted once per run: an operation's setup is on its first job only, its other jobs continue it
+      // setups counted once per run: an operation's setup is on its first job; its later jobs in
+      // the same week continue it; in a later week it continues without a setup or, when other
+      // work ran on the work center in between, starts over with one
       for (const l of plan.products.filter((x) => x.make > 1e-9))
         for (const r of data.routings.filter((x) => x.product === l.product)) {
-          const mine = jobs.filter((j) => j.sheet.week === l.week && j.product === l.product && j.operation === r.sequence).sort((a, b) => a.setupStartMinute - b.setupStartMinute);
-          mine.slice(1).forEach((j) => expect([j.setupMinutes, j.continued]).toEqual([0, true]));
+          const mine = stepJobs(l.product, r.sequence, l.week).sort((a, b) => a.setupStartMinute - b.setupStartMinute);
           if (mine.length > 0) expect(mine[0].continued).toBe(false);
+          mine.slice(1).forEach((j, i) => {
+            if (j.continued) expect(j.setupMinutes).toBe(0);
+            else expect([j.setupMinutes > 0, j.sheet.week > mine[i].sheet.week]).toEqual([true, true]);
+          });
         }
+      // the sheets of a later week alone are those of the whole run (continued from the first week)
+      const lastWeek = Math.max(...sheets.map((s) => s.week));
+      const alone = buildShiftSheets(data, plan, { transferLagMinutes: lag, ...batches, weeks: [lastWeek] });
+      expect(alone.sheets).toEqual(sheets.filter((s) => s.week === lastWeek));
       // whole-unit plans are split in whole units
       if (whole) for (const j of jobs) expect(Math.abs(j.quantity - Math.round(j.quantity))).toBeLessThan(1e-9);
     });
   }
 
-  it('puts no job on holidays, in downtime or in a closed week (windows from the calendar)', () => {
+  it('puts no job on holidays, in downtime or in a closed week; the open time is the plan capacity model\'s (DOMAIN.md §1)', () => {
     const data = generatePlant(64, { finished: 3, subassemblies: 1, workCenters: 2, materials: 2, weeks: 3 });
-    const wc = { ...data.workCenters[0], shiftPattern: { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['06:00'] } };
-    wc.exceptions = [{ week: 1, holidayDays: 2, downtimeHours: 3 }, { week: 2, closed: true }];
+    const wc = { ...data.workCenters[0], efficiency: 0.8, shiftPattern: { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['06:00'] } };
+    wc.exceptions = [{ week: 1, holidayDays: 2, downtimeHours: 3 }, { week: 2, closed: true }, { week: 3, holidayDays: 0.5 }];
+    const open = (week: number, overtime: number) => shiftWindows(wc, week, overtime).windows.reduce((a, w) => a + (w.overtimeEnd - w.start), 0);
+    // rough-cut capacity (DOMAIN.md §1): shifts × hours × (days − holidays) × efficiency − downtime
+    // standard hours; in clock hours ÷ efficiency: (1 × 8 × 3 × 0.8 − 3) ÷ 0.8 = 20.25 h
     const w1 = shiftWindows(wc, 1, 0).windows;
     expect(w1.map((w) => w.day)).toEqual([0, 1, 2]); // 5 days − 2 holidays
-    expect(w1[2].end - w1[2].start).toBe(5 * 60); // 3 h downtime off the last open shift
+    expect(open(1, 0)).toBeCloseTo(20.25 * 60, 9); // downtime comes off the last open shift: 3 ÷ 0.8 = 3.75 h
+    expect(w1[2].end - w1[2].start).toBeCloseTo(4.25 * 60, 9);
     expect(shiftWindows(wc, 2, 4).windows).toEqual([]);
-    // overtime goes after each day's last shift
+    // half a holiday: 4.5 days → the fifth day keeps half its shift; 36 h plus the plan's 10 h overtime
+    expect(open(3, 10)).toBeCloseTo(46 * 60, 9);
     const w3 = shiftWindows(wc, 3, 10).windows;
+    expect(w3[4].end - w3[4].start).toBeCloseTo(4 * 60, 9);
+    // overtime goes after each day's last shift, evenly
     expect(w3.map((w) => w.overtimeEnd - w.end)).toEqual([120, 120, 120, 120, 120]);
+  });
+});
+
+describe('shift sheets: work a week cannot finish is carried over, ahead of the next week\'s own work', () => {
+  // Worked by hand from the precedence rule (a step starts after its earlier step's batch is
+  // done; DOMAIN.md §4) with the whole quantity moving at once: one 8 h shift from 07:00 on
+  // WC-A and WC-B, Monday to Friday. Week 1: P step 10 (1 h/unit × 20) runs Mon 07:00 – Wed
+  // 11:00; step 20 (2 h/unit) then has Wed 11:00–15:00, Thu and Fri = 20 h = 10 units, and
+  // 10 units (20 h) are left. Week 2: those 10 units run first on WC-B (Mon, Tue, Wed to
+  // 11:00), and Q (due in week 2, ready Monday 07:00) runs after them, Wed 11:00–15:00.
+  const pattern = { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] };
+  const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
+  const item = (code: string) => ({ code, name: code, unit: 'pcs', kind: 'finished' as const, price: 1, safetyStock: 0, batchMultiple: 1, openingStock: 0, latePenalty: 0 });
+  const data: PlanningData = {
+    plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
+    weeks: [{ index: 1, startDate: '2027-01-04' }, { index: 2, startDate: '2027-01-11' }],
+    products: [item('P'), item('Q')],
+    bom: [],
+    routings: [
+      { product: 'P', sequence: 10, workCenter: 'WC-A', hoursPerUnit: 1, setupHours: 0 },
+      { product: 'P', sequence: 20, workCenter: 'WC-B', hoursPerUnit: 2, setupHours: 0 },
+      { product: 'Q', sequence: 10, workCenter: 'WC-B', hoursPerUnit: 2, setupHours: 0 },
+    ],
+    workCenters: [wc('WC-A'), wc('WC-B')],
+    materials: [],
+    demand: [{ product: 'Q', week: 2, qty: 2, kind: 'firm', orderRef: 'SO-1' }],
+  } as PlanningData;
+  const plan = {
+    horizonWeeks: 2,
+    outcome: 'optimal',
+    products: [{ product: 'P', week: 1, make: 20 }, { product: 'Q', week: 2, make: 2 }],
+    workCenters: [],
+  } as unknown as Plan;
+  const lines = (r: ReturnType<typeof buildShiftSheets>, week: number) =>
+    r.sheets.filter((s) => s.workCenter === 'WC-B' && s.week === week).flatMap((s) => s.jobs.map((j) => `${j.product} ${j.quantity} ${j.start.slice(5)}–${j.end.slice(11)}${j.carriedFromWeek === null ? '' : ` from week ${j.carriedFromWeek}`}`));
+
+  it('week 1 hands 10 units of P step 20 to week 2, which runs them first; the quantities add up to the plan', () => {
+    const r = buildShiftSheets(data, plan, { transferBatchShare: 1 });
+    expect(lines(r, 1)).toEqual(['P 2 01-06T11:00–15:00', 'P 4 01-07T07:00–15:00', 'P 4 01-08T07:00–15:00']);
+    expect(lines(r, 2)).toEqual(['P 4 01-11T07:00–15:00 from week 1', 'P 4 01-12T07:00–15:00 from week 1', 'P 2 01-13T07:00–11:00 from week 1', 'Q 2 01-13T11:00–15:00']);
+    expect(r.carriedOver).toEqual([{ workCenter: 'WC-B', fromWeek: 1, outOfWeek: 1, product: 'P', operation: 20, quantity: 10, hours: 20, reason: 'no open shift time left in the week' }]);
+    expect(r.unscheduled).toEqual([]);
+  });
+  it('the sheets of week 2 alone continue from week 1', () => {
+    expect(lines(buildShiftSheets(data, plan, { transferBatchShare: 1, weeks: [2] }), 2)).toEqual(lines(buildShiftSheets(data, plan, { transferBatchShare: 1 }), 2));
+  });
+  it('what is still open after the plan\'s last week stays listed as unscheduled, with its plan week and reason', () => {
+    const heavy = { ...plan, products: [{ product: 'P', week: 1, make: 20 }, { product: 'Q', week: 2, make: 10 }] } as unknown as Plan;
+    const r = buildShiftSheets(data, heavy, { transferBatchShare: 1 });
+    // week 2 on WC-B: 20 h carried P, then Q's 20 h has 20 h left (Wed 11:00 – Fri 15:00): it all fits
+    expect(r.unscheduled).toEqual([]);
+    const heavier = { ...plan, products: [{ product: 'P', week: 1, make: 20 }, { product: 'Q', week: 2, make: 12 }] } as unknown as Plan;
+    expect(buildShiftSheets(data, heavier, { transferBatchShare: 1 }).unscheduled).toEqual([
+      { workCenter: 'WC-B', week: 2, product: 'Q', operation: 10, quantity: 2, hours: 4, reason: "no open shift time left by the end of the plan's last week (week 2)" },
+    ]);
   });
 });
 

@@ -27,6 +27,8 @@ export interface ShiftSheetJob {
   overtime: boolean;
   /** this job continues a job begun earlier — in an earlier shift, or before a wait for the next transfer batch (no new setup) */
   continued: boolean;
+  /** plan week whose production this is, when the job was carried over from an earlier week; null for the week's own work */
+  carriedFromWeek: number | null;
   /** earliest week with firm orders this production serves, null if none */
   dueWeek: number | null;
   orderRefs: string[];
@@ -59,13 +61,31 @@ export interface ShiftSheet {
   jobs: ShiftSheetJob[];
 }
 
-/** work the week's open time could not hold (the weekly plan leaves setups to the floor) */
+/**
+ * Work still open after the plan's last week (or at a work center with no open time left), listed
+ * with its reason, never dropped. `week` is the plan week whose production it is.
+ */
 export interface UnscheduledWork {
   workCenter: string;
   week: number;
   product: string;
   operation: number;
   quantity: number;
+  hours: number;
+  reason: string;
+}
+
+/** work a week could not finish, carried over into the next week's first open time (ahead of that week's own work) */
+export interface CarriedWork {
+  workCenter: string;
+  /** plan week whose production it is */
+  fromWeek: number;
+  /** the week it leaves unfinished; it continues in the week after */
+  outOfWeek: number;
+  product: string;
+  operation: number;
+  quantity: number;
+  /** clock hours still to work (setup included when the step has not begun) */
   hours: number;
   reason: string;
 }
@@ -109,6 +129,10 @@ export interface ShiftSheetSettings {
 export interface ShiftSheetResult {
   sheets: ShiftSheet[];
   unscheduled: UnscheduledWork[];
+  /** what each shown week hands on to the next (the sheets of week t continue from the plan's first week) */
+  carriedOver: CarriedWork[];
+  /** overtime the plan gives a work center that finds no room after its shifts (the next shift starts first) */
+  overtimeNotPlaced: { workCenter: string; week: number; hours: number }[];
   cautions: WorkingTimeCaution[];
   settings: ShiftSheetSettings;
 }
