@@ -1,10 +1,11 @@
-import type { PlanningData } from './planning-data';
+import type { Material, PlanningData, Product, WorkCenter } from './planning-data';
 import type { MaterialWeekLine, ProductWeekLine, WorkCenterWeekLine } from './plan';
 import { componentUsePerUnit } from './bom-graph';
 import { availableHours, overtimeCapHours } from './capacity';
 import { demandByWeek, type WeeklyDemand } from './demand';
 import { loadHoursPerUnit } from './routing-load';
 import { supplyCap } from './material-supply';
+import { holdingCostPerUnitWeek, standardCosts } from './standard-cost';
 
 /**
  * Rebuilds plan lines from decisions — how much of each product is made and how much forecast
@@ -13,6 +14,10 @@ import { supplyCap } from './material-supply';
  * parents − forecast served; forecast is served as decided, as far as goods are on hand;
  * overtime is what the load needs beyond regular time. Used by the rounding repair pass and by
  * edits of a plan; the checker verifies the result independently.
+ *
+ * Everything the walks need is indexed once (items by code, users of each item, receipts and
+ * capacity per week), because the repair pass calls them many thousands of times; the numeric
+ * walks (lateByWeek, materialStock, margin) give the same numbers as the lines without building them.
  */
 export interface PlanDecisions {
   /** per product, make per week (index week − 1) */
@@ -23,46 +28,167 @@ export interface PlanDecisions {
   buy: Map<string, number[]>;
 }
 
+type Use = { parent: string; use: number };
+
 export class PlanRecompute {
   readonly demand: Map<string, WeeklyDemand>;
   readonly load: Map<string, Map<string, number>>;
-  private parentsOf: Map<string, { parent: string; use: number }[]>;
-  private usersOf: Map<string, { parent: string; use: number }[]>;
-  private loaders: Map<string, { product: string; hours: number }[]>;
+  private readonly parentsOf = new Map<string, Use[]>();
+  private readonly usersOf = new Map<string, Use[]>();
+  private readonly loaders = new Map<string, { product: string; hours: number }[]>();
+  private readonly products: Map<string, Product>;
+  private readonly workCenters: Map<string, WorkCenter>;
+  private readonly materials: Map<string, Material>;
+  private readonly directMaterials = new Map<string, string[]>();
+  private readonly directComponents = new Map<string, string[]>();
+  /** per material, scheduled receipts per week (index week − 1) */
+  private readonly receipts = new Map<string, number[]>();
+  /** per work center, [available, regular + capped overtime] standard hours per week */
+  private readonly hours = new Map<string, { available: number[]; max: number[] }>();
+  /** material use and work-center load per week of the decisions being tracked (see track) */
+  private tracked: { d: PlanDecisions; use: Map<string, number[]>; load: Map<string, number[]> } | null = null;
+  /** per product: holding cost per unit-week, end-of-horizon and safety-shortfall penalties per unit */
+  private readonly productCosts = new Map<string, { holding: number; endPenalty: number; shortfallPenalty: number }>();
 
   constructor(
     readonly data: PlanningData,
     readonly horizonWeeks: number,
+    /** rolled-up standard costs, when the caller already has them */
+    std: Map<string, number> = standardCosts(data),
   ) {
-    this.demand = demandByWeek(data, horizonWeeks);
+    const T = horizonWeeks;
+    this.demand = demandByWeek(data, T);
     this.load = loadHoursPerUnit(data);
-    this.parentsOf = new Map();
-    this.usersOf = new Map();
+    this.products = new Map(data.products.map((p) => [p.code, p]));
+    this.workCenters = new Map(data.workCenters.map((w) => [w.code, w]));
+    this.materials = new Map(data.materials.map((m) => [m.code, m]));
+    const push = <V>(map: Map<string, V[]>, key: string, v: V) => {
+      const list = map.get(key);
+      if (list) list.push(v);
+      else map.set(key, [v]);
+    };
     for (const b of data.bom) {
       const entry = { parent: b.parent, use: componentUsePerUnit(b) };
-      if (b.componentProduct !== undefined) this.parentsOf.set(b.componentProduct, [...(this.parentsOf.get(b.componentProduct) ?? []), entry]);
-      if (b.material !== undefined) this.usersOf.set(b.material, [...(this.usersOf.get(b.material) ?? []), entry]);
+      if (b.componentProduct !== undefined) {
+        push(this.parentsOf, b.componentProduct, entry);
+        push(this.directComponents, b.parent, b.componentProduct);
+      }
+      if (b.material !== undefined) {
+        push(this.usersOf, b.material, entry);
+        push(this.directMaterials, b.parent, b.material);
+      }
     }
-    this.loaders = new Map();
-    for (const [product, perWc] of this.load)
-      for (const [wc, hours] of perWc) this.loaders.set(wc, [...(this.loaders.get(wc) ?? []), { product, hours }]);
+    for (const [product, perWc] of this.load) for (const [wc, hours] of perWc) push(this.loaders, wc, { product, hours });
+    for (const m of data.materials) {
+      const r = new Array<number>(T).fill(0);
+      for (let t = 1; t <= T; t++) r[t - 1] = m.scheduledReceipts.filter((x) => x.week === t).reduce((a, x) => a + x.qty, 0);
+      this.receipts.set(m.code, r);
+    }
+    for (const w of data.workCenters) {
+      const available = Array.from({ length: T }, (_, i) => availableHours(w, i + 1));
+      const max = available.map((a, i) => a + w.efficiency * overtimeCapHours(w, i + 1));
+      this.hours.set(w.code, { available, max });
+    }
+    for (const p of data.products) {
+      this.productCosts.set(p.code, {
+        holding: holdingCostPerUnitWeek(p, std.get(p.code) ?? 0),
+        endPenalty: data.plant.endBackorderPenaltyPerUnit ?? p.latePenalty * T,
+        shortfallPenalty: data.plant.safetyShortfallPenaltyPerUnitWeek ?? p.latePenalty / 2,
+      });
+    }
+  }
+
+  /**
+   * Keeps each material's use and each work center's load per week for `d` from now on, so the
+   * walks need not sum them over every user each time; every later change of `d.make` must be
+   * reported with makeChanged. (Each kept sum is recomputed whole, so it equals the untracked one.)
+   */
+  track(d: PlanDecisions): void {
+    const weeks = Array.from({ length: this.horizonWeeks }, (_, i) => i + 1);
+    this.tracked = {
+      d,
+      use: new Map(this.data.materials.map((m) => [m.code, weeks.map((t) => this.sumUse(m.code, t, d))])),
+      load: new Map(this.data.workCenters.map((w) => [w.code, weeks.map((t) => this.sumLoad(w.code, t, d))])),
+    };
+  }
+
+  /** the tracked decisions' make of `product` in `week` has changed */
+  makeChanged(product: string, week: number): void {
+    const tracked = this.tracked;
+    if (!tracked) return;
+    for (const m of this.directMaterials.get(product) ?? []) tracked.use.get(m)![week - 1] = this.sumUse(m, week, tracked.d);
+    for (const w of this.load.get(product)?.keys() ?? []) tracked.load.get(w)![week - 1] = this.sumLoad(w, week, tracked.d);
+  }
+
+  private sumUse(material: string, week: number, d: PlanDecisions): number {
+    let use = 0;
+    for (const e of this.usersOf.get(material) ?? []) use += e.use * (d.make.get(e.parent)?.[week - 1] ?? 0);
+    return use;
+  }
+
+  private sumLoad(workCenter: string, week: number, d: PlanDecisions): number {
+    let a = 0;
+    for (const l of this.loaders.get(workCenter) ?? []) a += l.hours * (d.make.get(l.product)?.[week - 1] ?? 0);
+    return a;
   }
 
   usedInParents(product: string, week: number, d: PlanDecisions): number {
-    return (this.parentsOf.get(product) ?? []).reduce((a, e) => a + e.use * (d.make.get(e.parent)?.[week - 1] ?? 0), 0);
+    const parents = this.parentsOf.get(product);
+    if (!parents) return 0;
+    let a = 0;
+    for (const e of parents) a += e.use * (d.make.get(e.parent)?.[week - 1] ?? 0);
+    return a;
   }
 
   productLines(product: string, d: PlanDecisions): ProductWeekLine[] {
-    const p = this.data.products.find((x) => x.code === product)!;
+    const out: ProductWeekLine[] = [];
+    this.walkProduct(product, d, (t, m, used, served, latePrev, late, stock, safetyShortfall) => {
+      const firm = this.demand.get(product)!.firm[t - 1];
+      out.push({
+        product,
+        week: t,
+        make: m,
+        shipFirm: firm + latePrev - late,
+        shipForecast: served,
+        ship: firm + latePrev - late + served,
+        usedInParents: used,
+        stock,
+        late,
+        safetyShortfall,
+      });
+    });
+    return out;
+  }
+
+  /** backlog of firm orders at the end of each week (index week − 1), as productLines has it */
+  lateByWeek(product: string, d: PlanDecisions): number[] {
+    const out = new Array<number>(this.horizonWeeks);
+    this.walkProduct(product, d, (t, _m, _used, _served, _latePrev, late) => {
+      out[t - 1] = late;
+    });
+    return out;
+  }
+
+  /**
+   * The balance walk behind productLines: the net position of a product moves by production −
+   * firm orders − use in parents − forecast served, week by week.
+   */
+  private walkProduct(
+    product: string,
+    d: PlanDecisions,
+    visit: (week: number, make: number, used: number, served: number, latePrev: number, late: number, stock: number, safetyShortfall: number) => void,
+  ): void {
+    const p = this.products.get(product)!;
     const dem = this.demand.get(product)!;
     const make = d.make.get(product) ?? [];
     const sell = d.sell.get(product) ?? [];
-    const out: ProductWeekLine[] = [];
+    const parents = (this.parentsOf.get(product) ?? []).map((e) => ({ use: e.use, make: d.make.get(e.parent) }));
     let net = p.openingStock;
     let latePrev = 0;
     for (let t = 1; t <= this.horizonWeeks; t++) {
       const m = make[t - 1] ?? 0;
-      const used = this.usedInParents(product, t, d);
+      let used = 0;
+      for (const e of parents) used += e.use * (e.make?.[t - 1] ?? 0);
       // what is physically on hand this week after use in parents; forecast is served from it as
       // the plan says (even while firm orders wait, as the LP may choose), but never from goods
       // that must-ship orders need
@@ -71,31 +197,20 @@ export class PlanRecompute {
       net += m - dem.firm[t - 1] - used - served;
       const stock = Math.max(0, net);
       const late = Math.max(0, -net);
-      out.push({
-        product,
-        week: t,
-        make: m,
-        shipFirm: dem.firm[t - 1] + latePrev - late,
-        shipForecast: served,
-        ship: dem.firm[t - 1] + latePrev - late + served,
-        usedInParents: used,
-        stock,
-        late,
-        safetyShortfall: Math.max(0, p.safetyStock - stock),
-      });
+      visit(t, m, used, served, latePrev, late, stock, Math.max(0, p.safetyStock - stock));
       latePrev = late;
     }
-    return out;
   }
 
   loadHours(workCenter: string, week: number, d: PlanDecisions): number {
-    return (this.loaders.get(workCenter) ?? []).reduce((a, l) => a + l.hours * (d.make.get(l.product)?.[week - 1] ?? 0), 0);
+    if (this.tracked?.d === d) return this.tracked.load.get(workCenter)?.[week - 1] ?? 0;
+    return this.sumLoad(workCenter, week, d);
   }
 
   workCenterLine(workCenter: string, week: number, d: PlanDecisions, values?: { bottleneckValue: number; binding: boolean }): WorkCenterWeekLine {
-    const w = this.data.workCenters.find((x) => x.code === workCenter)!;
+    const w = this.workCenters.get(workCenter)!;
     const loadHours = this.loadHours(workCenter, week, d);
-    const available = availableHours(w, week);
+    const available = this.hours.get(workCenter)!.available[week - 1];
     const cap = overtimeCapHours(w, week);
     return {
       workCenter,
@@ -112,22 +227,14 @@ export class PlanRecompute {
 
   /** regular time + capped overtime, in standard hours */
   maxHours(workCenter: string, week: number): number {
-    const w = this.data.workCenters.find((x) => x.code === workCenter)!;
-    return availableHours(w, week) + w.efficiency * overtimeCapHours(w, week);
+    return this.hours.get(workCenter)!.max[week - 1];
   }
 
   materialLines(material: string, d: PlanDecisions, values?: Map<number, { bottleneckValue: number; supplyCapValue: number }>): MaterialWeekLine[] {
-    const m = this.data.materials.find((x) => x.code === material)!;
+    const m = this.materials.get(material)!;
     const buy = d.buy.get(material) ?? [];
-    const users = this.usersOf.get(material) ?? [];
     const out: MaterialWeekLine[] = [];
-    let stock = m.onHand;
-    for (let t = 1; t <= this.horizonWeeks; t++) {
-      const release = t - m.leadTimeWeeks;
-      const arriving = release >= 1 ? (buy[release - 1] ?? 0) : 0;
-      const receipt = m.scheduledReceipts.filter((r) => r.week === t).reduce((a, r) => a + r.qty, 0);
-      const use = users.reduce((a, e) => a + e.use * (d.make.get(e.parent)?.[t - 1] ?? 0), 0);
-      stock += receipt + arriving - use;
+    this.walkMaterial(material, d, (t, arriving, receipt, use, stock) => {
       out.push({
         material,
         week: t,
@@ -140,21 +247,91 @@ export class PlanRecompute {
         bottleneckValue: values?.get(t)?.bottleneckValue ?? 0,
         supplyCapValue: values?.get(t)?.supplyCapValue ?? 0,
       });
-    }
+    });
     return out;
+  }
+
+  /** stock of a material at the end of each week (index week − 1), as materialLines has it */
+  materialStock(material: string, d: PlanDecisions): number[] {
+    const out = new Array<number>(this.horizonWeeks);
+    this.walkMaterial(material, d, (t, _arriving, _receipt, _use, stock) => {
+      out[t - 1] = stock;
+    });
+    return out;
+  }
+
+  /** The stock walk behind materialLines: on hand + receipts + arrivals − use, week by week. */
+  private walkMaterial(material: string, d: PlanDecisions, visit: (week: number, arriving: number, receipt: number, use: number, stock: number) => void): void {
+    const m = this.materials.get(material)!;
+    const buy = d.buy.get(material) ?? [];
+    const receipts = this.receipts.get(material)!;
+    const kept = this.tracked?.d === d ? this.tracked.use.get(material)! : null;
+    const users = kept ? [] : (this.usersOf.get(material) ?? []).map((e) => ({ use: e.use, make: d.make.get(e.parent) }));
+    let stock = m.onHand;
+    for (let t = 1; t <= this.horizonWeeks; t++) {
+      const release = t - m.leadTimeWeeks;
+      const arriving = release >= 1 ? (buy[release - 1] ?? 0) : 0;
+      const receipt = receipts[t - 1];
+      let use = kept ? kept[t - 1] : 0;
+      for (const e of users) use += e.use * (e.make?.[t - 1] ?? 0);
+      stock += receipt + arriving - use;
+      visit(t, arriving, receipt, use, stock);
+    }
+  }
+
+  /**
+   * Contribution margin of part of a plan — the given products and materials over the whole
+   * horizon, the given work centers in one week — summed term by term exactly as planMargin sums
+   * the same lines, without building them (the repair pass compares it before and after a change).
+   */
+  partialMargin(products: string[], workCenters: string[], week: number, materials: string[], d: PlanDecisions): number {
+    const T = this.horizonWeeks;
+    let revenue = 0, extraUnitCost = 0, holdingCost = 0, latePenalty = 0, endBackorderPenalty = 0, safetyShortfallPenalty = 0;
+    let overtimeCost = 0, materialSpend = 0;
+    for (const code of products) {
+      const p = this.products.get(code)!;
+      const c = this.productCosts.get(code)!;
+      const firm = this.demand.get(code)!.firm;
+      this.walkProduct(code, d, (t, m, _used, served, latePrev, late, stock) => {
+        revenue += p.price * (firm[t - 1] + latePrev - late + served);
+        extraUnitCost += (p.extraUnitCost ?? 0) * m;
+        holdingCost += c.holding * stock;
+        latePenalty += p.latePenalty * late;
+        if (t === T) endBackorderPenalty += c.endPenalty * late;
+        safetyShortfallPenalty += c.shortfallPenalty * Math.max(0, p.safetyStock - stock);
+      });
+    }
+    for (const code of workCenters) {
+      const w = this.workCenters.get(code)!;
+      const available = this.hours.get(code)!.available[week - 1];
+      overtimeCost += (w.overtimeCostPerHour ?? 0) * Math.max(0, (this.loadHours(code, week, d) - available) / w.efficiency);
+    }
+    for (const code of materials) {
+      const m = this.materials.get(code)!;
+      const buy = d.buy.get(code) ?? [];
+      this.walkMaterial(code, d, (t, _arriving, _receipt, _use, stock) => {
+        materialSpend += m.unitCost * (buy[t - 1] ?? 0);
+        holdingCost += (m.holdingCostPerUnitWeek ?? 0) * stock;
+      });
+    }
+    return revenue - materialSpend - extraUnitCost - overtimeCost - holdingCost - latePenalty - endBackorderPenalty - safetyShortfallPenalty;
   }
 
   /** materials a product's production consumes directly */
   materialsOf(product: string): string[] {
-    return this.data.bom.filter((b) => b.parent === product && b.material !== undefined).map((b) => b.material!);
+    return this.directMaterials.get(product) ?? [];
   }
 
   /** component products a product's production consumes directly */
   componentsOf(product: string): string[] {
-    return this.data.bom.filter((b) => b.parent === product && b.componentProduct !== undefined).map((b) => b.componentProduct!);
+    return this.directComponents.get(product) ?? [];
   }
 
   workCentersOf(product: string): string[] {
     return [...(this.load.get(product)?.keys() ?? [])];
+  }
+
+  material(code: string): Material {
+    return this.materials.get(code)!;
   }
 }

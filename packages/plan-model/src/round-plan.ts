@@ -48,7 +48,8 @@ type Change = { kind: 'make' | 'buy'; item: string; week: number; qty: number };
 export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; report: RoundingReport } {
   if (lpPlan.outcome !== 'optimal') throw new Error(`only a solved plan can be rounded (this one is ${lpPlan.outcome})`);
   const T = lpPlan.horizonWeeks;
-  const rc = new PlanRecompute(data, T);
+  const std = standardCosts(data);
+  const rc = new PlanRecompute(data, T, std);
   const batch = new Map(data.products.map((p) => [p.code, p.batchMultiple]));
   const lpMake = new Map<string, number[]>(data.products.map((p) => [p.code, new Array<number>(T).fill(0)]));
   const d: PlanDecisions = { make: new Map(), sell: new Map(), buy: new Map() };
@@ -64,19 +65,34 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
   }
   for (const m of data.materials) d.buy.set(m.code, new Array<number>(T).fill(0));
   for (const l of lpPlan.materials) d.buy.get(l.material)![l.week - 1] = l.buy;
+  // from here on every change of make goes through setMake, which keeps rc's sums up to date
+  rc.track(d);
+  const setMake = (product: string, week: number, qty: number) => {
+    d.make.get(product)![week - 1] = qty;
+    rc.makeChanged(product, week);
+  };
 
   const demand = rc.demand;
   /** first week in which a product's backlog grows by more than its ordinary firm orders */
   const balanceBreak = (product: string): { week: number; excess: number } | null => {
     const dem = demand.get(product)!;
+    const late = rc.lateByWeek(product, d);
     let latePrev = 0;
-    for (const l of rc.productLines(product, d)) {
-      const excess = l.late - latePrev - (dem.firm[l.week - 1] - dem.mustShip[l.week - 1]);
-      if (excess > EPS) return { week: l.week, excess };
-      latePrev = l.late;
+    for (let t = 1; t <= T; t++) {
+      const excess = late[t - 1] - latePrev - (dem.firm[t - 1] - dem.mustShip[t - 1]);
+      if (excess > EPS) return { week: t, excess };
+      latePrev = late[t - 1];
     }
     return null;
   };
+  /** products that use a product as a component, in bill-of-materials order */
+  const parentsOf = new Map<string, string[]>();
+  for (const b of data.bom) {
+    if (b.componentProduct === undefined) continue;
+    const list = parentsOf.get(b.componentProduct);
+    if (list) list.push(b.parent);
+    else parentsOf.set(b.componentProduct, [b.parent]);
+  }
 
   // 2. sub-assembly shortages: take batches off parents, deepest items first
   const llc = lowLevelCodes(
@@ -86,71 +102,69 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
   const byDepth = [...data.products].sort((a, b) => llc.get(b.code)! - llc.get(a.code)!);
   let batchesRemoved = 0;
   for (const p of byDepth) {
-    if (!data.bom.some((b) => b.componentProduct === p.code)) continue;
+    if (!parentsOf.has(p.code)) continue;
     for (let guard = 0; guard < 10_000; guard++) {
       const br = balanceBreak(p.code);
       if (!br) break;
-      const parents = data.bom
-        .filter((b) => b.componentProduct === p.code)
-        .map((b) => b.parent)
+      const parents = parentsOf
+        .get(p.code)!
         .filter((q) => d.make.get(q)![br.week - 1] > EPS)
         .sort((a, b) => d.make.get(b)![br.week - 1] - d.make.get(a)![br.week - 1]);
       if (parents.length === 0) break;
       const q = parents[0];
-      d.make.get(q)![br.week - 1] = Math.max(0, d.make.get(q)![br.week - 1] - (batch.get(q) ?? 1));
+      setMake(q, br.week, Math.max(0, d.make.get(q)![br.week - 1] - (batch.get(q) ?? 1)));
       batchesRemoved++;
     }
   }
 
   // 3. add batches back where everything still holds and the margin improves
-  const affected = (product: string) => {
+  type Affected = { products: string[]; materials: string[]; workCenters: string[] };
+  const affectedMemo = new Map<string, Affected>();
+  /** a product and everything below it in the bill of materials (fixed data: worked out once per product) */
+  const affected = (product: string): Affected => {
+    const known = affectedMemo.get(product);
+    if (known) return known;
     const products = [product, ...bomDescendants(data.bom, product).products];
-    return {
+    const a = {
       products,
       materials: [...new Set(products.flatMap((p) => rc.materialsOf(p)))],
       workCenters: [...new Set(products.flatMap((p) => rc.workCentersOf(p)))],
     };
+    affectedMemo.set(product, a);
+    return a;
   };
-  const std = standardCosts(data);
-  const localMargin = (a: ReturnType<typeof affected>, week: number) =>
-    planMargin(
-      data,
-      T,
-      {
-        products: a.products.flatMap((p) => rc.productLines(p, d)),
-        workCenters: a.workCenters.map((w) => rc.workCenterLine(w, week, d)),
-        materials: a.materials.flatMap((m) => rc.materialLines(m, d)),
-      },
-      std,
-    ).margin;
-  const fits = (a: ReturnType<typeof affected>, week: number) =>
+  const localMargin = (a: Affected, week: number) => rc.partialMargin(a.products, a.workCenters, week, a.materials, d);
+  const fits = (a: Affected, week: number) =>
     a.workCenters.every((w) => rc.loadHours(w, week, d) <= rc.maxHours(w, week) * (1 + 1e-9) + EPS) &&
-    a.materials.every((m) => rc.materialLines(m, d).every((l) => l.stock >= -EPS)) &&
+    a.materials.every((m) => rc.materialStock(m, d).every((stock) => stock >= -EPS)) &&
     a.products.slice(1).every((c) => balanceBreak(c) === null);
   /**
    * one more batch of a product in a week, plus the batches of its sub-assemblies (all levels)
    * that the same week then needs; returns what was added so it can be taken back
    */
+  const componentSets = new Map(data.products.map((p) => [p.code, [...new Set(rc.componentsOf(p.code))]]));
+  const materialSets = new Map(data.products.map((p) => [p.code, [...new Set(rc.materialsOf(p.code))]]));
   const addWithComponents = (product: string, week: number): Change[] => {
     const b = batch.get(product) ?? 1;
-    d.make.get(product)![week - 1] += b;
+    setMake(product, week, d.make.get(product)![week - 1] + b);
     const added: Change[] = [{ kind: 'make', item: product, week, qty: b }];
-    for (const c of new Set(rc.componentsOf(product))) {
+    for (const c of componentSets.get(product)!) {
       for (let guard = 0; guard < 1000 && balanceBreak(c) !== null; guard++) added.push(...addWithComponents(c, week));
     }
-    for (const m of new Set(rc.materialsOf(product))) added.push(...buyFor(m));
+    for (const m of materialSets.get(product)!) added.push(...buyFor(m));
     return added;
   };
   /** buy more of a material, as late as its lead time and supply cap allow, until no week runs short */
   const buyFor = (material: string): Change[] => {
-    const m = data.materials.find((x) => x.code === material)!;
+    const m = rc.material(material);
     const buys = d.buy.get(material)!;
     const out: Change[] = [];
     for (;;) {
-      const short = rc.materialLines(material, d).find((l) => l.stock < -EPS);
-      if (!short) return out;
-      let need = -short.stock;
-      for (let r = short.week - m.leadTimeWeeks; r >= 1 && need > EPS; r--) {
+      const stock = rc.materialStock(material, d);
+      const shortIndex = stock.findIndex((s) => s < -EPS);
+      if (shortIndex < 0) return out;
+      let need = -stock[shortIndex];
+      for (let r = shortIndex + 1 - m.leadTimeWeeks; r >= 1 && need > EPS; r--) {
         const cap = supplyCap(m, r);
         const room = cap === null ? need : Math.max(0, cap - buys[r - 1]);
         const q = Math.min(room, need);
@@ -163,8 +177,17 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
     }
   };
   const undoChanges = (changes: Change[]) => {
-    for (const c of changes) (c.kind === 'make' ? d.make : d.buy).get(c.item)![c.week - 1] -= c.qty;
+    for (const c of changes) {
+      if (c.kind === 'make') setMake(c.item, c.week, d.make.get(c.item)![c.week - 1] - c.qty);
+      else d.buy.get(c.item)![c.week - 1] -= c.qty;
+    }
   };
+  const lpLinesOf = new Map<string, ProductWeekLine[]>();
+  for (const l of lpPlan.products) {
+    const list = lpLinesOf.get(l.product);
+    if (list) list.push(l);
+    else lpLinesOf.set(l.product, [l]);
+  }
   let batchesAdded = 0;
   for (let pass = 0; pass < 5; pass++) {
     // where rounding took units away, and — for products now short of orders — every week up to
@@ -172,7 +195,7 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
     const candidates: { product: string; week: number; loss: number }[] = [];
     for (const p of data.products) {
       const lines = rc.productLines(p.code, d);
-      const lpLines = lpPlan.products.filter((l) => l.product === p.code);
+      const lpLines = lpLinesOf.get(p.code) ?? [];
       const worse = (l: ProductWeekLine) => {
         const o = lpLines[l.week - 1];
         return o !== undefined && (l.late > o.late + EPS || l.shipForecast < Math.floor(o.shipForecast + 1e-6) - EPS);
@@ -197,7 +220,6 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
       if (ok && (better || repairs)) added += undo.filter((u) => u.kind === 'make').length;
       else undoChanges(undo);
     }
-    batchesAdded += added;
     if (added === 0) break;
   }
 
@@ -206,8 +228,8 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
     const buys = d.buy.get(m.code)!;
     for (let r = T; r >= 1; r--) {
       if (buys[r - 1] <= EPS) continue;
-      const lines = rc.materialLines(m.code, d);
-      const slack = Math.min(...lines.filter((l) => l.week >= r + m.leadTimeWeeks).map((l) => l.stock));
+      const stock = rc.materialStock(m.code, d);
+      const slack = Math.min(...stock.filter((_, i) => i + 1 >= r + m.leadTimeWeeks));
       if (slack > EPS) buys[r - 1] -= Math.min(buys[r - 1], slack);
     }
   }
