@@ -50,6 +50,12 @@ export const sheetJobSchema = z.object({
   overtime: z.boolean(),
   /** continues a job begun in an earlier shift (no new setup) */
   continued: z.boolean(),
+  /**
+   * start date of the plan week whose production this is, when the job was carried over from an
+   * earlier week the floor could not finish it in (it runs ahead of the week's own work); null
+   * for the week's own work
+   */
+  carriedFromWeek: isoDateSchema.nullable(),
   /** start date of the week of the earliest firm order this production serves, null if none */
   dueWeek: isoDateSchema.nullable(),
   orderRefs: z.array(z.string()),
@@ -128,9 +134,13 @@ export const crewCautionSchema = z.object({
 });
 export type CrewCaution = z.infer<typeof crewCautionSchema>;
 
-/** Work the week's open time could not hold, listed openly (never dropped). */
+/**
+ * Work still open after the plan's last week (shown with that week), listed openly with its
+ * reason, never dropped; `planWeek` is the start date of the plan week it belongs to.
+ */
 export const unscheduledWorkSchema = z.object({
   workCenter: z.string(),
+  planWeek: isoDateSchema,
   product: z.string(),
   operation: z.number().int(),
   quantity: z.number(),
@@ -138,6 +148,24 @@ export const unscheduledWorkSchema = z.object({
   reason: z.string(),
 });
 export type UnscheduledWorkLine = z.infer<typeof unscheduledWorkSchema>;
+
+/**
+ * Work the week could not finish (its open time was used up, or the previous operation finished
+ * late), carried over into the next week's first open time, ahead of that week's own work.
+ * `planWeek` is the start date of the plan week it belongs to.
+ */
+export const carriedWorkSchema = z.object({
+  workCenter: z.string(),
+  planWeek: isoDateSchema,
+  /** start date of the week it continues in */
+  intoWeek: isoDateSchema,
+  product: z.string(),
+  operation: z.number().int(),
+  quantity: z.number(),
+  hours: z.number(),
+  reason: z.string(),
+});
+export type CarriedWorkLine = z.infer<typeof carriedWorkSchema>;
 
 /** The line every sheet view carries beside working-time figures (DOMAIN.md §5). */
 export const sheetLabourLawNote =
@@ -171,6 +199,8 @@ export const shiftSheetsWeekSchema = z.object({
   workCenters: z.array(sheetWorkCenterSchema),
   cautions: z.array(crewCautionSchema),
   unscheduled: z.array(unscheduledWorkSchema),
+  /** what this week hands on to the next (its jobs there are marked as carried over) */
+  carriedOver: z.array(carriedWorkSchema),
   /** work-center shifts with work in the week (= pages of the printed week) */
   sheetCount: z.number().int(),
 });

@@ -18,7 +18,8 @@ export interface ShiftSheetsRequest {
 
 /**
  * One week of shift sheets of a plan version, as the floor works from it: assert the plan exists
- * and may be read (approved or released; floor leads released only), find the week in the plan,
+ * and may be read (approved or released; floor leads released only), find the week in the plan
+ * (its sheets continue from the plan's first week: what earlier weeks could not finish runs first),
  * refuse sheets for work centers deleted since the plan was built, let plan-model sequence the
  * week (its bad input — a loaded work center with no open shift, a routing step without its
  * work center — comes back as 422 naming each item), then add the header data and keep a
@@ -54,9 +55,12 @@ export async function getShiftSheets(db: EntityManager, req: ShiftSheetsRequest)
   return scopeSheetsWeek(whole, await workCenterScopeOf(db, req.reader));
 }
 
-/** Products made in the week whose routing sends them to a work center the plant no longer has. */
+/**
+ * Products made in the week, or in an earlier week whose unfinished work the week carries on,
+ * whose routing sends them to a work center the plant no longer has.
+ */
 function assertWorkCentersStillExist(planId: number, data: PlanningData, modelPlan: Plan, week: HorizonWeek, existing: Set<string>): void {
-  const made = new Set(modelPlan.products.filter((l) => l.week === week.index && l.make > 1e-9).map((l) => l.product));
+  const made = new Set(modelPlan.products.filter((l) => l.week <= week.index && l.make > 1e-9).map((l) => l.product));
   const issues: DataIssue[] = data.routings
     .filter((r) => made.has(r.product) && !existing.has(r.workCenter))
     .map((r) => ({
@@ -73,9 +77,13 @@ function sequenceWeek(planId: number, data: PlanningData, modelPlan: Plan, week:
     return buildShiftSheets(data, modelPlan, { weeks: [week] });
   } catch (err) {
     if (err instanceof ShiftSheetError) {
-      // plan-model numbers weeks within the plan; the floor knows them by their dates
-      const start = data.weeks.find((w) => w.index === week)!.startDate;
-      const dated = (text: string) => text.replace(new RegExp(`\\bin week ${week}\\b`, 'g'), `in the week starting ${start}`).replace(new RegExp(`\\bweek ${week}\\b`, 'g'), `week starting ${start}`);
+      // plan-model numbers weeks within the plan; the floor knows them by their dates (the
+      // sheets of a week are built from the plan's first week on, so any earlier week may be named)
+      const startOf = (n: string) => data.weeks.find((w) => w.index === Number(n))?.startDate;
+      const dated = (text: string) =>
+        text
+          .replace(/\bin week (\d+)\b/g, (all, n: string) => (startOf(n) ? `in the week starting ${startOf(n)}` : all))
+          .replace(/\bweek (\d+)\b/g, (all, n: string) => (startOf(n) ? `week starting ${startOf(n)}` : all));
       const issues = err.issues.map((i) => ({ item: dated(i.item).replace(/ week starting/, ', week starting'), message: dated(i.message) }));
       throw AppError.unprocessable(`The shift sheets of plan version ${planId} cannot be built: ${issues.map((i) => i.message).join('; ')}.`, issues);
     }

@@ -33,6 +33,8 @@ export function toSheetsWeek(parts: SheetsWeekParts): ShiftSheetsWeek {
   const weekStart = data.weeks.find((w) => w.index === weekIndex)!.startDate;
   const weekDate = (index: number | null) => (index === null ? null : (data.weeks.find((w) => w.index === index)?.startDate ?? null));
   const wcName = new Map(data.workCenters.map((w) => [w.code, w.name]));
+  // plan-model numbers weeks within the plan; the floor knows them by their dates
+  const datedWeeks = (text: string) => text.replace(/\bweek (\d+)\b/g, (all, n: string) => (weekDate(Number(n)) ? `week of ${weekDate(Number(n))}` : all));
 
   const workCenters: SheetWorkCenter[] = data.workCenters.map((wc) => {
     const overtime = modelPlan.workCenters.find((l) => l.workCenter === wc.code && l.week === weekIndex)?.overtimeHours ?? 0;
@@ -66,6 +68,7 @@ export function toSheetsWeek(parts: SheetsWeekParts): ShiftSheetsWeek {
           setupMinutes: j.setupMinutes,
           overtime: j.overtime,
           continued: j.continued,
+          carriedFromWeek: weekDate(j.carriedFromWeek),
           dueWeek: weekDate(j.dueWeek),
           orderRefs: j.orderRefs,
           previousWorkCenter: j.previousWorkCenter,
@@ -105,9 +108,15 @@ export function toSheetsWeek(parts: SheetsWeekParts): ShiftSheetsWeek {
     workCenterScope: 'all',
     workCenters,
     cautions,
-    unscheduled: result.unscheduled
-      .filter((u) => u.week === weekIndex)
-      .map((u) => ({ workCenter: u.workCenter, product: u.product, operation: u.operation, quantity: u.quantity, hours: u.hours, reason: u.reason })),
+    // open after the plan's last week (plan-model lists it only when this is the last week)
+    unscheduled: result.unscheduled.map((u) => ({
+      workCenter: u.workCenter, planWeek: weekDate(u.week)!, product: u.product, operation: u.operation, quantity: u.quantity, hours: u.hours, reason: datedWeeks(u.reason),
+    })),
+    carriedOver: result.carriedOver
+      .filter((c) => c.outOfWeek === weekIndex)
+      .map((c) => ({
+        workCenter: c.workCenter, planWeek: weekDate(c.fromWeek)!, intoWeek: addDays(weekStart, 7), product: c.product, operation: c.operation, quantity: c.quantity, hours: c.hours, reason: c.reason,
+      })),
     sheetCount: workCenters.reduce((a, w) => a + w.days.reduce((b, d) => b + d.shifts.length, 0), 0),
   };
 }

@@ -27,7 +27,7 @@ export async function workCenterScopeOf(db: EntityManager, reader: SheetReader):
 
 /**
  * A week of sheets cut to the scope: only the assigned work centers (matched by code with the
- * plan's snapshot), their cautions and their unscheduled work, with the sheet count to match.
+ * plan's snapshot), their cautions, their unscheduled and carried-over work, with the sheet count to match.
  * Sequencing happens before this on the whole plant, so a job's times do not depend on who reads.
  */
 export function scopeSheetsWeek(week: ShiftSheetsWeek, scope: WorkCenterScope): ShiftSheetsWeek {
@@ -40,6 +40,7 @@ export function scopeSheetsWeek(week: ShiftSheetsWeek, scope: WorkCenterScope): 
     workCenters,
     cautions: week.cautions.filter((c) => codes.has(c.workCenter)),
     unscheduled: week.unscheduled.filter((u) => codes.has(u.workCenter)),
+    carriedOver: week.carriedOver.filter((c) => codes.has(c.workCenter)),
     sheetCount: workCenters.reduce((a, w) => a + w.days.reduce((b, d) => b + d.shifts.length, 0), 0),
   };
 }

@@ -14,7 +14,7 @@ import { CrewCautions } from './components/crew-cautions';
 import { SheetChoices } from './components/sheet-choices';
 import { ShiftJobList } from './components/shift-job-list';
 import { WeekTimeline } from './components/week-timeline';
-import { formatMinutes, formatQuantityUnit, formatStamp, sheetPlanStateWords } from './sheet-words';
+import { formatMinutes, formatQuantityUnit, formatStamp, formatWeekOf, sheetPlanStateWords } from './sheet-words';
 
 const parseId = (raw: string | null): number | null => (raw && /^\d+$/.test(raw) && Number(raw) > 0 ? Number(raw) : null);
 
@@ -143,12 +143,28 @@ export function ShiftSheetsPage({ role }: { role: Role }) {
             <WeekTimeline week={data} highlight={workCenter} />
           </section>
 
+          {data.carriedOver.length > 0 ? (
+            <section aria-labelledby="carried-heading" className="rounded border border-dashed border-line bg-panel p-3 text-sm">
+              <h2 id="carried-heading" className="font-semibold">
+                Carried on to the week of {addDays(data.week.start, 7)}: {formatMinutes(data.carriedOver.reduce((a, c) => a + c.hours, 0) * 60)}
+              </h2>
+              <p className="text-ink-soft">Work this week cannot finish runs first in the next week’s open shifts, marked as carried over.</p>
+              <ul className="list-disc pl-5">
+                {data.carriedOver.map((c) => (
+                  <li key={`${c.workCenter}-${c.product}-${c.operation}-${c.planWeek}`}>
+                    {c.workCenter}: {c.product} operation {c.operation}, {formatQuantityUnit(c.quantity, 'units')} ({formatMinutes(c.hours * 60)}) of the {formatWeekOf(c.planWeek).replace('wk of', 'week of')} — {c.reason}.
+                  </li>
+                ))}
+              </ul>
+            </section>
+          ) : null}
+
           {data.unscheduled.length > 0 ? (
-            <Caution title="Work that does not fit this week’s open shifts">
+            <Caution title="Work still open after the plan’s last week">
               <ul className="list-disc pl-5">
                 {data.unscheduled.map((u) => (
-                  <li key={`${u.workCenter}-${u.product}-${u.operation}`}>
-                    {u.workCenter}: {u.product} operation {u.operation}, {formatQuantityUnit(u.quantity, 'units')} ({formatMinutes(u.hours * 60)}) — {u.reason}. Talk to the planner.
+                  <li key={`${u.workCenter}-${u.product}-${u.operation}-${u.planWeek}`}>
+                    {u.workCenter}: {u.product} operation {u.operation}, {formatQuantityUnit(u.quantity, 'units')} ({formatMinutes(u.hours * 60)}) of the {formatWeekOf(u.planWeek).replace('wk of', 'week of')} — {u.reason}. Talk to the planner.
                   </li>
                 ))}
               </ul>

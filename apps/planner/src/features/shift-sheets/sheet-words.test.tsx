@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatQuantityUnit, formatWeekOf } from './sheet-words';
+import { carriedFromWords, formatQuantityUnit, formatWeekOf } from './sheet-words';
 
 describe('sheet words', () => {
   // English number agreement: a unit spelt as a word is singular for exactly one and plural
@@ -21,5 +21,9 @@ describe('sheet words', () => {
   it('names a week by its first day in a few characters: 2026-11-30 is "wk of 30 Nov" (calendar fact)', () => {
     expect(formatWeekOf('2026-11-30')).toBe('wk of 30 Nov');
     expect(formatWeekOf('2027-01-04')).toBe('wk of 4 Jan');
+  });
+  it('names the plan week a carried-over job belongs to by its first day: 2026-03-02 is "week of 2 Mar" (calendar fact)', () => {
+    expect(carriedFromWords('2026-03-02')).toBe('carried over from week of 2 Mar');
+    expect(carriedFromWords('2026-12-28')).toBe('carried over from week of 28 Dec');
   });
 });

@@ -30,6 +30,13 @@ const weekOfFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: '
 /** A week by its first day, short enough for one line of a printed column: "2026-11-30" → "wk of 30 Nov". */
 export const formatWeekOf = (isoDate: string): string => `wk of ${weekOfFormat.format(new Date(`${isoDate}T00:00:00Z`))}`;
 
+const weekOfLongFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
+/** A job carried over from an earlier plan week, in plain words: "2026-03-02" → "carried over from week of 2 Mar". */
+export const carriedFromWords = (isoDate: string): string => `carried over from week of ${weekOfLongFormat.format(new Date(`${isoDate}T00:00:00Z`))}`;
+
+/** "carried over …" → "Carried over …" */
+export const upperFirst = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);
+
 const dayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 const shortDayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
 /** "2027-01-04" → "Monday 4 January 2027" */

@@ -15,7 +15,7 @@ const firstLoad = { timeout: 5000 };
 const job = (over: Partial<SheetJob>): SheetJob => ({
   sequence: 1, product: 'P-1', productName: 'Part one', family: null, operation: 10, quantity: 4, unit: 'pcs',
   setupStart: '2027-01-04T07:00', start: '2027-01-04T07:30', end: '2027-01-04T11:30', setupStartMinute: 420, startMinute: 450, endMinute: 690,
-  setupMinutes: 30, overtime: false, continued: false, dueWeek: '2027-01-04', orderRefs: ['SO-1'], previousWorkCenter: null,
+  setupMinutes: 30, overtime: false, continued: false, carriedFromWeek: null, dueWeek: '2027-01-04', orderRefs: ['SO-1'], previousWorkCenter: null,
   nextWorkCenter: 'W2', nextWorkCenterName: 'Second', materials: [{ item: 'M-1', name: 'Board', quantity: 8, unit: 'm2' }], ...over,
 });
 
@@ -49,6 +49,7 @@ const week: ShiftSheetsWeek = {
   ],
   cautions: [{ kind: 'weekly_hours', workCenter: 'W1', shift: 1, limit: 48, actual: 52, message: 'First, shift 1, week 1: the crew is planned for 52.0 h, above the 48 h weekly limit. Check local labour law and agreements.', source: 'EU Working Time Directive 2003/88/EC, Art. 6' }],
   unscheduled: [],
+  carriedOver: [],
   sheetCount: 2,
 };
 
@@ -82,6 +83,29 @@ describe('shift sheets for the floor', () => {
     expect(screen.getByRole('link', { name: 'Print W1' })).toHaveAttribute('href', '/print/shift-sheets/7?week=2027-01-04&workCenter=W1');
     expect(screen.queryAllByRole('textbox')).toHaveLength(0);
     expect(api.requests.find((r) => r.path === '/api/plans/7/shift-sheets')?.search).toBe('?week=2027-01-04');
+  });
+
+  it('when work of an earlier week is carried over, then the list, the timeline and the print view say so in plain words, and the page lists what goes on to next week and what stays open', async () => {
+    const carried = job({ carriedFromWeek: '2026-12-28', continued: true, setupMinutes: 0, setupStart: '2027-01-04T07:00', start: '2027-01-04T07:00', setupStartMinute: 420, startMinute: 420, materials: [] });
+    const withCarry: ShiftSheetsWeek = {
+      ...week,
+      workCenters: [{ ...week.workCenters[0], days: [{ date: '2027-01-04', weekday: 'monday', shifts: [sheet(0, [carried])] }] }, week.workCenters[1]],
+      carriedOver: [{ workCenter: 'W1', planWeek: '2027-01-04', intoWeek: '2027-01-11', product: 'P-3', operation: 20, quantity: 6, hours: 3, reason: 'no open shift time left in the week' }],
+      unscheduled: [{ workCenter: 'W2', planWeek: '2027-01-04', product: 'P-4', operation: 10, quantity: 2, hours: 1.5, reason: "no open shift time left by the end of the plan's last week (week of 2027-01-25)" }],
+      sheetCount: 1,
+    };
+    sheetsApi({ 'GET /api/plans/7/shift-sheets': () => json(withCarry) });
+    const view = renderApp('/shift-sheets?plan=7&week=2027-01-04');
+    const timeline = await screen.findByRole('figure', { name: 'Timeline of the week starting 2027-01-04' }, firstLoad);
+    expect(within(timeline).getByText('P-1').parentElement).toHaveTextContent('P-1 4 CO');
+    expect(within(timeline).getByText('P-1').parentElement).toHaveTextContent('carried over from week of 28 Dec');
+    const monday = screen.getByRole('table', { name: /W1, Monday, 4 January 2027/ });
+    expect(within(monday).getAllByRole('row')[1]).toHaveTextContent('Carried over from week of 28 Dec');
+    expect(screen.getByRole('region', { name: /Carried on to the week of 2027-01-11/ })).toHaveTextContent('W1: P-3 operation 20, 6 units (3 h) of the week of 4 Jan — no open shift time left in the week.');
+    expect(screen.getByRole('note', { name: /Work still open after the plan’s last week/ })).toHaveTextContent('W2: P-4 operation 10, 2 units (1 h 30 min)');
+    view.unmount();
+    renderApp('/print/shift-sheets/7?week=2027-01-04&workCenter=W1');
+    expect(await screen.findByRole('region', { name: 'Sheet 1 of 1: W1, 2027-01-04, shift 1' }, firstLoad)).toHaveTextContent('Carried over from week of 28 Dec');
   });
 
   it('when the plan is not released, then the API’s reason is shown in words', async () => {

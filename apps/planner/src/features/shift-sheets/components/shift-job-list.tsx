@@ -1,10 +1,11 @@
 import type { SheetJob, SheetWorkCenter, ShiftSheet } from '@millrace/contracts';
-import { clockOf, formatDay, formatMinutes, formatQuantityUnit, formatWeekOf, shiftLabel } from '../sheet-words';
+import { carriedFromWords, clockOf, upperFirst, formatDay, formatMinutes, formatQuantityUnit, formatWeekOf, shiftLabel } from '../sheet-words';
 
-/** Notes of a job in words: overtime, continuation, orders and due week. */
+/** Notes of a job in words: overtime, carried over from an earlier week, continuation, orders and due week. */
 export function jobNotes(j: SheetJob): string[] {
   const notes: string[] = [];
   if (j.overtime) notes.push('Overtime');
+  if (j.carriedFromWeek) notes.push(upperFirst(carriedFromWords(j.carriedFromWeek)));
   if (j.continued) notes.push('Continued from the previous shift');
   if (j.orderRefs.length > 0) notes.push(`Orders ${j.orderRefs.join(', ')}`);
   if (j.dueWeek) notes.push(`Due ${formatWeekOf(j.dueWeek)}`);
@@ -59,7 +60,7 @@ function ShiftTable({ sheet }: { sheet: ShiftSheet }) {
               <td className="px-2 py-1">{j.nextWorkCenter ? `${j.nextWorkCenter} ${j.nextWorkCenterName ?? ''}` : 'Finished'}</td>
               <td className="px-2 py-1">
                 {jobNotes(j).map((n) => (
-                  <span key={n} className={`mr-1 inline-block ${n === 'Overtime' ? 'rounded border border-over-700 px-1 font-semibold text-over-700' : ''}`}>
+                  <span key={n} className={`mr-1 inline-block ${n === 'Overtime' ? 'rounded border border-over-700 px-1 font-semibold text-over-700' : n.startsWith('Carried over') ? 'rounded border border-dashed border-ink px-1 font-semibold' : ''}`}>
                     {n === 'Overtime' ? '⏱ Overtime' : n}
                   </span>
                 ))}

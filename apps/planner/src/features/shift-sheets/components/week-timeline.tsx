@@ -1,7 +1,7 @@
 import type { CSSProperties } from 'react';
 import type { ShiftSheetsWeek } from '@millrace/contracts';
 import { addDays } from '@millrace/contracts';
-import { formatMinutes, formatQuantity, formatQuantityUnit, formatShortDay } from '../sheet-words';
+import { carriedFromWords, formatMinutes, formatQuantity, formatQuantityUnit, formatShortDay } from '../sheet-words';
 
 /** Open time closer than this joins one stretch of the axis (minutes; common practice, no source). */
 const joinGapMinutes = 60;
@@ -123,18 +123,19 @@ export function WeekTimeline({ week, highlight }: { week: ShiftSheetsWeek; highl
                     const at = place(j.setupStartMinute, j.endMinute);
                     if (!at) return null;
                     const setupShare = j.endMinute > j.setupStartMinute ? ((j.startMinute - j.setupStartMinute) / (j.endMinute - j.setupStartMinute)) * 100 : 0;
-                    const title = `${j.product} ${j.productName}, operation ${j.operation}: ${formatQuantityUnit(j.quantity, j.unit)}, ${j.setupStart.slice(11)}–${j.end.slice(11)}${j.setupMinutes > 0 ? `, setup ${formatMinutes(j.setupMinutes)}` : ''}${j.overtime ? ', runs into overtime' : ''}`;
+                    const title = `${j.product} ${j.productName}, operation ${j.operation}: ${formatQuantityUnit(j.quantity, j.unit)}, ${j.setupStart.slice(11)}–${j.end.slice(11)}${j.setupMinutes > 0 ? `, setup ${formatMinutes(j.setupMinutes)}` : ''}${j.overtime ? ', runs into overtime' : ''}${j.carriedFromWeek ? `, ${carriedFromWords(j.carriedFromWeek)}` : ''}`;
                     return (
                       <span
                         key={`${j.product}-${j.operation}-${j.startMinute}`}
                         title={title}
-                        className={`absolute top-2 bottom-2 overflow-hidden rounded-sm border px-0.5 text-[11px] leading-tight whitespace-nowrap ${j.overtime ? 'border-over-700 bg-over-200 text-ink' : 'border-race-800 bg-race-600 text-white'}`}
+                        className={`absolute top-2 bottom-2 overflow-hidden rounded-sm border px-0.5 text-[11px] leading-tight whitespace-nowrap ${j.overtime ? 'border-over-700 bg-over-200 text-ink' : 'border-race-800 bg-race-600 text-white'} ${j.carriedFromWeek ? 'border-2 border-dashed' : ''}`}
                         style={{ left: `${at.left}%`, width: `${at.width}%`, ...(j.overtime ? overtimeHatch : {}) }}
                       >
                         {setupShare > 0 ? <span aria-hidden="true" className="absolute inset-y-0 left-0" style={{ width: `${setupShare}%`, ...setupHatch }} /> : null}
                         <span className="relative font-semibold">{j.product}</span>
                         <span className="relative"> {formatQuantity(j.quantity)}</span>
                         {j.overtime ? <span className="relative font-semibold"> OT</span> : null}
+                        {j.carriedFromWeek ? <span className="relative font-semibold"> CO</span> : null}
                         <span className="sr-only">{title}</span>
                       </span>
                     );
@@ -153,6 +154,9 @@ export function WeekTimeline({ week, highlight }: { week: ShiftSheetsWeek; highl
           </span>
           <span>
             <span className="mr-1 inline-block h-3 w-5 rounded-sm border border-over-700 bg-over-200 align-middle" style={overtimeHatch} /> overtime, marked OT
+          </span>
+          <span>
+            <span className="mr-1 inline-block h-3 w-5 rounded-sm border-2 border-dashed border-race-800 bg-race-600 align-middle" /> carried over from an earlier week, marked CO
           </span>
           <span>
             <span className="mr-1 inline-block h-3 w-5 rounded-sm bg-race-50 ring-1 ring-race-100 align-middle" /> open shift

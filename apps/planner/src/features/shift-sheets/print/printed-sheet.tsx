@@ -1,5 +1,5 @@
 import type { CrewCaution, ShiftSheet, ShiftSheetsWeek } from '@millrace/contracts';
-import { clockOf, formatDay, formatMinutes, formatQuantityUnit, formatStamp, formatWeekOf } from '../sheet-words';
+import { carriedFromWords, clockOf, formatDay, formatMinutes, formatQuantityUnit, formatStamp, formatWeekOf, upperFirst } from '../sheet-words';
 
 const cell = 'border border-black px-1 py-0.5 align-top';
 const blank = `${cell} h-9`;
@@ -101,6 +101,7 @@ export function PrintedSheet({
                 <span className="font-semibold">{j.product}</span> {j.productName}
                 {j.overtime ? <span className="ml-1 border border-black px-0.5 font-semibold">OVERTIME</span> : null}
                 {j.continued ? <span className="ml-1 italic">(continued)</span> : null}
+                {j.carriedFromWeek ? <span className="block font-semibold">{upperFirst(carriedFromWords(j.carriedFromWeek))}</span> : null}
                 {j.materials.length > 0 ? <span className="block">Issue: {j.materials.map((m) => `${formatQuantityUnit(m.quantity, m.unit)} ${m.item}`).join('; ')}</span> : null}
               </td>
               <td className={cell}>{j.operation}</td>
