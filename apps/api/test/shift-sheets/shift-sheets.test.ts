@@ -152,21 +152,27 @@ describe('the sheets of an approved plan', () => {
     expect(weeks.reduce((a, w) => a + w.sheetCount, 0)).toBe(sheets);
   });
 
-  it('when the quantities of each product and routing step are added up over the week, then they equal what the plan makes that week', () => {
+  it('when the quantities of each product and routing step of a plan week are added up over its week and the weeks its unfinished work is carried into, then they equal what the plan makes that week', () => {
     const steps: Record<string, number[]> = { TOP: [10], TBL: [10, 20], BEN: [10, 20] };
-    for (const w of weeks) {
+    const all = weeks.flatMap((w) => w.workCenters.flatMap((c) => c.days.flatMap((d) => d.shifts.flatMap((s) => s.jobs.map((j) => ({ ...j, sheetWeek: w.week.start }))))));
+    // carried work is marked with the earlier plan week it belongs to
+    for (const j of all) if (j.carriedFromWeek !== null) expect(j.carriedFromWeek < j.sheetWeek).toBe(true);
+    const unscheduled = weeks.flatMap((w) => w.unscheduled);
+    for (const planWeek of WEEKS) {
       for (const [product, ops] of Object.entries(steps)) {
-        const make = lines.find((l) => l.product === product && l.weekStart === w.week.start)?.make ?? 0;
+        const make = lines.find((l) => l.product === product && l.weekStart === planWeek)?.make ?? 0;
         for (const op of ops) {
-          const onSheets = w.workCenters.flatMap((c) => c.days.flatMap((d) => d.shifts.flatMap((s) => s.jobs))).filter((j) => j.product === product && j.operation === op).reduce((a, j) => a + j.quantity, 0);
-          const unscheduled = w.unscheduled.filter((u) => u.product === product && u.operation === op).reduce((a, u) => a + u.quantity, 0);
-          expect(onSheets + unscheduled).toBeCloseTo(make, 6);
+          const onSheets = all.filter((j) => (j.carriedFromWeek ?? j.sheetWeek) === planWeek && j.product === product && j.operation === op).reduce((a, j) => a + j.quantity, 0);
+          const open = unscheduled.filter((u) => u.planWeek === planWeek && u.product === product && u.operation === op).reduce((a, u) => a + u.quantity, 0);
+          expect(onSheets + open).toBeCloseTo(make, 6);
         }
       }
     }
+    // only the plan's last week lists work still open
+    for (const w of weeks.slice(0, -1)) expect(w.unscheduled).toEqual([]);
   });
 
-  it('when a product has a later routing step, then each transfer batch of that step starts after the earlier step has finished it, and the sheet names the next work center', () => {
+  it('when a product has a later routing step, then each transfer batch of that step starts after the earlier step has finished it, across week boundaries too, and the sheet names the next work center', () => {
     // default transfer batch: a quarter of the week's quantity, whole units (plan-model's documented default)
     const share = DEFAULT_SHIFT_SHEET_SETTINGS.transferBatchShare;
     type Job = { quantity: number; start: string; end: string; setupStart: string };
@@ -195,9 +201,11 @@ describe('the sheets of an approved plan', () => {
         before += j.quantity;
       }
     };
-    for (const w of weeks) {
-      const jobs = w.workCenters.flatMap((c) => c.days.flatMap((d) => d.shifts.flatMap((s) => s.jobs.map((j) => ({ ...j, wc: c.code })))));
-      const makeOf = (product: string) => lines.find((l) => l.product === product && l.weekStart === w.week.start)?.make ?? 0;
+    // a plan week's jobs, wherever they ran (its own week and the weeks its unfinished work is carried into)
+    const all = weeks.flatMap((w) => w.workCenters.flatMap((c) => c.days.flatMap((d) => d.shifts.flatMap((s) => s.jobs.map((j) => ({ ...j, wc: c.code, planWeek: j.carriedFromWeek ?? w.week.start }))))));
+    for (const planWeek of WEEKS) {
+      const jobs = all.filter((j) => j.planWeek === planWeek);
+      const makeOf = (product: string) => lines.find((l) => l.product === product && l.weekStart === planWeek)?.make ?? 0;
       for (const product of ['TBL', 'BEN']) {
         const first = jobs.filter((j) => j.product === product && j.operation === 10);
         const second = jobs.filter((j) => j.product === product && j.operation === 20);
@@ -208,7 +216,7 @@ describe('the sheets of an approved plan', () => {
       // the table top (a sub-assembly of the table) is cut batch by batch ahead of the table's own saw step
       const tops = jobs.filter((j) => j.product === 'TOP');
       const tables = jobs.filter((j) => j.product === 'TBL' && j.operation === 10);
-      if (tops.length && tables.length) expectBatches(tops, tables, makeOf('TBL'), tops.reduce((a, j) => a + j.quantity, 0) / makeOf('TBL'));
+      if (tops.length && tables.length) expectBatches(tops, tables, makeOf('TBL'), makeOf('TOP') / makeOf('TBL'));
     }
   });
 
