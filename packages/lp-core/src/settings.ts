@@ -46,6 +46,8 @@ export interface IpmSettings {
   maxFactorMegabytes: number;
   /** fill-reducing ordering: 'auto' tries AMD and nested dissection and keeps the cheaper factorisation */
   ordering: 'auto' | 'amd' | 'nd' | 'natural';
+  /** factorise big normal-equations matrices on two threads (a helper worker thread) when the machine has two cores */
+  parallelFactorisation: boolean;
   /** called after every iteration (progress bars) */
   onIteration?: (info: IterationInfo) => void;
   /** polled once per iteration; returning true ends the solve with status 'cancelled' */
@@ -74,6 +76,7 @@ export const defaultIpmSettings: Readonly<IpmSettings> = Object.freeze({
   refinementSteps: 3,
   maxFactorMegabytes: 1536,
   ordering: 'auto',
+  parallelFactorisation: true,
 });
 
 /** Merges with the defaults and checks every field; throws one Error listing what is wrong. */
@@ -103,7 +106,7 @@ export function resolveSettings(partial: Partial<IpmSettings> = {}): IpmSettings
   if (typeof s.timeLimitSeconds !== 'number' || !(s.timeLimitSeconds > 0)) {
     problems.push(`timeLimitSeconds must be a positive number or Infinity, got ${String(s.timeLimitSeconds)}`);
   }
-  for (const k of ['presolve', 'scaling'] as const) {
+  for (const k of ['presolve', 'scaling', 'parallelFactorisation'] as const) {
     if (typeof s[k] !== 'boolean') problems.push(`${k} must be true or false, got ${String(s[k])}`);
   }
   if (!['auto', 'amd', 'nd', 'natural'].includes(s.ordering)) problems.push(`ordering must be "auto", "amd", "nd" or "natural", got ${String(s.ordering)}`);

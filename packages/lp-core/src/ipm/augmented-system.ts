@@ -51,7 +51,7 @@ export class AugmentedSystem implements KktSolver {
       rows.push(n + i);
       cols.push(n + i);
     }
-    this.F = new SymmetricFactorisation(n + m, Int32Array.from(rows), Int32Array.from(cols), settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8);
+    this.F = new SymmetricFactorisation(n + m, Int32Array.from(rows), Int32Array.from(cols), settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8, settings.parallelFactorisation);
     this.sign = new Int8Array(n + m);
     for (let k = 0; k < n + m; k++) this.sign[k] = this.F.perm[k] < n ? -1 : 1;
     this.thetaW = new Float64Array(m);

@@ -70,7 +70,7 @@ export class NormalEquations implements KktSolver {
       cols[t] = i;
       t++;
     }
-    this.F = new SymmetricFactorisation(m, rows, cols, settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8);
+    this.F = new SymmetricFactorisation(m, rows, cols, settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8, settings.parallelFactorisation);
     this.dense = denseCols.length > 0 ? new DenseColumnUpdate(m, A, Int32Array.from(denseCols)) : null;
     this.qdiag = qDiagonal(n, prob.Q);
     this.thetaX = new Float64Array(n);

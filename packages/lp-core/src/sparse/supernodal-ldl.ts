@@ -1,283 +1,129 @@
 /**
- * Left-looking supernodal LDLᵀ factorisation (Ng & Peyton, "Block sparse Cholesky algorithms on
- * advanced uniprocessor computers", SIAM J. Sci. Comput. 14, 1993), into the dense blocks laid
- * out by supernodal-symbolic.ts. For each supernode s in order:
- *   1. assemble the columns of s from the lower triangle of C;
- *   2. subtract L_d D_d L_dᵀ restricted to s from every earlier supernode d with rows inside s
- *      (d waits in a linked list headed by the supernode of its next unused row);
- *   3. factorise the dense trapezoidal block: L D Lᵀ of its diagonal part, then the rows below.
- * Pivots are checked as in ldl.ts (relative to the assembled diagonal, optional signs, dynamic
- * regularisation). All work arrays are allocated once in the constructor.
+ * Supernodal LDLᵀ factorisation into the dense blocks laid out by supernodal-symbolic.ts; the
+ * numeric kernel is supernodal-kernel.ts. A factorisation big enough to gain from it runs on two
+ * threads: the elimination tree is split into two halves of nearly equal work
+ * (subtree-split.ts), one half runs in a helper thread (factor-helper-thread.ts) while this
+ * thread does the other, then this thread finishes the supernodes above both. All arrays are
+ * allocated once in the constructor (in shared memory when a helper is used).
  */
-import type { FactorOptions, FactorReport } from './ldl';
+import { HelperLink } from './factor-helper-thread';
+import type { FactorOptions, FactorReport, FactorStatus } from './ldl';
+import { splitSubtrees, type SubtreeSplit } from './subtree-split';
+import { factorSupernodes, type KernelOptions, type KernelShared, type KernelWork } from './supernodal-kernel';
 import type { SupernodalSymbolic } from './supernodal-symbolic';
 
-/** columns per panel of the dense block factorisation */
-const PANEL = 32;
+/** factorisations with fewer multiply–adds stay on one thread (the hand-over costs ~0.1 ms) */
+const PARALLEL_MIN_FLOPS = 2e7;
+
+const STATUS: FactorStatus[] = ['factorised', 'zero_pivot', 'not_finite', 'interrupted'];
 
 export class SupernodalLdl {
   readonly Lx: Float64Array;
   readonly D: Float64Array;
-  private readonly relmap: Int32Array;
+  private readonly S: KernelShared;
+  private readonly W: KernelWork;
   private readonly tmp: Float64Array;
-  private readonly tmp2: Float64Array;
-  private readonly rel: Int32Array;
-  private readonly head: Int32Array;
-  private readonly next: Int32Array;
-  private readonly nextRow: Int32Array;
-  private readonly diag: Float64Array;
+  private readonly whole: Int32Array;
+  private readonly out = new Int32Array(4);
+  private readonly deferred: Int32Array;
+  private readonly split: SubtreeSplit | null;
+  private readonly helper: HelperLink | null;
 
-  constructor(private readonly sym: SupernodalSymbolic) {
-    this.Lx = new Float64Array(sym.nnzL);
-    this.D = new Float64Array(sym.n);
-    this.relmap = new Int32Array(sym.n);
+  /**
+   * Lp/Li/Ax: the lower triangle (rows ≥ column) of the permuted matrix in CSC form; Ax is read
+   * at every factorise() (write new values into it in between). parallel: allow a helper thread.
+   */
+  constructor(
+    private readonly sym: SupernodalSymbolic,
+    Lp: Int32Array,
+    Li: Int32Array,
+    Ax: Float64Array,
+    parallel = false,
+  ) {
+    const { n, count, rowPtr } = sym;
     let maxRows = 0;
-    for (let s = 0; s < sym.count; s++) maxRows = Math.max(maxRows, sym.rowPtr[s + 1] - sym.rowPtr[s]);
-    this.tmp = new Float64Array(maxRows);
-    this.tmp2 = new Float64Array(maxRows);
-    this.rel = new Int32Array(maxRows);
-    this.head = new Int32Array(sym.count);
-    this.next = new Int32Array(sym.count);
-    this.nextRow = new Int32Array(sym.count);
-    this.diag = new Float64Array(sym.n);
+    for (let s = 0; s < count; s++) maxRows = Math.max(maxRows, rowPtr[s + 1] - rowPtr[s]);
+    const split = parallel && sym.flops >= PARALLEL_MIN_FLOPS && Ax.buffer instanceof SharedArrayBuffer ? splitSubtrees(sym) : null;
+    const share = split !== null;
+    const int32 = (a: Int32Array): Int32Array => (share ? sharedCopy(a) : a);
+    this.Lx = share ? new Float64Array(new SharedArrayBuffer(8 * sym.nnzL)) : new Float64Array(sym.nnzL);
+    this.D = share ? new Float64Array(new SharedArrayBuffer(8 * n)) : new Float64Array(n);
+    this.S = {
+      sup: int32(sym.super),
+      snode: int32(sym.snode),
+      rowPtr: int32(sym.rowPtr),
+      rows: int32(sym.rows),
+      blockPtr: int32(sym.blockPtr),
+      Lp: int32(Lp),
+      Li: int32(Li),
+      Ax,
+      Lx: this.Lx,
+      D: this.D,
+      head: share ? new Int32Array(new SharedArrayBuffer(4 * count)) : new Int32Array(count),
+      next: share ? new Int32Array(new SharedArrayBuffer(4 * count)) : new Int32Array(count),
+      nextRow: share ? new Int32Array(new SharedArrayBuffer(4 * count)) : new Int32Array(count),
+    };
+    this.W = {
+      relmap: new Int32Array(n),
+      tmp: new Float64Array(maxRows),
+      tmp2: new Float64Array(maxRows),
+      rel: new Int32Array(maxRows),
+      diag: new Float64Array(n),
+    };
+    this.tmp = this.W.tmp;
+    this.whole = Int32Array.from([0, count]);
+    this.deferred = new Int32Array(Math.max(1, count));
+    this.helper = split ? HelperLink.create(this, { S: this.S, n, maxRows, ranges: split.second, isTop: sharedBytes(split.isTop) }) : null;
+    this.split = this.helper ? split : null;
   }
 
-  /** Lp/Li/Lx: the lower triangle (rows ≥ column) of the permuted matrix in CSC form. */
-  factorise(Lp: Int32Array, Li: Int32Array, Ax: Float64Array, opts: FactorOptions): FactorReport {
-    const { count, super: sup, snode, rowPtr, rows, blockPtr } = this.sym;
-    const { Lx, D, relmap, tmp, tmp2, rel, head, next, nextRow, diag } = this;
-    const { pivotTolerance, dynamicRegularisation, bigPivot, sign } = opts;
-    const deadline = opts.deadline ?? Infinity;
-    head.fill(-1);
-    let replaced = 0;
-    for (let s = 0; s < count; s++) {
-      if ((s & 31) === 0 && deadline < Infinity && performance.now() > deadline) {
-        return { status: 'interrupted', column: sup[s], replacedPivots: replaced };
-      }
-      const f = sup[s];
-      const l = sup[s + 1] - 1;
-      const ws = l - f + 1;
-      const r0 = rowPtr[s];
-      const nrs = rowPtr[s + 1] - r0;
-      const off = blockPtr[s];
-      for (let r = 0; r < nrs; r++) relmap[rows[r0 + r]] = r;
-      Lx.fill(0, off, off + nrs * ws);
-      // 1. assemble
-      for (let j = f; j <= l; j++) {
-        const base = off + (j - f) * nrs;
-        let dj = 0;
-        for (let p = Lp[j]; p < Lp[j + 1]; p++) {
-          const i = Li[p];
-          Lx[base + relmap[i]] += Ax[p];
-          if (i === j) dj += Ax[p];
-        }
-        diag[j] = dj;
-      }
-      // 2. updates from descendants
-      let d = head[s];
-      head[s] = -1;
-      while (d !== -1) {
-        if (deadline < Infinity && performance.now() > deadline) {
-          return { status: 'interrupted', column: sup[s], replacedPivots: replaced };
-        }
-        const dNext = next[d];
-        const fd = sup[d];
-        const wd = sup[d + 1] - fd;
-        const rd0 = rowPtr[d];
-        const nrd = rowPtr[d + 1] - rd0;
-        const offd = blockPtr[d];
-        const start = nextRow[d];
-        let end = start;
-        while (end < nrd && rows[rd0 + end] <= l) end++;
-        // positions in s's block of d's rows from `start` on
-        for (let r = start; r < nrd; r++) rel[r] = relmap[rows[rd0 + r]];
-        if (wd <= 2) {
-          // narrow descendant: subtract straight into the target column
-          const b0 = offd;
-          const b1 = offd + nrd;
-          const d0 = D[fd];
-          const d1 = wd === 2 ? D[fd + 1] : 0;
-          for (let t = start; t < end; t++) {
-            const a0 = Lx[b0 + t] * d0;
-            const a1 = wd === 2 ? Lx[b1 + t] * d1 : 0;
-            const cbase = off + (rows[rd0 + t] - f) * nrs;
-            if (wd === 2) {
-              for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= Lx[b0 + r] * a0 + Lx[b1 + r] * a1;
-            } else if (a0 !== 0) {
-              for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= Lx[b0 + r] * a0;
-            }
-          }
-        } else {
-          // wide descendant: two target columns at a time, so each value of d's block loaded
-          // serves two multiply–adds (tmp for column t, tmp2 for column t + 1)
-          let t = start;
-          for (; t + 1 < end; t += 2) {
-            tmp.fill(0, t, nrd);
-            tmp2.fill(0, t + 1, nrd);
-            let k = 0;
-            for (; k + 3 < wd; k += 4) {
-              const b0 = offd + k * nrd;
-              const b1 = b0 + nrd;
-              const b2 = b1 + nrd;
-              const b3 = b2 + nrd;
-              const e0 = D[fd + k];
-              const e1 = D[fd + k + 1];
-              const e2 = D[fd + k + 2];
-              const e3 = D[fd + k + 3];
-              const a0 = Lx[b0 + t] * e0;
-              const a1 = Lx[b1 + t] * e1;
-              const a2 = Lx[b2 + t] * e2;
-              const a3 = Lx[b3 + t] * e3;
-              const c0 = Lx[b0 + t + 1] * e0;
-              const c1 = Lx[b1 + t + 1] * e1;
-              const c2 = Lx[b2 + t + 1] * e2;
-              const c3 = Lx[b3 + t + 1] * e3;
-              tmp[t] += Lx[b0 + t] * a0 + Lx[b1 + t] * a1 + Lx[b2 + t] * a2 + Lx[b3 + t] * a3;
-              for (let r = t + 1; r < nrd; r++) {
-                const l0 = Lx[b0 + r];
-                const l1 = Lx[b1 + r];
-                const l2 = Lx[b2 + r];
-                const l3 = Lx[b3 + r];
-                tmp[r] += l0 * a0 + l1 * a1 + l2 * a2 + l3 * a3;
-                tmp2[r] += l0 * c0 + l1 * c1 + l2 * c2 + l3 * c3;
-              }
-            }
-            for (; k < wd; k++) {
-              const b0 = offd + k * nrd;
-              const a0 = Lx[b0 + t] * D[fd + k];
-              const c0 = Lx[b0 + t + 1] * D[fd + k];
-              tmp[t] += Lx[b0 + t] * a0;
-              for (let r = t + 1; r < nrd; r++) {
-                tmp[r] += Lx[b0 + r] * a0;
-                tmp2[r] += Lx[b0 + r] * c0;
-              }
-            }
-            const cbase = off + (rows[rd0 + t] - f) * nrs;
-            for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= tmp[r];
-            const cbase2 = off + (rows[rd0 + t + 1] - f) * nrs;
-            for (let r = t + 1; r < nrd; r++) Lx[cbase2 + rel[r]] -= tmp2[r];
-          }
-          for (; t < end; t++) {
-            tmp.fill(0, t, nrd);
-            for (let k = 0; k < wd; k++) {
-              const b0 = offd + k * nrd;
-              const a0 = Lx[b0 + t] * D[fd + k];
-              if (a0 === 0) continue;
-              for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0;
-            }
-            const cbase = off + (rows[rd0 + t] - f) * nrs;
-            for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= tmp[r];
-          }
-        }
-        nextRow[d] = end;
-        if (end < nrd) {
-          const target = snode[rows[rd0 + end]];
-          next[d] = head[target];
-          head[target] = d;
-        }
-        d = dNext;
-      }
-      // 3. dense LDLᵀ of the trapezoidal block, blocked right-looking: factorise a panel of up
-      //    to PANEL columns, then update each trailing column with the whole panel (the panel
-      //    stays in cache while the trailing columns stream past once)
-      for (let k0 = 0; k0 < ws; k0 += PANEL) {
-        if (deadline < Infinity && performance.now() > deadline) {
-          return { status: 'interrupted', column: f + k0, replacedPivots: replaced };
-        }
-        const k1 = Math.min(k0 + PANEL, ws);
-        for (let k = k0; k < k1; k++) {
-          const j = f + k;
-          const kb = off + k * nrs;
-          let dk = Lx[kb + k];
-          if (!Number.isFinite(dk)) return { status: 'not_finite', column: j, replacedPivots: replaced };
-          const sg = sign ? sign[j] : dk < 0 ? -1 : 1;
-          if (dk * sg <= pivotTolerance * (1 + Math.abs(diag[j]))) {
-            if (!dynamicRegularisation) return { status: 'zero_pivot', column: j, replacedPivots: replaced };
-            dk = sg * bigPivot;
-            replaced++;
-          }
-          D[j] = dk;
-          const inv = 1 / dk;
-          // the rest of the panel, with column k still unscaled (L·d)
-          for (let c = k + 1; c < k1; c++) {
-            const fct = Lx[kb + c] * inv;
-            if (fct === 0) continue;
-            const cb = off + c * nrs;
-            for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
-          }
-        }
-        // trailing columns: column c −= Σ_k (L·d)_k · L_ck over the panel, two columns at a time
-        // so every panel value loaded serves two multiply–adds
-        let c = k1;
-        for (; c + 1 < ws; c += 2) {
-          const cb0 = off + c * nrs;
-          const cb1 = cb0 + nrs;
-          let k = k0;
-          for (; k + 3 < k1; k += 4) {
-            const p0 = off + k * nrs;
-            const p1 = p0 + nrs;
-            const p2 = p1 + nrs;
-            const p3 = p2 + nrs;
-            const i0 = 1 / D[f + k];
-            const i1 = 1 / D[f + k + 1];
-            const i2 = 1 / D[f + k + 2];
-            const i3 = 1 / D[f + k + 3];
-            const f00 = Lx[p0 + c] * i0;
-            const f10 = Lx[p1 + c] * i1;
-            const f20 = Lx[p2 + c] * i2;
-            const f30 = Lx[p3 + c] * i3;
-            const f01 = Lx[p0 + c + 1] * i0;
-            const f11 = Lx[p1 + c + 1] * i1;
-            const f21 = Lx[p2 + c + 1] * i2;
-            const f31 = Lx[p3 + c + 1] * i3;
-            Lx[cb0 + c] -= Lx[p0 + c] * f00 + Lx[p1 + c] * f10 + Lx[p2 + c] * f20 + Lx[p3 + c] * f30;
-            for (let r = c + 1; r < nrs; r++) {
-              const a0 = Lx[p0 + r];
-              const a1 = Lx[p1 + r];
-              const a2 = Lx[p2 + r];
-              const a3 = Lx[p3 + r];
-              Lx[cb0 + r] -= a0 * f00 + a1 * f10 + a2 * f20 + a3 * f30;
-              Lx[cb1 + r] -= a0 * f01 + a1 * f11 + a2 * f21 + a3 * f31;
-            }
-          }
-          for (; k < k1; k++) {
-            const kb = off + k * nrs;
-            const inv = 1 / D[f + k];
-            const g0 = Lx[kb + c] * inv;
-            const g1 = Lx[kb + c + 1] * inv;
-            Lx[cb0 + c] -= Lx[kb + c] * g0;
-            for (let r = c + 1; r < nrs; r++) {
-              const a = Lx[kb + r];
-              Lx[cb0 + r] -= a * g0;
-              Lx[cb1 + r] -= a * g1;
-            }
-          }
-        }
-        for (; c < ws; c++) {
-          const cb = off + c * nrs;
-          for (let k = k0; k < k1; k++) {
-            const kb = off + k * nrs;
-            const fct = Lx[kb + c] / D[f + k];
-            if (fct === 0) continue;
-            for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
-          }
-        }
-        // scale the panel's columns: L = (L·d) / d
-        for (let k = k0; k < k1; k++) {
-          const kb = off + k * nrs;
-          const inv = 1 / D[f + k];
-          for (let r = k + 1; r < nrs; r++) Lx[kb + r] *= inv;
-          Lx[kb + k] = 1;
-        }
-      }
-      if (nrs > ws) {
-        nextRow[s] = ws;
-        const target = snode[rows[r0 + ws]];
-        next[s] = head[target];
-        head[target] = s;
-      }
+  /** whether factorise() runs on two threads */
+  get threads(): number {
+    return this.helper ? 2 : 1;
+  }
+
+  factorise(opts: FactorOptions): FactorReport {
+    const kernelOpts: KernelOptions = {
+      pivotTolerance: opts.pivotTolerance,
+      dynamicRegularisation: opts.dynamicRegularisation,
+      bigPivot: opts.bigPivot,
+      sign: opts.sign ?? null,
+      deadline: opts.deadline ?? Infinity,
+    };
+    const { S, W, out } = this;
+    S.head.fill(-1);
+    const split = this.split;
+    if (!split || !this.helper || !this.helper.start(kernelOpts)) {
+      const code = factorSupernodes(S, W, this.whole, 1, null, this.deferred, kernelOpts, out);
+      return { status: STATUS[code], column: out[1], replacedPivots: out[2] };
     }
-    return { status: 'factorised', column: -1, replacedPivots: replaced };
+    // this thread's half, then wait for the helper's
+    const mine = factorSupernodes(S, W, split.first, split.first.length / 2, split.isTop, this.deferred, kernelOpts, out);
+    const mineColumn = out[1];
+    let replaced = out[2];
+    const mineDeferred = out[3];
+    const theirs = this.helper.finish(kernelOpts.deadline);
+    if (theirs === null) return { status: 'interrupted', column: -1, replacedPivots: replaced };
+    const [theirCode, theirColumn, theirReplaced, theirDeferred] = theirs.out;
+    if (theirCode < 0) throw new Error('the helper thread of the factorisation failed');
+    replaced += theirReplaced;
+    if (mine !== 0) return { status: STATUS[mine], column: mineColumn, replacedPivots: replaced };
+    if (theirCode !== 0) return { status: STATUS[theirCode], column: theirColumn, replacedPivots: replaced };
+    // hand the descendants waiting for top supernodes to the top's lists, then finish the top
+    this.link(this.deferred, mineDeferred);
+    this.link(theirs.deferred, theirDeferred);
+    const code = factorSupernodes(S, W, split.top, split.top.length / 2, null, this.deferred, kernelOpts, out);
+    return { status: STATUS[code], column: out[1], replacedPivots: replaced + out[2] };
+  }
+
+  private link(list: Int32Array, length: number): void {
+    const { snode, rows, rowPtr, head, next, nextRow } = this.S;
+    for (let i = 0; i < length; i++) {
+      const d = list[i];
+      const target = snode[rows[rowPtr[d] + nextRow[d]]];
+      next[d] = head[target];
+      head[target] = d;
+    }
   }
 
   /**
@@ -352,4 +198,16 @@ export class SupernodalLdl {
       }
     }
   }
+}
+
+function sharedCopy(a: Int32Array): Int32Array {
+  const c = new Int32Array(new SharedArrayBuffer(4 * Math.max(1, a.length)), 0, a.length);
+  c.set(a);
+  return c;
+}
+
+function sharedBytes(a: Uint8Array): Uint8Array {
+  const c = new Uint8Array(new SharedArrayBuffer(Math.max(1, a.length)), 0, a.length);
+  c.set(a);
+  return c;
 }

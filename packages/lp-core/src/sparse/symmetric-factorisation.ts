@@ -6,7 +6,8 @@
  * through `slot` (entry t adds into Cx[slot[t]]), calls factorise() and solves as often as
  * needed. No allocation after the constructor.
  *
- * Two numeric kernels: 'supernodal' (supernodal-ldl.ts, dense blocks, the fast one) and
+ * Two numeric kernels: 'supernodal' (supernodal-ldl.ts, dense blocks, the fast one, on two
+ * threads when `parallel` is set and the factorisation is big enough) and
  * 'simplicial' (ldl.ts, up-looking as in QDLDL). Cx holds the permuted lower triangle (CSC,
  * rows ≥ column) for the supernodal kernel and the permuted upper triangle for the simplicial one.
  */
@@ -64,6 +65,7 @@ export class SymmetricFactorisation {
     ordering: Ordering = 'auto',
     kernel: Kernel = 'supernodal',
     maxEntries = Infinity,
+    parallel = false,
   ) {
     this.n = n;
     this.kernel = kernel;
@@ -103,7 +105,8 @@ export class SymmetricFactorisation {
     this.Cp = pat.Cp;
     this.Ci = pat.Ci;
     this.slot = pat.slot;
-    this.Cx = new Float64Array(pat.Ci.length);
+    // values shared with a helper thread when the supernodal kernel may run on two threads
+    this.Cx = kernel === 'supernodal' && parallel ? new Float64Array(new SharedArrayBuffer(8 * Math.max(1, pat.Ci.length)), 0, pat.Ci.length) : new Float64Array(pat.Ci.length);
     this.diagSlot = new Int32Array(n).fill(-1);
     for (let k = 0; k < n; k++) {
       const e = kernel === 'supernodal' ? this.Cp[k] : this.Cp[k + 1] - 1;
@@ -113,7 +116,7 @@ export class SymmetricFactorisation {
       const upper = up0Upper(n, this.Cp, this.Ci);
       const sym = supernodalSymbolic(n, upper.Cp, upper.Ci);
       if (sym.nnzL > maxEntries) throw new FactorTooLargeError(sym.nnzL, maxEntries);
-      this.supernodal = { sym, F: new SupernodalLdl(sym) };
+      this.supernodal = { sym, F: new SupernodalLdl(sym, this.Cp, this.Ci, this.Cx, parallel) };
       this.simplicial = null;
       this.nnzL = sym.nnzL;
       this.flops = sym.flops;
@@ -128,6 +131,11 @@ export class SymmetricFactorisation {
     this.permuted = new Float64Array(n);
   }
 
+  /** threads the numeric factorisation runs on */
+  get threads(): number {
+    return this.supernodal ? this.supernodal.F.threads : 1;
+  }
+
   /** D of the last factorisation, in permuted order */
   get D(): Float64Array {
     return this.supernodal ? this.supernodal.F.D : this.simplicial!.F.D;
@@ -135,7 +143,7 @@ export class SymmetricFactorisation {
 
   /** Numeric factorisation of the values now in Cx. */
   factorise(opts: FactorOptions): FactorReport {
-    if (this.supernodal) return this.supernodal.F.factorise(this.Cp, this.Ci, this.Cx, opts);
+    if (this.supernodal) return this.supernodal.F.factorise(opts);
     const s = this.simplicial!;
     return factorLdl(s.sym, this.Cp, this.Ci, this.Cx, s.F, s.work, opts);
   }

@@ -1,0 +1,346 @@
+/**
+ * The numeric kernel of the left-looking supernodal LDLᵀ factorisation (Ng & Peyton, "Block
+ * sparse Cholesky algorithms on advanced uniprocessor computers", SIAM J. Sci. Comput. 14, 1993),
+ * into the dense blocks laid out by supernodal-symbolic.ts. For each supernode s of the given
+ * ranges, in order:
+ *   1. assemble the columns of s from the lower triangle of C;
+ *   2. subtract L_d D_d L_dᵀ restricted to s from every earlier supernode d with rows inside s
+ *      (d waits in a linked list headed by the supernode of its next unused row);
+ *   3. factorise the dense trapezoidal block: L D Lᵀ of its diagonal part, then the rows below.
+ * Pivots are checked as in ldl.ts (relative to the assembled diagonal, optional signs, dynamic
+ * regularisation).
+ *
+ * One self-contained function with no imports, closures or nested functions: the parallel
+ * factorisation (parallel-factorisation.ts) runs this very source in a worker thread on
+ * shared memory. Two threads may run it at once on disjoint subtrees of the supernodal
+ * elimination tree; a descendant whose next target is a supernode marked in `top` (shared by
+ * both subtrees) is not linked but listed in `deferred`, and linked by the caller afterwards.
+ *
+ * Returns and writes to out[0] the status (0 factorised, 1 zero pivot, 2 not finite,
+ * 3 interrupted); out[1] the failing column, out[2] the replaced pivots, out[3] the deferred count.
+ */
+
+/** status codes of factorSupernodes */
+export const KERNEL_FACTORISED = 0;
+export const KERNEL_ZERO_PIVOT = 1;
+export const KERNEL_NOT_FINITE = 2;
+export const KERNEL_INTERRUPTED = 3;
+
+/** the factor's arrays; in a parallel factorisation all of them live in shared memory */
+export interface KernelShared {
+  /** symbolic structure (supernodal-symbolic.ts) */
+  sup: Int32Array;
+  snode: Int32Array;
+  rowPtr: Int32Array;
+  rows: Int32Array;
+  blockPtr: Int32Array;
+  /** the lower triangle of the permuted matrix, CSC */
+  Lp: Int32Array;
+  Li: Int32Array;
+  Ax: Float64Array;
+  /** the factor */
+  Lx: Float64Array;
+  D: Float64Array;
+  /** descendant lists: head by target supernode, next and next unused row by descendant */
+  head: Int32Array;
+  next: Int32Array;
+  nextRow: Int32Array;
+}
+
+/** one thread's own work arrays */
+export interface KernelWork {
+  relmap: Int32Array;
+  tmp: Float64Array;
+  tmp2: Float64Array;
+  rel: Int32Array;
+  diag: Float64Array;
+}
+
+export interface KernelOptions {
+  pivotTolerance: number;
+  dynamicRegularisation: boolean;
+  bigPivot: number;
+  sign: Int8Array | null;
+  deadline: number;
+}
+
+export function factorSupernodes(
+  S: KernelShared,
+  W: KernelWork,
+  ranges: Int32Array,
+  rangeCount: number,
+  top: Uint8Array | null,
+  deferred: Int32Array,
+  opts: KernelOptions,
+  out: Int32Array,
+): number {
+  /** columns per panel of the dense block factorisation */
+  const PANEL = 32;
+  const { sup, snode, rowPtr, rows, blockPtr, Lp, Li, Ax, Lx, D, head, next, nextRow } = S;
+  const { relmap, tmp, tmp2, rel, diag } = W;
+  const { pivotTolerance, dynamicRegularisation, bigPivot, sign, deadline } = opts;
+  let replaced = 0;
+  let deferredCount = 0;
+  for (let q = 0; q < rangeCount; q++) for (let s = ranges[2 * q]; s < ranges[2 * q + 1]; s++) {
+    if ((s & 31) === 0 && deadline < Infinity && performance.now() > deadline) {
+      out[0] = 3;
+      out[1] = sup[s];
+      out[2] = replaced;
+      out[3] = deferredCount;
+      return 3;
+    }
+    const f = sup[s];
+    const l = sup[s + 1] - 1;
+    const ws = l - f + 1;
+    const r0 = rowPtr[s];
+    const nrs = rowPtr[s + 1] - r0;
+    const off = blockPtr[s];
+    for (let r = 0; r < nrs; r++) relmap[rows[r0 + r]] = r;
+    Lx.fill(0, off, off + nrs * ws);
+    // 1. assemble
+    for (let j = f; j <= l; j++) {
+      const base = off + (j - f) * nrs;
+      let dj = 0;
+      for (let p = Lp[j]; p < Lp[j + 1]; p++) {
+        const i = Li[p];
+        Lx[base + relmap[i]] += Ax[p];
+        if (i === j) dj += Ax[p];
+      }
+      diag[j] = dj;
+    }
+    // 2. updates from descendants
+    let d = head[s];
+    head[s] = -1;
+    while (d !== -1) {
+      if (deadline < Infinity && performance.now() > deadline) {
+        out[0] = 3;
+        out[1] = sup[s];
+        out[2] = replaced;
+        out[3] = deferredCount;
+        return 3;
+      }
+      const dNext = next[d];
+      const fd = sup[d];
+      const wd = sup[d + 1] - fd;
+      const rd0 = rowPtr[d];
+      const nrd = rowPtr[d + 1] - rd0;
+      const offd = blockPtr[d];
+      const start = nextRow[d];
+      let end = start;
+      while (end < nrd && rows[rd0 + end] <= l) end++;
+      // positions in s's block of d's rows from `start` on
+      for (let r = start; r < nrd; r++) rel[r] = relmap[rows[rd0 + r]];
+      if (wd <= 2) {
+        // narrow descendant: subtract straight into the target column
+        const b0 = offd;
+        const b1 = offd + nrd;
+        const d0 = D[fd];
+        const d1 = wd === 2 ? D[fd + 1] : 0;
+        for (let t = start; t < end; t++) {
+          const a0 = Lx[b0 + t] * d0;
+          const a1 = wd === 2 ? Lx[b1 + t] * d1 : 0;
+          const cbase = off + (rows[rd0 + t] - f) * nrs;
+          if (wd === 2) {
+            for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= Lx[b0 + r] * a0 + Lx[b1 + r] * a1;
+          } else if (a0 !== 0) {
+            for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= Lx[b0 + r] * a0;
+          }
+        }
+      } else {
+        // wide descendant: two target columns at a time, so each value of d's block loaded
+        // serves two multiply–adds (tmp for column t, tmp2 for column t + 1)
+        let t = start;
+        for (; t + 1 < end; t += 2) {
+          tmp.fill(0, t, nrd);
+          tmp2.fill(0, t + 1, nrd);
+          let k = 0;
+          for (; k + 3 < wd; k += 4) {
+            const b0 = offd + k * nrd;
+            const b1 = b0 + nrd;
+            const b2 = b1 + nrd;
+            const b3 = b2 + nrd;
+            const e0 = D[fd + k];
+            const e1 = D[fd + k + 1];
+            const e2 = D[fd + k + 2];
+            const e3 = D[fd + k + 3];
+            const a0 = Lx[b0 + t] * e0;
+            const a1 = Lx[b1 + t] * e1;
+            const a2 = Lx[b2 + t] * e2;
+            const a3 = Lx[b3 + t] * e3;
+            const c0 = Lx[b0 + t + 1] * e0;
+            const c1 = Lx[b1 + t + 1] * e1;
+            const c2 = Lx[b2 + t + 1] * e2;
+            const c3 = Lx[b3 + t + 1] * e3;
+            tmp[t] += Lx[b0 + t] * a0 + Lx[b1 + t] * a1 + Lx[b2 + t] * a2 + Lx[b3 + t] * a3;
+            for (let r = t + 1; r < nrd; r++) {
+              const l0 = Lx[b0 + r];
+              const l1 = Lx[b1 + r];
+              const l2 = Lx[b2 + r];
+              const l3 = Lx[b3 + r];
+              tmp[r] += l0 * a0 + l1 * a1 + l2 * a2 + l3 * a3;
+              tmp2[r] += l0 * c0 + l1 * c1 + l2 * c2 + l3 * c3;
+            }
+          }
+          for (; k < wd; k++) {
+            const b0 = offd + k * nrd;
+            const a0 = Lx[b0 + t] * D[fd + k];
+            const c0 = Lx[b0 + t + 1] * D[fd + k];
+            tmp[t] += Lx[b0 + t] * a0;
+            for (let r = t + 1; r < nrd; r++) {
+              tmp[r] += Lx[b0 + r] * a0;
+              tmp2[r] += Lx[b0 + r] * c0;
+            }
+          }
+          const cbase = off + (rows[rd0 + t] - f) * nrs;
+          for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= tmp[r];
+          const cbase2 = off + (rows[rd0 + t + 1] - f) * nrs;
+          for (let r = t + 1; r < nrd; r++) Lx[cbase2 + rel[r]] -= tmp2[r];
+        }
+        for (; t < end; t++) {
+          tmp.fill(0, t, nrd);
+          for (let k = 0; k < wd; k++) {
+            const b0 = offd + k * nrd;
+            const a0 = Lx[b0 + t] * D[fd + k];
+            if (a0 === 0) continue;
+            for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0;
+          }
+          const cbase = off + (rows[rd0 + t] - f) * nrs;
+          for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= tmp[r];
+        }
+      }
+      nextRow[d] = end;
+      if (end < nrd) {
+        const target = snode[rows[rd0 + end]];
+        if (top !== null && top[target] === 1) deferred[deferredCount++] = d;
+        else {
+          next[d] = head[target];
+          head[target] = d;
+        }
+      }
+      d = dNext;
+    }
+    // 3. dense LDLᵀ of the trapezoidal block, blocked right-looking: factorise a panel of up
+    //    to PANEL columns, then update each trailing column with the whole panel (the panel
+    //    stays in cache while the trailing columns stream past once)
+    for (let k0 = 0; k0 < ws; k0 += PANEL) {
+      if (deadline < Infinity && performance.now() > deadline) {
+        out[0] = 3;
+        out[1] = f + k0;
+        out[2] = replaced;
+        out[3] = deferredCount;
+        return 3;
+      }
+      const k1 = Math.min(k0 + PANEL, ws);
+      for (let k = k0; k < k1; k++) {
+        const j = f + k;
+        const kb = off + k * nrs;
+        let dk = Lx[kb + k];
+        if (!Number.isFinite(dk)) {
+          out[0] = 2;
+          out[1] = j;
+          out[2] = replaced;
+          out[3] = deferredCount;
+          return 2;
+        }
+        const sg = sign ? sign[j] : dk < 0 ? -1 : 1;
+        if (dk * sg <= pivotTolerance * (1 + Math.abs(diag[j]))) {
+          if (!dynamicRegularisation) {
+            out[0] = 1;
+            out[1] = j;
+            out[2] = replaced;
+            out[3] = deferredCount;
+            return 1;
+          }
+          dk = sg * bigPivot;
+          replaced++;
+        }
+        D[j] = dk;
+        const inv = 1 / dk;
+        // the rest of the panel, with column k still unscaled (L·d)
+        for (let c = k + 1; c < k1; c++) {
+          const fct = Lx[kb + c] * inv;
+          if (fct === 0) continue;
+          const cb = off + c * nrs;
+          for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
+        }
+      }
+      // trailing columns: column c −= Σ_k (L·d)_k · L_ck over the panel, two columns at a time
+      // so every panel value loaded serves two multiply–adds
+      let c = k1;
+      for (; c + 1 < ws; c += 2) {
+        const cb0 = off + c * nrs;
+        const cb1 = cb0 + nrs;
+        let k = k0;
+        for (; k + 3 < k1; k += 4) {
+          const p0 = off + k * nrs;
+          const p1 = p0 + nrs;
+          const p2 = p1 + nrs;
+          const p3 = p2 + nrs;
+          const i0 = 1 / D[f + k];
+          const i1 = 1 / D[f + k + 1];
+          const i2 = 1 / D[f + k + 2];
+          const i3 = 1 / D[f + k + 3];
+          const f00 = Lx[p0 + c] * i0;
+          const f10 = Lx[p1 + c] * i1;
+          const f20 = Lx[p2 + c] * i2;
+          const f30 = Lx[p3 + c] * i3;
+          const f01 = Lx[p0 + c + 1] * i0;
+          const f11 = Lx[p1 + c + 1] * i1;
+          const f21 = Lx[p2 + c + 1] * i2;
+          const f31 = Lx[p3 + c + 1] * i3;
+          Lx[cb0 + c] -= Lx[p0 + c] * f00 + Lx[p1 + c] * f10 + Lx[p2 + c] * f20 + Lx[p3 + c] * f30;
+          for (let r = c + 1; r < nrs; r++) {
+            const a0 = Lx[p0 + r];
+            const a1 = Lx[p1 + r];
+            const a2 = Lx[p2 + r];
+            const a3 = Lx[p3 + r];
+            Lx[cb0 + r] -= a0 * f00 + a1 * f10 + a2 * f20 + a3 * f30;
+            Lx[cb1 + r] -= a0 * f01 + a1 * f11 + a2 * f21 + a3 * f31;
+          }
+        }
+        for (; k < k1; k++) {
+          const kb = off + k * nrs;
+          const inv = 1 / D[f + k];
+          const g0 = Lx[kb + c] * inv;
+          const g1 = Lx[kb + c + 1] * inv;
+          Lx[cb0 + c] -= Lx[kb + c] * g0;
+          for (let r = c + 1; r < nrs; r++) {
+            const a = Lx[kb + r];
+            Lx[cb0 + r] -= a * g0;
+            Lx[cb1 + r] -= a * g1;
+          }
+        }
+      }
+      for (; c < ws; c++) {
+        const cb = off + c * nrs;
+        for (let k = k0; k < k1; k++) {
+          const kb = off + k * nrs;
+          const fct = Lx[kb + c] / D[f + k];
+          if (fct === 0) continue;
+          for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
+        }
+      }
+      // scale the panel's columns: L = (L·d) / d
+      for (let k = k0; k < k1; k++) {
+        const kb = off + k * nrs;
+        const inv = 1 / D[f + k];
+        for (let r = k + 1; r < nrs; r++) Lx[kb + r] *= inv;
+        Lx[kb + k] = 1;
+      }
+    }
+    if (nrs > ws) {
+      nextRow[s] = ws;
+      const target = snode[rows[r0 + ws]];
+      if (top !== null && top[target] === 1) deferred[deferredCount++] = s;
+      else {
+        next[s] = head[target];
+        head[target] = s;
+      }
+    }
+  }
+  out[0] = 0;
+  out[1] = -1;
+  out[2] = replaced;
+  out[3] = deferredCount;
+  return 0;
+}
