@@ -10,7 +10,9 @@
  * planning data as a new plan version would, solves it with lp-core in whole units (the API's
  * default), then builds the shift sheets of every week. "Planned" hours are the plan's setup +
  * run clock hours of every routing step (the sheets' operation time); "unscheduled" hours are
- * what the sheets list as unscheduled.
+ * what the sheets list as unscheduled (still open after the plan's last week); "carried over"
+ * hours are jobs on the sheets of a later week than the plan week they belong to. It also prints
+ * the plan's load against the sheets' open time per work-center week (the same capacity model).
  */
 import { solve } from '@millrace/lp-core';
 import { buildModel, buildShiftSheets, mapSolution, roundPlan, shiftWindows, weekOperations, type Plan, type PlanningData, type ShiftSheetSettings } from '@millrace/plan-model';
@@ -89,7 +91,7 @@ async function main(): Promise<void> {
       const un = sum(result.unscheduled.filter((u) => u.week === 1 && u.workCenter === wc).map((u) => u.hours));
       return `${wc} ${Math.max(0, w1.get(wc)! - un).toFixed(1)}/${w1.get(wc)!.toFixed(1)}`;
     });
-    console.log(`  week 1 scheduled/planned h: ${line.join(', ')}`);
+    console.log(`  week 1's production on the sheets (any week)/planned h: ${line.join(', ')}`);
     const reasons = new Map<string, number>();
     for (const u of result.unscheduled) reasons.set(u.reason, (reasons.get(u.reason) ?? 0) + u.hours);
     console.log(`  unscheduled by reason (h): ${[...reasons].map(([r, x]) => `${r}: ${x.toFixed(1)}`).join('; ') || 'none'}`);
