@@ -4,13 +4,13 @@
  * or TypeScript support is needed inside it. The caller stays synchronous: it posts a job, works
  * on its own half, then blocks on a shared flag (Atomics.wait) until the helper reports back.
  *
- * A factorisation registers its shared arrays once ('setup'); the helper keeps the last few and
- * forgets one when its factorisation is garbage-collected ('drop'). If the helper cannot be
- * started, or ever fails to answer, factorisations run on one thread.
+ * A factorisation registers its shared arrays and the helper's two calls once ('setup'); the
+ * helper keeps the last few and forgets one when its factorisation is garbage-collected ('drop').
+ * If the helper cannot be started, or ever fails to answer, factorisations run on one thread.
  */
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
-import { factorSupernodes, type KernelOptions, type KernelShared } from './supernodal-kernel';
+import { factorSupernodes, type KernelCall, type KernelOptions, type KernelShared } from './supernodal-kernel';
 
 /** contexts the helper keeps (one per live factorisation) */
 const KEPT_CONTEXTS = 4;
@@ -23,15 +23,19 @@ const factorSupernodes = (${factorSupernodes.toString()});
 const contexts = new Map();
 parentPort.on('message', (msg) => {
   if (msg.type === 'setup') {
-    const n = msg.n;
-    const work = {
-      relmap: new Int32Array(n),
-      tmp: new Float64Array(msg.maxRows),
-      tmp2: new Float64Array(msg.maxRows),
-      rel: new Int32Array(msg.maxRows),
-      diag: new Float64Array(n),
+    const c = msg.context;
+    c.work = {
+      relmap: new Int32Array(c.n),
+      tmp: new Float64Array(c.maxRows),
+      tmp2: new Float64Array(c.maxRows),
+      rel: new Int32Array(c.maxRows),
+      diag: new Float64Array(c.n),
     };
-    contexts.set(msg.id, { S: msg.S, work, ranges: msg.ranges, isTop: msg.isTop, deferred: msg.deferred, out: msg.out, done: msg.done });
+    c.push.head = new Int32Array(c.count);
+    c.push.linkCount = 0;
+    c.out = msg.out;
+    c.done = msg.done;
+    contexts.set(msg.id, c);
     while (contexts.size > ${KEPT_CONTEXTS}) contexts.delete(contexts.keys().next().value);
     return;
   }
@@ -42,7 +46,15 @@ parentPort.on('message', (msg) => {
   const c = contexts.get(msg.id);
   if (!c) return;
   try {
-    factorSupernodes(c.S, c.work, c.ranges, c.ranges.length / 2, c.isTop, c.deferred, msg.opts, c.out);
+    // its half, then its half's updates into the top, kept in its own buffer
+    if (factorSupernodes(c.S, c.work, c.half, msg.opts, c.out) === 0) {
+      const replaced = c.out[2];
+      c.push.linkCount = c.out[3];
+      c.push.head.fill(-1);
+      c.push.target.fill(0);
+      factorSupernodes(c.S, c.work, c.push, msg.opts, c.out);
+      c.out[2] = replaced;
+    }
   } catch (err) {
     c.out[0] = -1;
   }
@@ -51,19 +63,16 @@ parentPort.on('message', (msg) => {
 });
 `;
 
-export interface HelperJob {
-  /** helper's outcome: out[0] status (−1: it failed), out[1] column, out[2] replaced pivots, out[3] deferred count */
-  out: Int32Array;
-  deferred: Int32Array;
-}
-
-/** what a factorisation registers with the helper */
+/** what a factorisation registers with the helper: shared arrays and the helper's two calls */
 export interface HelperContext {
   S: KernelShared;
   n: number;
   maxRows: number;
-  ranges: Int32Array;
-  isTop: Uint8Array;
+  count: number;
+  /** its half of the tree */
+  half: KernelCall;
+  /** its half's updates into the top, into a buffer of its own (its list heads are made in the helper) */
+  push: Omit<KernelCall, 'head' | 'linkCount'>;
 }
 
 let helper: Worker | null | undefined;
@@ -88,7 +97,6 @@ export class HelperLink {
   private readonly id = nextId++;
   private readonly done = new Int32Array(new SharedArrayBuffer(4));
   private readonly out = new Int32Array(new SharedArrayBuffer(16));
-  private readonly deferred: Int32Array;
   private seq = 0;
   private setUpOn: Worker | null = null;
 
@@ -100,17 +108,14 @@ export class HelperLink {
     return link;
   }
 
-  private constructor(private readonly context: HelperContext) {
-    this.deferred = new Int32Array(new SharedArrayBuffer(4 * Math.max(1, context.isTop.length)));
-  }
+  private constructor(private readonly context: HelperContext) {}
 
-  /** posts the helper's half; false when the helper is gone */
+  /** posts the helper's part; false when the helper is gone */
   start(opts: KernelOptions): boolean {
     const w = theHelper();
     if (!w) return false;
     if (this.setUpOn !== w) {
-      const { S, n, maxRows, ranges, isTop } = this.context;
-      w.postMessage({ type: 'setup', id: this.id, S, n, maxRows, ranges, isTop, deferred: this.deferred, out: this.out, done: this.done });
+      w.postMessage({ type: 'setup', id: this.id, context: this.context, out: this.out, done: this.done });
       this.setUpOn = w;
     }
     this.seq++;
@@ -119,11 +124,14 @@ export class HelperLink {
     return true;
   }
 
-  /** blocks until the helper has finished its half; null if it never answered */
-  finish(deadline: number): HelperJob | null {
+  /**
+   * Blocks until the helper has finished; its outcome [status (−1: it failed), failing column,
+   * replaced pivots], or null if it never answered.
+   */
+  finish(deadline: number): Int32Array | null {
     for (;;) {
       const v = Atomics.load(this.done, 0);
-      if (v === this.seq) return { out: this.out, deferred: this.deferred };
+      if (v === this.seq) return this.out;
       Atomics.wait(this.done, 0, v, 1000);
       if (Atomics.load(this.done, 0) !== this.seq && performance.now() > deadline + LATE_GRACE_MS) {
         void helper?.terminate();

@@ -10,11 +10,12 @@
  * Pivots are checked as in ldl.ts (relative to the assembled diagonal, optional signs, dynamic
  * regularisation).
  *
- * One self-contained function with no imports, closures or nested functions: the parallel
- * factorisation (parallel-factorisation.ts) runs this very source in a worker thread on
- * shared memory. Two threads may run it at once on disjoint subtrees of the supernodal
- * elimination tree; a descendant whose next target is a supernode marked in `top` (shared by
- * both subtrees) is not linked but listed in `deferred`, and linked by the caller afterwards.
+ * One self-contained function with no imports, closures or nested functions: the two-thread
+ * factorisation (supernodal-ldl.ts) runs this very source in a helper thread on shared memory.
+ * A call may do all three steps on Lx, or only steps 1–2 or only step 2 into another target
+ * array: that is how each thread pushes its subtree's updates into the supernodes above both
+ * subtrees (the `top`) before one thread finishes them. With `top` set, a descendant whose next
+ * target is a top supernode is not linked but listed in `deferred`, for a later call's `link`.
  *
  * Returns and writes to out[0] the status (0 factorised, 1 zero pivot, 2 not finite,
  * 3 interrupted); out[1] the failing column, out[2] the replaced pivots, out[3] the deferred count.
@@ -41,10 +42,30 @@ export interface KernelShared {
   /** the factor */
   Lx: Float64Array;
   D: Float64Array;
-  /** descendant lists: head by target supernode, next and next unused row by descendant */
-  head: Int32Array;
+  /** descendant lists: next descendant and next unused row, by descendant */
   next: Int32Array;
   nextRow: Int32Array;
+}
+
+/** what one call of factorSupernodes does */
+export interface KernelCall {
+  /** [start, end) pairs of supernodes, ascending */
+  ranges: Int32Array;
+  /** when set, descendants whose next target is marked here are listed in `deferred`, not linked */
+  top: Uint8Array | null;
+  deferred: Int32Array;
+  /** heads of the descendant lists by target supernode (shared, or a thread's own) */
+  head: Int32Array;
+  /** descendants to link into `head` before starting (the `deferred` of an earlier call) */
+  link: Int32Array | null;
+  linkCount: number;
+  /** step 1: assemble each block from C (else the target block already holds it) */
+  assemble: boolean;
+  /** step 3: factorise each block and link it (else only the updates of step 2 are made) */
+  factor: boolean;
+  /** where blocks are assembled and updated, and each supernode's offset in it */
+  target: Float64Array;
+  targetPtr: Int32Array;
 }
 
 /** one thread's own work arrays */
@@ -64,21 +85,21 @@ export interface KernelOptions {
   deadline: number;
 }
 
-export function factorSupernodes(
-  S: KernelShared,
-  W: KernelWork,
-  ranges: Int32Array,
-  rangeCount: number,
-  top: Uint8Array | null,
-  deferred: Int32Array,
-  opts: KernelOptions,
-  out: Int32Array,
-): number {
+export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCall, opts: KernelOptions, out: Int32Array): number {
   /** columns per panel of the dense block factorisation */
   const PANEL = 32;
-  const { sup, snode, rowPtr, rows, blockPtr, Lp, Li, Ax, Lx, D, head, next, nextRow } = S;
+  const { sup, snode, rowPtr, rows, blockPtr, Lp, Li, Ax, Lx, D, next, nextRow } = S;
   const { relmap, tmp, tmp2, rel, diag } = W;
   const { pivotTolerance, dynamicRegularisation, bigPivot, sign, deadline } = opts;
+  const { ranges, top, deferred, head, assemble, factor, target: T, targetPtr } = call;
+  const rangeCount = ranges.length / 2;
+  // descendants handed over by an earlier call wait for their next target
+  for (let i = 0; i < call.linkCount; i++) {
+    const d = call.link![i];
+    const t = snode[rows[rowPtr[d] + nextRow[d]]];
+    next[d] = head[t];
+    head[t] = d;
+  }
   let replaced = 0;
   let deferredCount = 0;
   for (let q = 0; q < rangeCount; q++) for (let s = ranges[2 * q]; s < ranges[2 * q + 1]; s++) {
@@ -94,19 +115,22 @@ export function factorSupernodes(
     const ws = l - f + 1;
     const r0 = rowPtr[s];
     const nrs = rowPtr[s + 1] - r0;
-    const off = blockPtr[s];
+    // s's block in the target array (Lx itself, or a thread's own buffer of updates)
+    const off = targetPtr[s];
     for (let r = 0; r < nrs; r++) relmap[rows[r0 + r]] = r;
-    Lx.fill(0, off, off + nrs * ws);
     // 1. assemble
-    for (let j = f; j <= l; j++) {
-      const base = off + (j - f) * nrs;
-      let dj = 0;
-      for (let p = Lp[j]; p < Lp[j + 1]; p++) {
-        const i = Li[p];
-        Lx[base + relmap[i]] += Ax[p];
-        if (i === j) dj += Ax[p];
+    if (assemble) {
+      T.fill(0, off, off + nrs * ws);
+      for (let j = f; j <= l; j++) {
+        const base = off + (j - f) * nrs;
+        let dj = 0;
+        for (let p = Lp[j]; p < Lp[j + 1]; p++) {
+          const i = Li[p];
+          T[base + relmap[i]] += Ax[p];
+          if (i === j) dj += Ax[p];
+        }
+        diag[j] = dj;
       }
-      diag[j] = dj;
     }
     // 2. updates from descendants
     let d = head[s];
@@ -141,9 +165,9 @@ export function factorSupernodes(
           const a1 = wd === 2 ? Lx[b1 + t] * d1 : 0;
           const cbase = off + (rows[rd0 + t] - f) * nrs;
           if (wd === 2) {
-            for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= Lx[b0 + r] * a0 + Lx[b1 + r] * a1;
+            for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= Lx[b0 + r] * a0 + Lx[b1 + r] * a1;
           } else if (a0 !== 0) {
-            for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= Lx[b0 + r] * a0;
+            for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= Lx[b0 + r] * a0;
           }
         }
       } else {
@@ -192,9 +216,9 @@ export function factorSupernodes(
             }
           }
           const cbase = off + (rows[rd0 + t] - f) * nrs;
-          for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= tmp[r];
+          for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= tmp[r];
           const cbase2 = off + (rows[rd0 + t + 1] - f) * nrs;
-          for (let r = t + 1; r < nrd; r++) Lx[cbase2 + rel[r]] -= tmp2[r];
+          for (let r = t + 1; r < nrd; r++) T[cbase2 + rel[r]] -= tmp2[r];
         }
         for (; t < end; t++) {
           tmp.fill(0, t, nrd);
@@ -205,7 +229,7 @@ export function factorSupernodes(
             for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0;
           }
           const cbase = off + (rows[rd0 + t] - f) * nrs;
-          for (let r = t; r < nrd; r++) Lx[cbase + rel[r]] -= tmp[r];
+          for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= tmp[r];
         }
       }
       nextRow[d] = end;
@@ -219,7 +243,8 @@ export function factorSupernodes(
       }
       d = dNext;
     }
-    // 3. dense LDLᵀ of the trapezoidal block, blocked right-looking: factorise a panel of up
+    if (!factor) continue;
+    // 3. dense LDLᵀ of the trapezoidal block (the target array is Lx here), blocked right-looking: factorise a panel of up
     //    to PANEL columns, then update each trailing column with the whole panel (the panel
     //    stays in cache while the trailing columns stream past once)
     for (let k0 = 0; k0 < ws; k0 += PANEL) {

@@ -1,15 +1,17 @@
 /**
  * Supernodal LDLᵀ factorisation into the dense blocks laid out by supernodal-symbolic.ts; the
  * numeric kernel is supernodal-kernel.ts. A factorisation big enough to gain from it runs on two
- * threads: the elimination tree is split into two halves of nearly equal work
- * (subtree-split.ts), one half runs in a helper thread (factor-helper-thread.ts) while this
- * thread does the other, then this thread finishes the supernodes above both. All arrays are
- * allocated once in the constructor (in shared memory when a helper is used).
+ * threads: the elimination tree is split into two halves of nearly equal work and the top above
+ * them (subtree-split.ts). Each thread factorises its half, then pushes its half's updates into
+ * the top: this thread straight into the top's blocks, the helper thread
+ * (factor-helper-thread.ts) into a buffer of its own that is added afterwards. Then this thread
+ * factorises the top. All arrays are allocated once in the constructor (in shared memory when a
+ * helper is used).
  */
 import { HelperLink } from './factor-helper-thread';
 import type { FactorOptions, FactorReport, FactorStatus } from './ldl';
 import { splitSubtrees, type SubtreeSplit } from './subtree-split';
-import { factorSupernodes, type KernelOptions, type KernelShared, type KernelWork } from './supernodal-kernel';
+import { factorSupernodes, type KernelCall, type KernelOptions, type KernelShared, type KernelWork } from './supernodal-kernel';
 import type { SupernodalSymbolic } from './supernodal-symbolic';
 
 /** factorisations with fewer multiply–adds stay on one thread (the hand-over costs ~0.1 ms) */
@@ -17,17 +19,31 @@ const PARALLEL_MIN_FLOPS = 2e7;
 
 const STATUS: FactorStatus[] = ['factorised', 'zero_pivot', 'not_finite', 'interrupted'];
 
+/** the calls of a two-thread factorisation made on this thread */
+interface ParallelCalls {
+  split: SubtreeSplit;
+  helper: HelperLink;
+  /** this thread's half */
+  half: KernelCall;
+  /** its updates into the top, after assembling the top's blocks */
+  push: KernelCall;
+  /** the top, once the helper's updates are added */
+  top: KernelCall;
+  /** the helper's updates, block by block of the top */
+  buffer: Float64Array;
+  bufferPtr: Int32Array;
+}
+
 export class SupernodalLdl {
   readonly Lx: Float64Array;
   readonly D: Float64Array;
   private readonly S: KernelShared;
   private readonly W: KernelWork;
   private readonly tmp: Float64Array;
-  private readonly whole: Int32Array;
+  private readonly head: Int32Array;
+  private readonly whole: KernelCall;
   private readonly out = new Int32Array(4);
-  private readonly deferred: Int32Array;
-  private readonly split: SubtreeSplit | null;
-  private readonly helper: HelperLink | null;
+  private readonly parallel: ParallelCalls | null;
 
   /**
    * Lp/Li/Ax: the lower triangle (rows ≥ column) of the permuted matrix in CSC form; Ax is read
@@ -45,9 +61,10 @@ export class SupernodalLdl {
     for (let s = 0; s < count; s++) maxRows = Math.max(maxRows, rowPtr[s + 1] - rowPtr[s]);
     const split = parallel && sym.flops >= PARALLEL_MIN_FLOPS && Ax.buffer instanceof SharedArrayBuffer ? splitSubtrees(sym) : null;
     const share = split !== null;
-    const int32 = (a: Int32Array): Int32Array => (share ? sharedCopy(a) : a);
-    this.Lx = share ? new Float64Array(new SharedArrayBuffer(8 * sym.nnzL)) : new Float64Array(sym.nnzL);
-    this.D = share ? new Float64Array(new SharedArrayBuffer(8 * n)) : new Float64Array(n);
+    const int32 = (a: Int32Array): Int32Array => (share ? sharedInt32(a.length, a) : a);
+    this.Lx = share ? sharedFloat64(sym.nnzL) : new Float64Array(sym.nnzL);
+    this.D = share ? sharedFloat64(n) : new Float64Array(n);
+    this.head = share ? sharedInt32(count) : new Int32Array(count);
     this.S = {
       sup: int32(sym.super),
       snode: int32(sym.snode),
@@ -59,9 +76,8 @@ export class SupernodalLdl {
       Ax,
       Lx: this.Lx,
       D: this.D,
-      head: share ? new Int32Array(new SharedArrayBuffer(4 * count)) : new Int32Array(count),
-      next: share ? new Int32Array(new SharedArrayBuffer(4 * count)) : new Int32Array(count),
-      nextRow: share ? new Int32Array(new SharedArrayBuffer(4 * count)) : new Int32Array(count),
+      next: share ? sharedInt32(count) : new Int32Array(count),
+      nextRow: share ? sharedInt32(count) : new Int32Array(count),
     };
     this.W = {
       relmap: new Int32Array(n),
@@ -71,15 +87,48 @@ export class SupernodalLdl {
       diag: new Float64Array(n),
     };
     this.tmp = this.W.tmp;
-    this.whole = Int32Array.from([0, count]);
-    this.deferred = new Int32Array(Math.max(1, count));
-    this.helper = split ? HelperLink.create(this, { S: this.S, n, maxRows, ranges: split.second, isTop: sharedBytes(split.isTop) }) : null;
-    this.split = this.helper ? split : null;
+    const onLx = { target: this.Lx, targetPtr: this.S.blockPtr };
+    this.whole = { ranges: Int32Array.from([0, count]), top: null, deferred: new Int32Array(1), head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx };
+    this.parallel = split ? this.parallelCalls(split, n, maxRows, onLx) : null;
+  }
+
+  /** the calls of both threads; null when no helper thread can be had */
+  private parallelCalls(split: SubtreeSplit, n: number, maxRows: number, onLx: Pick<KernelCall, 'target' | 'targetPtr'>): ParallelCalls | null {
+    const { count, super: sup, rowPtr } = this.sym;
+    const bufferPtr = sharedInt32(count);
+    let size = 0;
+    for (let s = 0; s < count; s++) {
+      if (!split.isTop[s]) continue;
+      bufferPtr[s] = size;
+      size += (rowPtr[s + 1] - rowPtr[s]) * (sup[s + 1] - sup[s]);
+    }
+    const buffer = sharedFloat64(size);
+    const isTop = sharedBytes(split.isTop);
+    const helperDeferred = sharedInt32(count);
+    const helper = HelperLink.create(this, {
+      S: this.S,
+      n,
+      maxRows,
+      count,
+      half: { ranges: split.second, top: isTop, deferred: helperDeferred, head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx },
+      push: { ranges: split.top, top: null, deferred: helperDeferred, link: helperDeferred, assemble: false, factor: false, target: buffer, targetPtr: bufferPtr },
+    });
+    if (!helper) return null;
+    const deferred = new Int32Array(count);
+    return {
+      split,
+      helper,
+      half: { ranges: split.first, top: split.isTop, deferred, head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx },
+      push: { ranges: split.top, top: null, deferred, head: new Int32Array(count), link: deferred, linkCount: 0, assemble: true, factor: false, ...onLx },
+      top: { ranges: split.top, top: null, deferred, head: this.head, link: null, linkCount: 0, assemble: false, factor: true, ...onLx },
+      buffer,
+      bufferPtr,
+    };
   }
 
   /** whether factorise() runs on two threads */
   get threads(): number {
-    return this.helper ? 2 : 1;
+    return this.parallel ? 2 : 1;
   }
 
   factorise(opts: FactorOptions): FactorReport {
@@ -91,39 +140,45 @@ export class SupernodalLdl {
       deadline: opts.deadline ?? Infinity,
     };
     const { S, W, out } = this;
-    S.head.fill(-1);
-    const split = this.split;
-    if (!split || !this.helper || !this.helper.start(kernelOpts)) {
-      const code = factorSupernodes(S, W, this.whole, 1, null, this.deferred, kernelOpts, out);
+    this.head.fill(-1);
+    const par = this.parallel;
+    if (!par || !par.helper.start(kernelOpts)) {
+      const code = factorSupernodes(S, W, this.whole, kernelOpts, out);
       return { status: STATUS[code], column: out[1], replacedPivots: out[2] };
     }
-    // this thread's half, then wait for the helper's
-    const mine = factorSupernodes(S, W, split.first, split.first.length / 2, split.isTop, this.deferred, kernelOpts, out);
-    const mineColumn = out[1];
+    // this thread's half, then its updates into the top (assembling the top's blocks first)
+    let mine = factorSupernodes(S, W, par.half, kernelOpts, out);
+    let mineColumn = out[1];
     let replaced = out[2];
-    const mineDeferred = out[3];
-    const theirs = this.helper.finish(kernelOpts.deadline);
+    if (mine === 0) {
+      par.push.linkCount = out[3];
+      par.push.head.fill(-1);
+      mine = factorSupernodes(S, W, par.push, kernelOpts, out);
+      mineColumn = out[1];
+    }
+    // the helper's half and updates
+    const theirs = par.helper.finish(kernelOpts.deadline);
     if (theirs === null) return { status: 'interrupted', column: -1, replacedPivots: replaced };
-    const [theirCode, theirColumn, theirReplaced, theirDeferred] = theirs.out;
+    const [theirCode, theirColumn, theirReplaced] = theirs;
     if (theirCode < 0) throw new Error('the helper thread of the factorisation failed');
     replaced += theirReplaced;
     if (mine !== 0) return { status: STATUS[mine], column: mineColumn, replacedPivots: replaced };
     if (theirCode !== 0) return { status: STATUS[theirCode], column: theirColumn, replacedPivots: replaced };
-    // hand the descendants waiting for top supernodes to the top's lists, then finish the top
-    this.link(this.deferred, mineDeferred);
-    this.link(theirs.deferred, theirDeferred);
-    const code = factorSupernodes(S, W, split.top, split.top.length / 2, null, this.deferred, kernelOpts, out);
-    return { status: STATUS[code], column: out[1], replacedPivots: replaced + out[2] };
-  }
-
-  private link(list: Int32Array, length: number): void {
-    const { snode, rows, rowPtr, head, next, nextRow } = this.S;
-    for (let i = 0; i < length; i++) {
-      const d = list[i];
-      const target = snode[rows[rowPtr[d] + nextRow[d]]];
-      next[d] = head[target];
-      head[target] = d;
+    // add the helper's updates, then finish the top
+    const { buffer, bufferPtr } = par;
+    const { top } = par.split;
+    const { super: sup, rowPtr, blockPtr } = this.sym;
+    const Lx = this.Lx;
+    for (let q = 0; q < top.length; q += 2) {
+      for (let s = top[q]; s < top[q + 1]; s++) {
+        const size = (rowPtr[s + 1] - rowPtr[s]) * (sup[s + 1] - sup[s]);
+        const a = blockPtr[s];
+        const b = bufferPtr[s];
+        for (let i = 0; i < size; i++) Lx[a + i] += buffer[b + i];
+      }
     }
+    const code = factorSupernodes(S, W, par.top, kernelOpts, out);
+    return { status: STATUS[code], column: out[1], replacedPivots: replaced + out[2] };
   }
 
   /**
@@ -200,10 +255,14 @@ export class SupernodalLdl {
   }
 }
 
-function sharedCopy(a: Int32Array): Int32Array {
-  const c = new Int32Array(new SharedArrayBuffer(4 * Math.max(1, a.length)), 0, a.length);
-  c.set(a);
+function sharedInt32(length: number, from?: Int32Array): Int32Array {
+  const c = new Int32Array(new SharedArrayBuffer(4 * Math.max(1, length)), 0, length);
+  if (from) c.set(from);
   return c;
+}
+
+function sharedFloat64(length: number): Float64Array {
+  return new Float64Array(new SharedArrayBuffer(8 * Math.max(1, length)), 0, length);
 }
 
 function sharedBytes(a: Uint8Array): Uint8Array {
