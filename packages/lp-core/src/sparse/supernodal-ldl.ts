@@ -88,7 +88,7 @@ export class SupernodalLdl {
     };
     this.tmp = this.W.tmp;
     const onLx = { target: this.Lx, targetPtr: this.S.blockPtr };
-    this.whole = { ranges: Int32Array.from([0, count]), top: null, deferred: new Int32Array(1), head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx };
+    this.whole = { ranges: Int32Array.from([0, count]), top: null, deferred: share ? sharedInt32(1) : new Int32Array(1), head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx };
     this.parallel = split ? this.parallelCalls(split, n, maxRows, onLx) : null;
   }
 
@@ -114,12 +114,12 @@ export class SupernodalLdl {
       push: { ranges: split.top, top: null, deferred: helperDeferred, link: helperDeferred, assemble: false, factor: false, target: buffer, targetPtr: bufferPtr },
     });
     if (!helper) return null;
-    const deferred = new Int32Array(count);
+    const deferred = sharedInt32(count);
     return {
       split,
       helper,
-      half: { ranges: split.first, top: split.isTop, deferred, head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx },
-      push: { ranges: split.top, top: null, deferred, head: new Int32Array(count), link: deferred, linkCount: 0, assemble: true, factor: false, ...onLx },
+      half: { ranges: split.first, top: isTop, deferred, head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx },
+      push: { ranges: split.top, top: null, deferred, head: sharedInt32(count), link: deferred, linkCount: 0, assemble: true, factor: false, ...onLx },
       top: { ranges: split.top, top: null, deferred, head: this.head, link: null, linkCount: 0, assemble: false, factor: true, ...onLx },
       buffer,
       bufferPtr,
