@@ -10,14 +10,15 @@
  */
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
+import { warmUpCase } from './kernel-warm-up';
 import { factorSupernodes, type KernelCall, type KernelOptions, type KernelShared } from './supernodal-kernel';
 
 /** contexts the helper keeps (one per live factorisation) */
 const KEPT_CONTEXTS = 4;
-/** after the deadline has passed, how long to wait for a late helper before giving up on it (ms) */
-const LATE_GRACE_MS = 5000;
+/** a helper whose work shows no progress for this long is given up (ms) */
+const STALLED_MS = 20000;
 
-const HELPER_SOURCE = `
+export const HELPER_SOURCE = `
 const { parentPort } = require('node:worker_threads');
 const factorSupernodes = (${factorSupernodes.toString()});
 const contexts = new Map();
@@ -83,20 +84,36 @@ function theHelper(): Worker | null {
   if (helper !== undefined) return helper;
   if (availableParallelism() < 2) return (helper = null);
   try {
-    helper = new Worker(HELPER_SOURCE, { eval: true });
+    // plain JavaScript: no loaders or flags of the parent (a TypeScript loader alone takes ~0.5 s to start)
+    helper = new Worker(HELPER_SOURCE, { eval: true, execArgv: [] });
     helper.unref();
     helper.on('error', () => (helper = null));
+    warmUpHelper(helper);
   } catch {
     helper = null;
   }
   return helper;
 }
 
+/**
+ * The helper's first calls, on a tiny case, so that its optimised code covers every kind of call
+ * it will make (see kernel-warm-up.ts); nobody waits for them.
+ */
+function warmUpHelper(w: Worker): void {
+  const c = warmUpCase();
+  c.halves[1].head.fill(-1);
+  const context: HelperContext = { S: c.S, n: c.n, maxRows: c.maxRows, count: c.count, half: c.halves[1], push: c.pushes[1] };
+  const opts: KernelOptions = { pivotTolerance: 1e-12, dynamicRegularisation: true, bigPivot: 1e128, sign: null, deadline: Infinity };
+  w.postMessage({ type: 'setup', id: 0, context, out: new Int32Array(new SharedArrayBuffer(20)), done: new Int32Array(new SharedArrayBuffer(4)) });
+  for (let seq = 1; seq <= 3; seq++) w.postMessage({ type: 'run', id: 0, seq, opts });
+  w.postMessage({ type: 'drop', id: 0 });
+}
+
 /** A factorisation's link to the helper thread. */
 export class HelperLink {
   private readonly id = nextId++;
   private readonly done = new Int32Array(new SharedArrayBuffer(4));
-  private readonly out = new Int32Array(new SharedArrayBuffer(16));
+  private readonly out = new Int32Array(new SharedArrayBuffer(20));
   private seq = 0;
   private setUpOn: Worker | null = null;
 
@@ -120,20 +137,28 @@ export class HelperLink {
     }
     this.seq++;
     this.out[0] = -1;
+    this.out[4] = 0;
     w.postMessage({ type: 'run', id: this.id, seq: this.seq, opts });
     return true;
   }
 
   /**
    * Blocks until the helper has finished; its outcome [status (−1: it failed), failing column,
-   * replaced pivots], or null if it never answered.
+   * replaced pivots], or null when it stopped making progress (it is then given up for good and
+   * the caller does the work itself).
    */
-  finish(deadline: number): Int32Array | null {
+  finish(): Int32Array | null {
+    let progress = Atomics.load(this.out, 4);
+    let since = performance.now();
     for (;;) {
       const v = Atomics.load(this.done, 0);
       if (v === this.seq) return this.out;
-      Atomics.wait(this.done, 0, v, 1000);
-      if (Atomics.load(this.done, 0) !== this.seq && performance.now() > deadline + LATE_GRACE_MS) {
+      Atomics.wait(this.done, 0, v, 500);
+      const p = Atomics.load(this.out, 4);
+      if (p !== progress) {
+        progress = p;
+        since = performance.now();
+      } else if (performance.now() - since > STALLED_MS) {
         void helper?.terminate();
         helper = null;
         return null;

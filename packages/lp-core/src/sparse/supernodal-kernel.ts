@@ -18,7 +18,8 @@
  * target is a top supernode is not linked but listed in `deferred`, for a later call's `link`.
  *
  * Returns and writes to out[0] the status (0 factorised, 1 zero pivot, 2 not finite,
- * 3 interrupted); out[1] the failing column, out[2] the replaced pivots, out[3] the deferred count.
+ * 3 interrupted); out[1] the failing column, out[2] the replaced pivots, out[3] the deferred count;
+ * out[4] counts up as the work goes on (watched by a thread waiting for this one).
  */
 
 /** status codes of factorSupernodes */
@@ -103,6 +104,7 @@ export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCal
   let replaced = 0;
   let deferredCount = 0;
   for (let q = 0; q < rangeCount; q++) for (let s = ranges[2 * q]; s < ranges[2 * q + 1]; s++) {
+    out[4]++;
     if ((s & 31) === 0 && deadline < Infinity && performance.now() > deadline) {
       out[0] = 3;
       out[1] = sup[s];
@@ -248,6 +250,7 @@ export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCal
     //    to PANEL columns, then update each trailing column with the whole panel (the panel
     //    stays in cache while the trailing columns stream past once)
     for (let k0 = 0; k0 < ws; k0 += PANEL) {
+      out[4]++;
       if (deadline < Infinity && performance.now() > deadline) {
         out[0] = 3;
         out[1] = f + k0;
@@ -276,8 +279,11 @@ export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCal
             out[3] = deferredCount;
             return 1;
           }
+          // the unknown is dropped: a huge pivot and no coupling (a zero column, rather than
+          // entries of ~1/bigPivot whose products would underflow into slow subnormal numbers)
           dk = sg * bigPivot;
           replaced++;
+          for (let r = k + 1; r < nrs; r++) Lx[kb + r] = 0;
         }
         D[j] = dk;
         const inv = 1 / dk;

@@ -5,10 +5,10 @@
  * them (subtree-split.ts). Each thread factorises its half, then pushes its half's updates into
  * the top: this thread straight into the top's blocks, the helper thread
  * (factor-helper-thread.ts) into a buffer of its own that is added afterwards. Then this thread
- * factorises the top. All arrays are allocated once in the constructor (in shared memory when a
- * helper is used).
+ * factorises the top. All arrays are allocated once in the constructor, in shared memory.
  */
 import { HelperLink } from './factor-helper-thread';
+import { warmUpKernel } from './kernel-warm-up';
 import type { FactorOptions, FactorReport, FactorStatus } from './ldl';
 import { splitSubtrees, type SubtreeSplit } from './subtree-split';
 import { factorSupernodes, type KernelCall, type KernelOptions, type KernelShared, type KernelWork } from './supernodal-kernel';
@@ -42,12 +42,13 @@ export class SupernodalLdl {
   private readonly tmp: Float64Array;
   private readonly head: Int32Array;
   private readonly whole: KernelCall;
-  private readonly out = new Int32Array(4);
-  private readonly parallel: ParallelCalls | null;
+  private readonly out = new Int32Array(5);
+  private parallel: ParallelCalls | null;
 
   /**
    * Lp/Li/Ax: the lower triangle (rows ≥ column) of the permuted matrix in CSC form; Ax is read
-   * at every factorise() (write new values into it in between). parallel: allow a helper thread.
+   * at every factorise() (write new values into it in between; keep it in shared memory, see
+   * SymmetricFactorisation). parallel: allow a helper thread.
    */
   constructor(
     private readonly sym: SupernodalSymbolic,
@@ -60,11 +61,12 @@ export class SupernodalLdl {
     let maxRows = 0;
     for (let s = 0; s < count; s++) maxRows = Math.max(maxRows, rowPtr[s + 1] - rowPtr[s]);
     const split = parallel && sym.flops >= PARALLEL_MIN_FLOPS && Ax.buffer instanceof SharedArrayBuffer ? splitSubtrees(sym) : null;
-    const share = split !== null;
-    const int32 = (a: Int32Array): Int32Array => (share ? sharedInt32(a.length, a) : a);
-    this.Lx = share ? sharedFloat64(sym.nnzL) : new Float64Array(sym.nnzL);
-    this.D = share ? sharedFloat64(n) : new Float64Array(n);
-    this.head = share ? sharedInt32(count) : new Int32Array(count);
+    // Shared memory whether or not a helper is used: the kernel then always meets one kind of
+    // typed array (V8 deoptimises a hot function that meets a second kind mid-run, ~1 s once).
+    const int32 = (a: Int32Array): Int32Array => sharedInt32(a.length, a);
+    this.Lx = sharedFloat64(sym.nnzL);
+    this.D = sharedFloat64(n);
+    this.head = sharedInt32(count);
     this.S = {
       sup: int32(sym.super),
       snode: int32(sym.snode),
@@ -76,8 +78,8 @@ export class SupernodalLdl {
       Ax,
       Lx: this.Lx,
       D: this.D,
-      next: share ? sharedInt32(count) : new Int32Array(count),
-      nextRow: share ? sharedInt32(count) : new Int32Array(count),
+      next: sharedInt32(count),
+      nextRow: sharedInt32(count),
     };
     this.W = {
       relmap: new Int32Array(n),
@@ -88,7 +90,8 @@ export class SupernodalLdl {
     };
     this.tmp = this.W.tmp;
     const onLx = { target: this.Lx, targetPtr: this.S.blockPtr };
-    this.whole = { ranges: Int32Array.from([0, count]), top: null, deferred: share ? sharedInt32(1) : new Int32Array(1), head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx };
+    this.whole = { ranges: Int32Array.from([0, count]), top: null, deferred: sharedInt32(1), head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx };
+    if (split) warmUpKernel();
     this.parallel = split ? this.parallelCalls(split, n, maxRows, onLx) : null;
   }
 
@@ -156,11 +159,14 @@ export class SupernodalLdl {
       mine = factorSupernodes(S, W, par.push, kernelOpts, out);
       mineColumn = out[1];
     }
-    // the helper's half and updates
-    const theirs = par.helper.finish(kernelOpts.deadline);
-    if (theirs === null) return { status: 'interrupted', column: -1, replacedPivots: replaced };
+    // the helper's half and updates; a helper that stalls or fails is given up and its part
+    // redone here, as a whole one-thread factorisation
+    const theirs = par.helper.finish();
+    if (theirs === null || theirs[0] < 0) {
+      this.parallel = null;
+      return this.factorise(opts);
+    }
     const [theirCode, theirColumn, theirReplaced] = theirs;
-    if (theirCode < 0) throw new Error('the helper thread of the factorisation failed');
     replaced += theirReplaced;
     if (mine !== 0) return { status: STATUS[mine], column: mineColumn, replacedPivots: replaced };
     if (theirCode !== 0) return { status: STATUS[theirCode], column: theirColumn, replacedPivots: replaced };

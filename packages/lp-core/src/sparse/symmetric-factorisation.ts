@@ -105,8 +105,8 @@ export class SymmetricFactorisation {
     this.Cp = pat.Cp;
     this.Ci = pat.Ci;
     this.slot = pat.slot;
-    // values shared with a helper thread when the supernodal kernel may run on two threads
-    this.Cx = kernel === 'supernodal' && parallel ? new Float64Array(new SharedArrayBuffer(8 * Math.max(1, pat.Ci.length)), 0, pat.Ci.length) : new Float64Array(pat.Ci.length);
+    // the supernodal kernel reads values from shared memory (a helper thread may share the work)
+    this.Cx = kernel === 'supernodal' ? new Float64Array(new SharedArrayBuffer(8 * Math.max(1, pat.Ci.length)), 0, pat.Ci.length) : new Float64Array(pat.Ci.length);
     this.diagSlot = new Int32Array(n).fill(-1);
     for (let k = 0; k < n; k++) {
       const e = kernel === 'supernodal' ? this.Cp[k] : this.Cp[k + 1] - 1;
