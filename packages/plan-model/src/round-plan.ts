@@ -220,6 +220,7 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
       if (ok && (better || repairs)) added += undo.filter((u) => u.kind === 'make').length;
       else undoChanges(undo);
     }
+    batchesAdded += added;
     if (added === 0) break;
   }
 
