@@ -51,7 +51,15 @@ export function checkPlan(data: PlanningData, plan: Plan, options: CheckOptions 
   const pl = new Map(plan.products.map((l) => [`${l.product}|${l.week}`, l]));
   const wl = new Map(plan.workCenters.map((l) => [`${l.workCenter}|${l.week}`, l]));
   const ml = new Map(plan.materials.map((l) => [`${l.material}|${l.week}`, l]));
-  const make = (p: string, t: number) => pl.get(`${p}|${t}`)?.make ?? 0;
+  // production per product and week (index week − 1), read once from the plan's lines
+  const makeByProduct = new Map<string, number[]>();
+  for (const l of plan.products) {
+    if (l.week < 1 || l.week > T) continue;
+    let row = makeByProduct.get(l.product);
+    if (!row) makeByProduct.set(l.product, (row = new Array<number>(T).fill(0)));
+    row[l.week - 1] = l.make;
+  }
+  const make = (p: string, t: number) => makeByProduct.get(p)?.[t - 1] ?? 0;
 
   // completeness and signs
   for (const p of data.products)
@@ -109,12 +117,13 @@ export function checkPlan(data: PlanningData, plan: Plan, options: CheckOptions 
 
   // capacity
   const load = loadHoursPerUnit(data);
-  for (const w of data.workCenters)
+  for (const w of data.workCenters) {
+    const loaders = [...load].filter(([, perWc]) => perWc.has(w.code)).map(([p, perWc]) => ({ hours: perWc.get(w.code)!, make: makeByProduct.get(p) }));
     for (let t = 1; t <= T; t++) {
       const l = wl.get(`${w.code}|${t}`);
       if (!l) continue;
       let hours = 0;
-      for (const [p, perWc] of load) hours += (perWc.get(w.code) ?? 0) * make(p, t);
+      for (const x of loaders) hours += x.hours * (x.make?.[t - 1] ?? 0);
       const avail = availableHours(w, t);
       const cap = overtimeCapHours(w, t);
       if (l.overtimeHours > cap + tol * (1 + cap))
@@ -125,6 +134,7 @@ export function checkPlan(data: PlanningData, plan: Plan, options: CheckOptions 
       if (off(l.loadHours - hours, hours))
         add('reported_value', w.code, t, l.loadHours - hours, `work center ${w.code} week ${t}: load reported ${l.loadHours} h, routings give ${hours} h`);
     }
+  }
 
   // materials
   for (const m of data.materials) {
