@@ -12,6 +12,7 @@ import type {
   SolveStatus,
 } from '@millrace/contracts';
 import type { Plan, PlanningData } from '@millrace/plan-model';
+import { executePrepared } from '../db/execute-prepared';
 
 /** Columns of a plan version without the large documents (inputs, results, MPS). */
 const summaryColumns = `
@@ -247,9 +248,11 @@ export interface SolveOutcomeRecord {
   crossCheck: CrossCheck | null;
 }
 
+/** Stores a finished solve; a prepared statement, since the MPS and the plan run to megabytes (200 × 26: 6 MB). */
 export async function storeSolveOutcome(db: EntityManager, id: number, o: SolveOutcomeRecord): Promise<void> {
   const json = (v: unknown) => (v === null ? null : JSON.stringify(v));
-  await db.query(
+  await executePrepared(
+    db,
     `UPDATE plan_version SET solve_status = ?, objective = ?, certificate = ?, results = ?, results_hash = ?, plan = ?, check_violations = ?,
        rounding = ?, infeasibility = ?, solve_message = ?, model_rows = ?, model_columns = ?, model_nonzeros = ?, mps = ?, cross_check = ?,
        version = version + 1, updated_at = ?

@@ -1,8 +1,9 @@
-import type { CheckViolation, Rounding, SolveStatus } from '@millrace/contracts';
+import type { CheckViolation, CrossCheckSolver, Rounding, SolveStatus } from '@millrace/contracts';
 import { solve, writeMps, type SolveResult } from '@millrace/lp-core';
 import { buildModel, checkPlan, mapSolution, materialCalls, roundPlan, type Plan, type PlanningData, type RoundingReport } from '@millrace/plan-model';
 import { hashOf } from '../plans/canonical-hash';
 import type { SolveOutcomeRecord } from '../plans/plans.repository';
+import { chooseCrossCheckSolver } from './cross-check-plan';
 import { planResultsFromPlan } from './plan-results-from-plan';
 
 /** What the worker is asked to solve. */
@@ -31,7 +32,13 @@ export type StageTimings = Record<string, number>;
 
 export type ComputeOutcome =
   | { kind: 'cancelled'; seconds: number }
-  | { kind: 'finished'; record: Omit<SolveOutcomeRecord, 'crossCheck'>; timings: StageTimings };
+  | {
+      kind: 'finished';
+      record: Omit<SolveOutcomeRecord, 'crossCheck'>;
+      timings: StageTimings;
+      /** the solver that will cross-check the model (chosen here, from the problem its MPS was written from) */
+      crossCheckSolver: CrossCheckSolver;
+    };
 
 /**
  * The whole solve of one plan version, as a story: build the LP from the snapshot, keep its exact
@@ -52,6 +59,7 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
   );
   const { problem } = built;
   const mps = stage('mps', () => writeMps(problem));
+  const crossCheckSolver = chooseCrossCheckSolver(problem);
   const modelSize = { rows: problem.A.m, columns: problem.A.n, nonzeros: problem.A.colPtr[problem.A.n] };
 
   const result = stage('solve', () => solve(problem, {
@@ -75,6 +83,7 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
     return {
       kind: 'finished',
       timings,
+      crossCheckSolver,
       record: {
         ...base,
         solveStatus: status,
@@ -89,7 +98,8 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
   const rounded = request.wholeUnits ? stage('round', () => roundPlan(request.data, lpPlan)) : null;
   const shown: Plan = rounded ? rounded.plan : lpPlan;
   const rounding = rounded ? roundingOf(rounded.report) : null;
-  const violations = stage('check', () => checkPlan(request.data, shown)).map((v) => ({ kind: v.kind, item: v.item, week: v.week, message: v.message }));
+  // the rounding pass already ran the independent checker on the plan it returns
+  const violations = (rounded ? rounded.report.violations : stage('check', () => checkPlan(request.data, shown))).map((v) => ({ kind: v.kind, item: v.item, week: v.week, message: v.message }));
   const results = stage('results', () =>
     planResultsFromPlan(request.planId, request.data, shown, materialCalls(request.data, request.horizonWeeks, shown.products)),
   );
@@ -98,6 +108,7 @@ export function computePlan(request: ComputeRequest, hooks: ComputeHooks): Compu
   return {
     kind: 'finished',
     timings,
+    crossCheckSolver,
     record: {
       ...base,
       solveStatus: violations.length > 0 ? 'check_failed' : 'solved',

@@ -22,9 +22,14 @@ export interface CrossCheckRequest {
   planObjective: number;
 }
 
-/** Which independent solver checks a problem: the barrier method for a QP, else by size. */
+/**
+ * Which independent solver checks a problem: the barrier method for a QP, else by size. Only
+ * nonzero quadratic terms count (the MPS file holds no others), so the problem as built and as
+ * read back from its MPS get the same answer.
+ */
 export function chooseCrossCheckSolver(problem: Problem): CrossCheckSolver {
-  if (problem.Q && problem.Q.colPtr[problem.Q.n] > 0) return 'barrier';
+  const Q = problem.Q;
+  if (Q && Q.values.subarray(0, Q.colPtr[Q.n]).some((v) => v !== 0)) return 'barrier';
   return problem.A.n <= lpSolverMaxSize && problem.A.m <= lpSolverMaxSize ? 'javascript-lp-solver' : 'highs';
 }
 

@@ -98,6 +98,7 @@ export class SolverJobRunner {
   }
 
   private async runSolve(job: ClaimedJob): Promise<void> {
+    const claimed = performance.now();
     const plan = await findPlan(this.ds.manager, job.planId);
     const data = await loadPlanInputs(this.ds.manager, job.planId);
     if (!plan || !data) return finishJob(this.ds.manager, job.id, 'failed', 'The plan version no longer exists.');
@@ -124,14 +125,18 @@ export class SolverJobRunner {
         return;
       }
       const record = outcome.record;
-      const stages = Object.entries(outcome.timings)
-        .map(([name, seconds]) => `${name} ${seconds.toFixed(2)} s`)
-        .join(', ');
+      // besides the thread's own stages: reading the job's inputs here, and the time to and from
+      // the thread beyond its stages (passing the task and the outcome, loading code)
+      const timings = {
+        load: (started - claimed) / 1000,
+        ...outcome.timings,
+        thread: Math.max(0, (performance.now() - started) / 1000 - Object.values(outcome.timings).reduce((a, s) => a + s, 0)),
+      };
       const checkable = record.solveStatus === 'solved' || record.solveStatus === 'check_failed';
       const crossCheck: CrossCheck | null =
         checkable && record.mps
           ? {
-              solver: chooseCrossCheckSolver(readMps(record.mps)),
+              solver: outcome.crossCheckSolver,
               status: 'running',
               objective: null,
               planObjective: record.objective,
@@ -141,7 +146,11 @@ export class SolverJobRunner {
             }
           : null;
       await this.ds.transaction(async (db) => {
+        const storing = performance.now();
         await storeSolveOutcome(db, job.planId, { ...record, crossCheck });
+        const stages = Object.entries({ ...timings, store: (performance.now() - storing) / 1000 })
+          .map(([name, seconds]) => `${name} ${seconds.toFixed(2)} s`)
+          .join(', ');
         await finishJob(db, job.id, 'finished', [record.message, `Stages: ${stages}.`].filter(Boolean).join(' '));
         await appendAudit(db, {
           planId: job.planId,
@@ -172,7 +181,9 @@ export class SolverJobRunner {
     if (!plan || !mps || plan.objective === null) {
       return finishJob(this.ds.manager, job.id, 'failed', 'The plan has no solved model to check.');
     }
-    const solver = chooseCrossCheckSolver(readMps(mps));
+    // the solve chose the solver when it queued this check; reading a large MPS here would hold up
+    // the request thread (200 × 26: 0.2 s), so it is read only for a plan stored without that choice
+    const solver = (await findPlanDetail(this.ds.manager, job.planId))?.certificate?.crossCheck?.solver ?? chooseCrossCheckSolver(readMps(mps));
     await storeCrossCheck(this.ds.manager, job.planId, {
       solver,
       status: 'running',
