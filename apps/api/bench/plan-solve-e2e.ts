@@ -9,6 +9,12 @@
  *
  * With SAVE_MPS=DIR set, each measured case's model.mps is saved there (for lp-core's CLI and bench).
  *
+ * Besides the totals it prints each stage of the job (the solver thread's stages, reading the job's
+ * inputs, passing work to and from the thread, storing the outcome) and what is left of the
+ * POST solve → final time beyond them ("other": the HTTP calls, the job queue's poll, commits),
+ * and the whole-units margin against the LP bound. The warm-up's cross-check is waited for
+ * before the measured round, so it does not share the CPU with the measured solve.
+ *
  * Each case gets its own throw-away database (DB_NAME plus a random suffix). Generated plants
  * are invented: N finished products on 2 routing steps over N/10 work centers, 1–2 materials each.
  */
@@ -104,7 +110,10 @@ async function runCase(c: Case): Promise<void> {
         run = (await agent.get(`/api/plans/${created.body.id}/runs/${runId}`)).body;
       } while (run.state === 'queued' || run.state === 'running');
       const t2 = performance.now();
-      if (round === 'warm-up') continue;
+      if (round === 'warm-up') {
+        await crossCheckEnded(agent, created.body.id);
+        continue;
+      }
       const plan = (await agent.get(`/api/plans/${created.body.id}`)).body;
       if (process.env.SAVE_MPS) {
         const mps = await agent.get(`/api/plans/${created.body.id}/model.mps`).buffer(true).parse((res, cb) => {
@@ -128,7 +137,11 @@ async function runCase(c: Case): Promise<void> {
           `status ${plan.solveStatus}`,
         ].join(' | '),
       );
-      console.log(`${''.padEnd(26)} ${run.message ?? ''}`);
+      const stages = parseStages(run.message);
+      const other = (t2 - t1) / 1000 - stages.reduce((a, s) => a + s.seconds, 0);
+      console.log(`${''.padEnd(26)} stages: ${[...stages, { name: 'other', seconds: other }].map((s) => `${s.name} ${s.seconds.toFixed(2)} s`).join(', ')}`);
+      const r = plan.rounding;
+      if (r) console.log(`${''.padEnd(26)} whole units: margin ${r.margin.toFixed(2)}, LP bound ${r.lpBound.toFixed(2)}, gap ${r.gap.toFixed(2)} (${(100 * r.relativeGap).toFixed(3)} %), ${r.outcome}`);
     }
   } finally {
     await runner.stop();
@@ -136,11 +149,36 @@ async function runCase(c: Case): Promise<void> {
   }
 }
 
+/** The job's "Stages: build 0.24 s, mps 0.25 s, …." as name and seconds. */
+function parseStages(message: string | null | undefined): { name: string; seconds: number }[] {
+  const list = /Stages: (.*)\.$/.exec(message ?? '')?.[1];
+  if (!list) throw new Error(`the run's message names no stages: ${message}`);
+  return list.split(', ').map((part) => {
+    const m = /^(\S+) ([\d.]+) s$/.exec(part);
+    if (!m) throw new Error(`unreadable stage "${part}" in: ${message}`);
+    return { name: m[1], seconds: Number(m[2]) };
+  });
+}
+
+/** Waits until the plan's background cross-check has ended (or up to 5 minutes). */
+async function crossCheckEnded(agent: ReturnType<typeof request.agent>, planId: number): Promise<void> {
+  const until = performance.now() + 300_000;
+  while (performance.now() < until) {
+    const status = (await agent.get(`/api/plans/${planId}`)).body.certificate?.crossCheck?.status;
+    if (status !== 'running') return;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+}
+
 async function main(): Promise<void> {
   for (const c of parseCases(process.argv[2])) await runCase(c);
 }
 
-main().catch((err: unknown) => {
-  console.error(err);
-  process.exit(1);
-});
+main().then(
+  // the solver threads and the database pools are closed; exit even if a handle lingers
+  () => process.exit(0),
+  (err: unknown) => {
+    console.error(err);
+    process.exit(1);
+  },
+);
