@@ -114,12 +114,20 @@ function workCenterLines(
 ): WorkCenterWeekLine[] {
   const { index } = built;
   const load = loadHoursPerUnit(data);
-  const makeOf = new Map(products.map((l) => [`${l.product}|${l.week}`, l.make]));
+  // production per product and week (index week − 1)
+  const makeOf = new Map<string, number[]>();
+  for (const l of products) {
+    let row = makeOf.get(l.product);
+    if (!row) makeOf.set(l.product, (row = new Array<number>(index.horizonWeeks).fill(0)));
+    row[l.week - 1] = l.make;
+  }
   const out: WorkCenterWeekLine[] = [];
   data.workCenters.forEach((w, k) => {
+    // only the products routed through this work center add load
+    const loaders = [...load].filter(([, perWc]) => perWc.has(w.code)).map(([p, perWc]) => ({ hours: perWc.get(w.code)!, make: makeOf.get(p) }));
     for (let t = 1; t <= index.horizonWeeks; t++) {
       let loadHours = 0;
-      for (const [p, perWc] of load) loadHours += (perWc.get(w.code) ?? 0) * (makeOf.get(`${p}|${t}`) ?? 0);
+      for (const l of loaders) loadHours += l.hours * (l.make?.[t - 1] ?? 0);
       const available = availableHours(w, t);
       const overtimeHours = x(index.col.overtime[k][t - 1]);
       const cap = overtimeCapHours(w, t);
