@@ -43,7 +43,8 @@ export interface RoundingReport {
 
 const EPS = 1e-7;
 
-type Change = { kind: 'make' | 'buy'; item: string; week: number; qty: number };
+/** one change of a decision, with the value before it so it can be taken back exactly */
+type Change = { kind: 'make' | 'buy'; item: string; week: number; qty: number; before: number };
 
 export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; report: RoundingReport } {
   if (lpPlan.outcome !== 'optimal') throw new Error(`only a solved plan can be rounded (this one is ${lpPlan.outcome})`);
@@ -146,8 +147,9 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
   const materialSets = new Map(data.products.map((p) => [p.code, [...new Set(rc.materialsOf(p.code))]]));
   const addWithComponents = (product: string, week: number): Change[] => {
     const b = batch.get(product) ?? 1;
-    setMake(product, week, d.make.get(product)![week - 1] + b);
-    const added: Change[] = [{ kind: 'make', item: product, week, qty: b }];
+    const before = d.make.get(product)![week - 1];
+    setMake(product, week, before + b);
+    const added: Change[] = [{ kind: 'make', item: product, week, qty: b, before }];
     for (const c of componentSets.get(product)!) {
       for (let guard = 0; guard < 1000 && balanceBreak(c) !== null; guard++) added.push(...addWithComponents(c, week));
     }
@@ -169,17 +171,19 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
         const room = cap === null ? need : Math.max(0, cap - buys[r - 1]);
         const q = Math.min(room, need);
         if (q <= EPS) continue;
+        out.push({ kind: 'buy', item: material, week: r, qty: q, before: buys[r - 1] });
         buys[r - 1] += q;
         need -= q;
-        out.push({ kind: 'buy', item: material, week: r, qty: q });
       }
       if (need > EPS) return out; // cannot be covered: the caller's feasibility check rejects the change
     }
   };
+  /** takes changes back, last first, restoring each value exactly */
   const undoChanges = (changes: Change[]) => {
-    for (const c of changes) {
-      if (c.kind === 'make') setMake(c.item, c.week, d.make.get(c.item)![c.week - 1] - c.qty);
-      else d.buy.get(c.item)![c.week - 1] -= c.qty;
+    for (let k = changes.length - 1; k >= 0; k--) {
+      const c = changes[k];
+      if (c.kind === 'make') setMake(c.item, c.week, c.before);
+      else d.buy.get(c.item)![c.week - 1] = c.before;
     }
   };
   const lpLinesOf = new Map<string, ProductWeekLine[]>();
@@ -188,6 +192,43 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
     if (list) list.push(l);
     else lpLinesOf.set(l.product, [l]);
   }
+  // A candidate that was tried and taken back is tried again only when something it reads has
+  // changed since: the make of its products (it and its sub-assemblies) or of their parents, the
+  // use or purchases of their materials, the load of their work centers in its week. Rejected
+  // tries leave every value exactly as it was, so skipping gives the same plan, with far fewer tries.
+  let stamp = 0;
+  const changedAt = new Map<string, number>();
+  const parentsOfProduct = (code: string) => parentsOf.get(code) ?? [];
+  const readKeys = new Map<string, string[]>();
+  const keysRead = (product: string): string[] => {
+    let keys = readKeys.get(product);
+    if (!keys) {
+      const a = affected(product);
+      keys = [...new Set([...a.products, ...a.products.flatMap(parentsOfProduct)])].map((q) => `p:${q}`).concat(a.materials.map((m) => `m:${m}`));
+      readKeys.set(product, keys);
+    }
+    return keys;
+  };
+  const workCentersOfProduct = new Map(data.products.map((p) => [p.code, rc.workCentersOf(p.code)]));
+  const markKept = (changes: Change[]) => {
+    stamp++;
+    for (const c of changes) {
+      if (c.kind === 'buy') {
+        changedAt.set(`m:${c.item}`, stamp);
+        continue;
+      }
+      changedAt.set(`p:${c.item}`, stamp);
+      for (const m of materialSets.get(c.item)!) changedAt.set(`m:${m}`, stamp);
+      for (const w of workCentersOfProduct.get(c.item)!) changedAt.set(`w:${w}|${c.week}`, stamp);
+    }
+  };
+  const rejectedAt = new Map<string, number>();
+  const unchangedSinceRejected = (product: string, week: number): boolean => {
+    const at = rejectedAt.get(`${product}|${week}`);
+    if (at === undefined) return false;
+    const unchanged = (key: string) => (changedAt.get(key) ?? -1) <= at;
+    return keysRead(product).every(unchanged) && affected(product).workCenters.every((w) => unchanged(`w:${w}|${week}`));
+  };
   let batchesAdded = 0;
   for (let pass = 0; pass < 5; pass++) {
     // where rounding took units away, and — for products now short of orders — every week up to
@@ -209,6 +250,7 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
     candidates.sort((a, b) => b.loss - a.loss || b.week - a.week);
     let added = 0;
     for (const c of candidates) {
+      if (unchangedSinceRejected(c.product, c.week)) continue;
       const a = affected(c.product);
       const before = localMargin(a, c.week);
       const brokenBefore = balanceBreak(c.product) !== null;
@@ -217,8 +259,13 @@ export function roundPlan(data: PlanningData, lpPlan: Plan): { plan: Plan; repor
       const ok = all.every((x) => fits(x, c.week));
       const better = localMargin(a, c.week) > before + 1e-9;
       const repairs = brokenBefore && balanceBreak(c.product) === null;
-      if (ok && (better || repairs)) added += undo.filter((u) => u.kind === 'make').length;
-      else undoChanges(undo);
+      if (ok && (better || repairs)) {
+        added += undo.filter((u) => u.kind === 'make').length;
+        markKept(undo);
+      } else {
+        undoChanges(undo);
+        rejectedAt.set(`${c.product}|${c.week}`, stamp);
+      }
     }
     batchesAdded += added;
     if (added === 0) break;
