@@ -10,6 +10,8 @@ export class PollingLoop {
   private timer: NodeJS.Timeout | null = null;
   private current: Promise<void> | null = null;
   private stopped = true;
+  /** a wake() came while a round was running: go again as soon as it ends */
+  private woken = false;
 
   constructor(
     private readonly round: () => Promise<RoundOutcome>,
@@ -21,6 +23,17 @@ export class PollingLoop {
   start(): void {
     if (!this.stopped) return;
     this.stopped = false;
+    this.schedule(0);
+  }
+
+  /** Runs the next round now instead of after the wait (e.g. work was just queued in this process). */
+  wake(): void {
+    if (this.stopped) return;
+    if (this.current) {
+      this.woken = true;
+      return;
+    }
+    if (this.timer) clearTimeout(this.timer);
     this.schedule(0);
   }
 
@@ -41,7 +54,9 @@ export class PollingLoop {
         })
         .then((outcome) => {
           this.current = null;
-          this.schedule(outcome === 'busy' ? 0 : this.pollMs);
+          const again = outcome === 'busy' || this.woken;
+          this.woken = false;
+          this.schedule(again ? 0 : this.pollMs);
         });
     }, delay);
   }

@@ -4,16 +4,18 @@ import type { SignedInPerson } from '../auth/current-person';
 import { AppError } from '../http/app-error';
 import { appendAudit } from '../sign-off/audit.repository';
 import { isEditable } from '../sign-off/plan-state-machine';
+import { signalJobQueued } from '../solver-jobs/job-queued-signal';
 import { activeJobs, enqueueJob, findRun, requestCancel } from '../solver-jobs/solve-jobs.repository';
 import { findPlan, markPlanQueued } from './plans.repository';
 
 /**
  * Queues a solve of a draft or returned plan version and answers at once with the run id; a
  * worker claims it from the job table. Submitted, approved, released and superseded versions
- * cannot be solved again (409), nor can a plan that is already being solved.
+ * cannot be solved again (409), nor can a plan that is already being solved. Once queued, a runner
+ * in this process is told at once (runners elsewhere find the job at their next poll).
  */
 export async function solvePlan(ds: DataSource, planId: number, person: SignedInPerson): Promise<SolveAccepted> {
-  return ds.transaction(async (db) => {
+  const accepted = await ds.transaction(async (db) => {
     const plan = await findPlan(db, planId, 'lock');
     if (!plan) throw AppError.notFound(`Plan version ${planId} does not exist.`);
     if (!isEditable(plan.state))
@@ -34,6 +36,8 @@ export async function solvePlan(ds: DataSource, planId: number, person: SignedIn
     });
     return { runId };
   });
+  signalJobQueued('solve');
+  return accepted;
 }
 
 /** Asks a run to stop: a queued run is cancelled at once, a running one at its next iteration. */

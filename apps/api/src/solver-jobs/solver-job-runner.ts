@@ -11,6 +11,7 @@ import { cancelRequested, claimNextJob, enqueueJob, finishJob, requeueJob, write
 import { readMps } from '@millrace/lp-core';
 import { appendAudit } from '../sign-off/audit.repository';
 import { solvedAuditComment } from './solved-audit-comment';
+import { onJobQueued, signalJobQueued } from './job-queued-signal';
 
 export interface SolverJobRunnerSettings {
   /** how often an idle runner looks for queued jobs (ms) */
@@ -37,10 +38,13 @@ export const defaultSolverJobRunnerSettings: SolverJobRunnerSettings = {
 export class SolverJobRunner {
   private readonly settings: SolverJobRunnerSettings;
   private readonly workerId = `${hostname()}:${process.pid}:${Math.random().toString(36).slice(2, 8)}`;
+  private readonly kinds = ['solve', 'cross_check'] as const;
+  /** one polling loop per kind of job, in the order of `kinds` */
   private readonly lanes: PollingLoop[];
   /** one long-lived worker thread per lane */
   private readonly threads: Record<SolveJobKind, SolverThread>;
   private stopping = false;
+  private stopListening: (() => void) | null = null;
 
   constructor(
     private readonly ds: DataSource,
@@ -48,15 +52,17 @@ export class SolverJobRunner {
   ) {
     this.settings = { ...defaultSolverJobRunnerSettings, ...settings };
     // Two lanes, so a long cross-check never holds up the next plan's solve.
-    this.lanes = (['solve', 'cross_check'] as const).map(
+    this.lanes = this.kinds.map(
       (kind) => new PollingLoop(async () => ((await this.claimAndRun(kind)) ? 'busy' : 'idle'), this.settings.pollMs, 'solver jobs: a round failed'),
     );
     this.threads = { solve: new SolverThread(), cross_check: new SolverThread() };
   }
 
   start(): void {
-    for (const kind of ['solve', 'cross_check'] as const) this.threads[kind].warm(kind);
+    for (const kind of this.kinds) this.threads[kind].warm(kind);
     for (const lane of this.lanes) lane.start();
+    // a job queued in this process is claimed at once, not at the next poll
+    this.stopListening ??= onJobQueued((kind) => this.lanes[this.kinds.indexOf(kind)].wake());
   }
 
   /**
@@ -65,6 +71,8 @@ export class SolverJobRunner {
    */
   async stop(): Promise<void> {
     this.stopping = true;
+    this.stopListening?.();
+    this.stopListening = null;
     try {
       const lanesStopped = this.lanes.map((lane) => lane.stop());
       await Promise.all(Object.values(this.threads).map((t) => t.close()));
@@ -170,6 +178,7 @@ export class SolverJobRunner {
         ]);
         if (crossCheck) await enqueueJob(db, job.planId, 'cross_check');
       });
+      if (crossCheck) signalJobQueued('cross_check');
     } finally {
       clearInterval(watch);
     }

@@ -32,6 +32,40 @@ describe('polling loop', () => {
     await loop.stop();
   });
 
+  it('when woken while waiting, then the next round runs at once; when woken during a round, then again right after it; when stopped, then not', async () => {
+    // a job queued in this process is claimed without waiting for the poll (common practice, no source)
+    vi.useFakeTimers();
+    let finish: () => void = () => undefined;
+    const round = vi.fn(
+      () =>
+        new Promise<RoundOutcome>((resolve) => {
+          finish = () => resolve('idle');
+        }),
+    );
+    const loop = new PollingLoop(round, 1_000, 'test loop: a round failed');
+    loop.start();
+    await vi.advanceTimersByTimeAsync(10);
+    expect(round).toHaveBeenCalledTimes(1);
+    finish();
+    await vi.advanceTimersByTimeAsync(10);
+    // idle: waiting for pollMs; a wake runs the next round at once
+    loop.wake();
+    await vi.advanceTimersByTimeAsync(10);
+    expect(round).toHaveBeenCalledTimes(2);
+    // woken while that round runs: the next follows right after it, not after pollMs
+    loop.wake();
+    finish();
+    await vi.advanceTimersByTimeAsync(10);
+    expect(round).toHaveBeenCalledTimes(3);
+    finish();
+    await vi.advanceTimersByTimeAsync(980);
+    expect(round).toHaveBeenCalledTimes(3);
+    await loop.stop();
+    loop.wake();
+    await vi.advanceTimersByTimeAsync(2_000);
+    expect(round).toHaveBeenCalledTimes(3);
+  });
+
   it('when a round fails, then it is logged with the given words and the loop waits pollMs and goes on', async () => {
     vi.useFakeTimers();
     const log = vi.spyOn(console, 'error').mockImplementation(() => undefined);
