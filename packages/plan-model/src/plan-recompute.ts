@@ -29,6 +29,8 @@ export interface PlanDecisions {
 }
 
 type Use = { parent: string; use: number };
+/** one term of a tracked sum: factor × make of one product in the week */
+type Term = { factor: number; make: number[] | undefined };
 
 export class PlanRecompute {
   readonly demand: Map<string, WeeklyDemand>;
@@ -45,8 +47,18 @@ export class PlanRecompute {
   private readonly receipts = new Map<string, number[]>();
   /** per work center, [available, regular + capped overtime] standard hours per week */
   private readonly hours = new Map<string, { available: number[]; max: number[] }>();
-  /** material use and work-center load per week of the decisions being tracked (see track) */
-  private tracked: { d: PlanDecisions; use: Map<string, number[]>; load: Map<string, number[]> } | null = null;
+  /**
+   * The decisions being tracked (see track): per week, each material's use, each work center's
+   * load and each sub-assembly's use in parents, with the terms of each sum resolved to the
+   * decisions' make arrays (changed in place, never replaced).
+   */
+  private tracked: {
+    d: PlanDecisions;
+    use: Map<string, number[]>;
+    load: Map<string, number[]>;
+    used: Map<string, number[]>;
+    terms: { use: Map<string, Term[]>; load: Map<string, Term[]>; used: Map<string, Term[]> };
+  } | null = null;
   /** per product: holding cost per unit-week, end-of-horizon and safety-shortfall penalties per unit */
   private readonly productCosts = new Map<string, { holding: number; endPenalty: number; shortfallPenalty: number }>();
 
@@ -104,11 +116,16 @@ export class PlanRecompute {
    * reported with makeChanged. (Each kept sum is recomputed whole, so it equals the untracked one.)
    */
   track(d: PlanDecisions): void {
-    const weeks = Array.from({ length: this.horizonWeeks }, (_, i) => i + 1);
+    const resolve = <K extends string>(map: Map<string, ({ use: number; parent: string } | { hours: number; product: string })[]>) =>
+      new Map([...map].map(([key, list]) => [key as K, list.map((e) => ('use' in e ? { factor: e.use, make: d.make.get(e.parent) } : { factor: e.hours, make: d.make.get(e.product) }))]));
+    const terms = { use: resolve(this.usersOf), load: resolve(this.loaders), used: resolve(this.parentsOf) };
+    const weekly = (list: Term[] | undefined) => Array.from({ length: this.horizonWeeks }, (_, i) => sumTerms(list, i + 1));
     this.tracked = {
       d,
-      use: new Map(this.data.materials.map((m) => [m.code, weeks.map((t) => this.sumUse(m.code, t, d))])),
-      load: new Map(this.data.workCenters.map((w) => [w.code, weeks.map((t) => this.sumLoad(w.code, t, d))])),
+      terms,
+      use: new Map(this.data.materials.map((m) => [m.code, weekly(terms.use.get(m.code))])),
+      load: new Map(this.data.workCenters.map((w) => [w.code, weekly(terms.load.get(w.code))])),
+      used: new Map([...terms.used].map(([product, list]) => [product, weekly(list)])),
     };
   }
 
@@ -116,14 +133,9 @@ export class PlanRecompute {
   makeChanged(product: string, week: number): void {
     const tracked = this.tracked;
     if (!tracked) return;
-    for (const m of this.directMaterials.get(product) ?? []) tracked.use.get(m)![week - 1] = this.sumUse(m, week, tracked.d);
-    for (const w of this.load.get(product)?.keys() ?? []) tracked.load.get(w)![week - 1] = this.sumLoad(w, week, tracked.d);
-  }
-
-  private sumUse(material: string, week: number, d: PlanDecisions): number {
-    let use = 0;
-    for (const e of this.usersOf.get(material) ?? []) use += e.use * (d.make.get(e.parent)?.[week - 1] ?? 0);
-    return use;
+    for (const m of this.directMaterials.get(product) ?? []) tracked.use.get(m)![week - 1] = sumTerms(tracked.terms.use.get(m), week);
+    for (const w of this.load.get(product)?.keys() ?? []) tracked.load.get(w)![week - 1] = sumTerms(tracked.terms.load.get(w), week);
+    for (const c of this.directComponents.get(product) ?? []) tracked.used.get(c)![week - 1] = sumTerms(tracked.terms.used.get(c), week);
   }
 
   private sumLoad(workCenter: string, week: number, d: PlanDecisions): number {
@@ -182,12 +194,13 @@ export class PlanRecompute {
     const dem = this.demand.get(product)!;
     const make = d.make.get(product) ?? [];
     const sell = d.sell.get(product) ?? [];
-    const parents = (this.parentsOf.get(product) ?? []).map((e) => ({ use: e.use, make: d.make.get(e.parent) }));
+    const kept = this.tracked?.d === d ? (this.tracked.used.get(product) ?? null) : null;
+    const parents = kept || this.tracked?.d === d ? [] : (this.parentsOf.get(product) ?? []).map((e) => ({ use: e.use, make: d.make.get(e.parent) }));
     let net = p.openingStock;
     let latePrev = 0;
     for (let t = 1; t <= this.horizonWeeks; t++) {
       const m = make[t - 1] ?? 0;
-      let used = 0;
+      let used = kept ? kept[t - 1] : 0;
       for (const e of parents) used += e.use * (e.make?.[t - 1] ?? 0);
       // what is physically on hand this week after use in parents; forecast is served from it as
       // the plan says (even while firm orders wait, as the LP may choose), but never from goods
@@ -334,4 +347,11 @@ export class PlanRecompute {
   material(code: string): Material {
     return this.materials.get(code)!;
   }
+}
+
+/** Σ factor × make[week − 1] over the terms, in their order (0 for none) */
+function sumTerms(terms: Term[] | undefined, week: number): number {
+  let a = 0;
+  for (const e of terms ?? []) a += e.factor * (e.make?.[week - 1] ?? 0);
+  return a;
 }
