@@ -60,7 +60,26 @@ export function explainUnmetOrders(
       .sort((a, b) => a.week - b.week || a.ref.localeCompare(b.ref));
     if (all.length === 0) continue;
     const lateBy = new Map((linesOf.get(p.code) ?? []).map((l) => [l.week, l.late]));
-    const cum = (list: typeof all, t: number) => list.filter((o) => o.week <= t).reduce((a, o) => a + o.qty, 0);
+    // ordered quantity due up to week t: the list is sorted by week, so these orders are a prefix
+    // of it; running sums in list order (the same additions as summing that prefix)
+    const prefixSums = new Map<typeof all, { weeks: number[]; sums: number[] }>();
+    const cum = (list: typeof all, t: number) => {
+      let p = prefixSums.get(list);
+      if (!p) {
+        const sums = [0];
+        for (const o of list) sums.push(sums[sums.length - 1] + o.qty);
+        prefixSums.set(list, (p = { weeks: list.map((o) => o.week), sums }));
+      }
+      // k = number of orders due by week t (binary search for the first one due later)
+      let lo = 0;
+      let hi = p.weeks.length;
+      while (lo < hi) {
+        const mid = (lo + hi) >> 1;
+        if (p.weeks[mid] <= t) lo = mid + 1;
+        else hi = mid;
+      }
+      return p.sums[lo];
+    };
     const others = all.filter((o) => !o.mustShip);
     const must = all.filter((o) => o.mustShip);
     // the backlog belongs to ordinary orders first; must-ship orders carry only what exceeds them
