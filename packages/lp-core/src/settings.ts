@@ -74,7 +74,7 @@ export const defaultIpmSettings: Readonly<IpmSettings> = Object.freeze({
   regDual: 1e-10,
   pivotTolerance: 1e-12,
   stepToBoundary: 0.9995,
-  maxCorrectors: 2,
+  maxCorrectors: 4,
   denseColumnRatio: 0.3,
   denseColumnMin: 100,
   maxDenseColumns: 40,
