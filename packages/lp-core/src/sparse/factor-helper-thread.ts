@@ -28,9 +28,9 @@ parentPort.on('message', (msg) => {
     c.work = {
       relmap: new Int32Array(c.n),
       tmp: new Float64Array(c.maxRows),
-      tmp2: new Float64Array(c.maxRows),
       rel: new Int32Array(c.maxRows),
       diag: new Float64Array(c.n),
+      pack: new Float64Array(2 * c.maxRows),
     };
     c.push.head = new Int32Array(c.count);
     c.push.linkCount = 0;

@@ -40,7 +40,7 @@ export function warmUpKernel(): void {
   warmed = true;
   const w = warmUpCase();
   const { S, count, maxRows, n } = w;
-  const W: KernelWork = { relmap: new Int32Array(n), tmp: new Float64Array(maxRows), tmp2: new Float64Array(maxRows), rel: new Int32Array(maxRows), diag: new Float64Array(n) };
+  const W: KernelWork = { relmap: new Int32Array(n), tmp: new Float64Array(maxRows), rel: new Int32Array(maxRows), diag: new Float64Array(n), pack: new Float64Array(2 * maxRows) };
   const opts: KernelOptions = { pivotTolerance: 1e-12, dynamicRegularisation: true, bigPivot: 1e128, sign: null, deadline: Infinity };
   const out = new Int32Array(5);
   const [firstTop] = w.topRange;

@@ -73,9 +73,10 @@ export interface KernelCall {
 export interface KernelWork {
   relmap: Int32Array;
   tmp: Float64Array;
-  tmp2: Float64Array;
   rel: Int32Array;
   diag: Float64Array;
+  /** two packed columns of multipliers, 2 × the widest supernode */
+  pack: Float64Array;
 }
 
 export interface KernelOptions {
@@ -90,7 +91,7 @@ export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCal
   /** columns per panel of the dense block factorisation */
   const PANEL = 32;
   const { sup, snode, rowPtr, rows, blockPtr, Lp, Li, Ax, Lx, D, next, nextRow } = S;
-  const { relmap, tmp, tmp2, rel, diag } = W;
+  const { relmap, tmp, rel, diag, pack } = W;
   const { pivotTolerance, dynamicRegularisation, bigPivot, sign, deadline } = opts;
   const { ranges, top, deferred, head, assemble, factor, target: T, targetPtr } = call;
   const rangeCount = ranges.length / 2;
@@ -173,54 +174,68 @@ export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCal
           }
         }
       } else {
-        // wide descendant: two target columns at a time, so each value of d's block loaded
-        // serves two multiply–adds (tmp for column t, tmp2 for column t + 1)
+        // wide descendant: two target columns (t, t + 1) at a time. Their multipliers
+        // L(t, k)·D(k) and L(t + 1, k)·D(k) are packed side by side; then four rows of d's
+        // block at a time are multiplied by them, the eight sums held in registers over all k
+        // and subtracted from the target once.
         let t = start;
         for (; t + 1 < end; t += 2) {
-          tmp.fill(0, t, nrd);
-          tmp2.fill(0, t + 1, nrd);
-          let k = 0;
-          for (; k + 3 < wd; k += 4) {
-            const b0 = offd + k * nrd;
-            const b1 = b0 + nrd;
-            const b2 = b1 + nrd;
-            const b3 = b2 + nrd;
-            const e0 = D[fd + k];
-            const e1 = D[fd + k + 1];
-            const e2 = D[fd + k + 2];
-            const e3 = D[fd + k + 3];
-            const a0 = Lx[b0 + t] * e0;
-            const a1 = Lx[b1 + t] * e1;
-            const a2 = Lx[b2 + t] * e2;
-            const a3 = Lx[b3 + t] * e3;
-            const c0 = Lx[b0 + t + 1] * e0;
-            const c1 = Lx[b1 + t + 1] * e1;
-            const c2 = Lx[b2 + t + 1] * e2;
-            const c3 = Lx[b3 + t + 1] * e3;
-            tmp[t] += Lx[b0 + t] * a0 + Lx[b1 + t] * a1 + Lx[b2 + t] * a2 + Lx[b3 + t] * a3;
-            for (let r = t + 1; r < nrd; r++) {
-              const l0 = Lx[b0 + r];
-              const l1 = Lx[b1 + r];
-              const l2 = Lx[b2 + r];
-              const l3 = Lx[b3 + r];
-              tmp[r] += l0 * a0 + l1 * a1 + l2 * a2 + l3 * a3;
-              tmp2[r] += l0 * c0 + l1 * c1 + l2 * c2 + l3 * c3;
-            }
-          }
-          for (; k < wd; k++) {
-            const b0 = offd + k * nrd;
-            const a0 = Lx[b0 + t] * D[fd + k];
-            const c0 = Lx[b0 + t + 1] * D[fd + k];
-            tmp[t] += Lx[b0 + t] * a0;
-            for (let r = t + 1; r < nrd; r++) {
-              tmp[r] += Lx[b0 + r] * a0;
-              tmp2[r] += Lx[b0 + r] * c0;
-            }
+          for (let k = 0, b = offd; k < wd; k++, b += nrd) {
+            const e = D[fd + k];
+            pack[2 * k] = Lx[b + t] * e;
+            pack[2 * k + 1] = Lx[b + t + 1] * e;
           }
           const cbase = off + (rows[rd0 + t] - f) * nrs;
-          for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= tmp[r];
           const cbase2 = off + (rows[rd0 + t + 1] - f) * nrs;
-          for (let r = t + 1; r < nrd; r++) T[cbase2 + rel[r]] -= tmp2[r];
+          let d0 = 0;
+          for (let k = 0, b = offd + t; k < wd; k++, b += nrd) d0 += Lx[b] * pack[2 * k];
+          T[cbase + rel[t]] -= d0;
+          let r = t + 1;
+          for (; r + 3 < nrd; r += 4) {
+            let a00 = 0;
+            let a01 = 0;
+            let a10 = 0;
+            let a11 = 0;
+            let a20 = 0;
+            let a21 = 0;
+            let a30 = 0;
+            let a31 = 0;
+            for (let k = 0, b = offd + r; k < wd; k++, b += nrd) {
+              const x0 = pack[2 * k];
+              const x1 = pack[2 * k + 1];
+              const l0 = Lx[b];
+              const l1 = Lx[b + 1];
+              const l2 = Lx[b + 2];
+              const l3 = Lx[b + 3];
+              a00 += l0 * x0;
+              a01 += l0 * x1;
+              a10 += l1 * x0;
+              a11 += l1 * x1;
+              a20 += l2 * x0;
+              a21 += l2 * x1;
+              a30 += l3 * x0;
+              a31 += l3 * x1;
+            }
+            T[cbase + rel[r]] -= a00;
+            T[cbase2 + rel[r]] -= a01;
+            T[cbase + rel[r + 1]] -= a10;
+            T[cbase2 + rel[r + 1]] -= a11;
+            T[cbase + rel[r + 2]] -= a20;
+            T[cbase2 + rel[r + 2]] -= a21;
+            T[cbase + rel[r + 3]] -= a30;
+            T[cbase2 + rel[r + 3]] -= a31;
+          }
+          for (; r < nrd; r++) {
+            let a0 = 0;
+            let a1 = 0;
+            for (let k = 0, b = offd + r; k < wd; k++, b += nrd) {
+              const l = Lx[b];
+              a0 += l * pack[2 * k];
+              a1 += l * pack[2 * k + 1];
+            }
+            T[cbase + rel[r]] -= a0;
+            T[cbase2 + rel[r]] -= a1;
+          }
         }
         for (; t < end; t++) {
           tmp.fill(0, t, nrd);

@@ -84,9 +84,10 @@ export class SupernodalLdl {
     this.W = {
       relmap: new Int32Array(n),
       tmp: new Float64Array(maxRows),
-      tmp2: new Float64Array(maxRows),
+     
       rel: new Int32Array(maxRows),
       diag: new Float64Array(n),
+      pack: new Float64Array(2 * maxRows),
     };
     this.tmp = this.W.tmp;
     const onLx = { target: this.Lx, targetPtr: this.S.blockPtr };
