@@ -242,9 +242,32 @@ export class SupernodalLdl {
       const nrs = rowPtr[s + 1] - r0;
       const off = blockPtr[s];
       if (nrs > ws) {
-        // rows below: gather once, then one dot product per column
+        // rows below: gather once, then dot products, four columns at a time (four independent
+        // sums share each gathered value)
         for (let r = ws; r < nrs; r++) tmp[r] = x[rows[r0 + r]];
-        for (let k = 0; k < ws; k++) {
+        let k = 0;
+        for (; k + 3 < ws; k += 4) {
+          const b0 = off + k * nrs;
+          const b1 = b0 + nrs;
+          const b2 = b1 + nrs;
+          const b3 = b2 + nrs;
+          let t0 = 0;
+          let t1 = 0;
+          let t2 = 0;
+          let t3 = 0;
+          for (let r = ws; r < nrs; r++) {
+            const v = tmp[r];
+            t0 += Lx[b0 + r] * v;
+            t1 += Lx[b1 + r] * v;
+            t2 += Lx[b2 + r] * v;
+            t3 += Lx[b3 + r] * v;
+          }
+          x[f + k] -= t0;
+          x[f + k + 1] -= t1;
+          x[f + k + 2] -= t2;
+          x[f + k + 3] -= t3;
+        }
+        for (; k < ws; k++) {
           const kb = off + k * nrs;
           let t = 0;
           for (let r = ws; r < nrs; r++) t += Lx[kb + r] * tmp[r];
