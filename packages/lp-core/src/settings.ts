@@ -78,7 +78,7 @@ export const defaultIpmSettings: Readonly<IpmSettings> = Object.freeze({
   denseColumnRatio: 0.3,
   denseColumnMin: 100,
   maxDenseColumns: 40,
-  refinementSteps: 1,
+  refinementSteps: 3,
   maxFactorMegabytes: 1536,
   ordering: 'auto',
   parallelFactorisation: false,
