@@ -7,7 +7,7 @@
  */
 import { availableParallelism } from 'node:os';
 import { describe, expect, it } from 'vitest';
-import { SymmetricFactorisation } from '../src/sparse/symmetric-factorisation';
+import { SymmetricFactorisation, upperPattern } from '../src/sparse/symmetric-factorisation';
 import { splitSubtrees } from '../src/sparse/subtree-split';
 import { supernodalSymbolic } from '../src/sparse/supernodal-symbolic';
 
@@ -62,15 +62,9 @@ describe('two-thread supernodal factorisation (3-D grid Laplacian, 18³ unknowns
   it('splits the elimination tree into two halves of nearly equal work and a top', () => {
     const F = factorisation(true, vals);
     expect(F.flops).toBeGreaterThan(2e7);
-    const { Cp, Ci } = F as unknown as { Cp: Int32Array; Ci: Int32Array };
     // the split is computed on the same supernodal structure the factorisation uses
-    const upperCp = new Int32Array(n + 1);
-    for (let p = 0; p < Ci.length; p++) upperCp[Ci[p] + 1]++;
-    for (let j = 0; j < n; j++) upperCp[j + 1] += upperCp[j];
-    const fill = upperCp.slice(0, n);
-    const upperCi = new Int32Array(Ci.length);
-    for (let j = 0; j < n; j++) for (let p = Cp[j]; p < Cp[j + 1]; p++) upperCi[fill[Ci[p]]++] = j;
-    const split = splitSubtrees(supernodalSymbolic(n, upperCp, upperCi));
+    const upper = upperPattern(n, F.Cp, F.Ci);
+    const split = splitSubtrees(supernodalSymbolic(n, upper.Cp, upper.Ci));
     expect(split).not.toBeNull();
     const { first, second, top } = split!.shares;
     expect(first + second + top).toBeCloseTo(1, 12);

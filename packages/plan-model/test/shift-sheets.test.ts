@@ -11,6 +11,14 @@ import type { ShiftSheet, ShiftSheetSettings } from '../src/shift-sheets/shift-s
 import { generatePlant, type PlantSize } from './support/generate-plant';
 import { solveUnderTest, solverName } from './support/solver';
 
+/** Hand-worked cases: a work center at full efficiency, no overtime, on the given shift pattern. */
+const workCenterOn =
+  (shiftPattern: { shiftsPerDay: number; hoursPerShift: number; daysPerWeek: number; shiftStarts: string[] }) =>
+  (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern, exceptions: [] });
+
+/** Hand-worked cases: a finished product with no cost, stock or batch rules. */
+const plainProduct = (code: string) => ({ code, name: code, unit: 'pcs', kind: 'finished' as const, price: 1, safetyStock: 0, batchMultiple: 1, openingStock: 0, latePenalty: 0 });
+
 async function approvedPlan(seed: number, size: PlantSize, whole: boolean): Promise<{ data: PlanningData; plan: Plan }> {
   const data = generatePlant(seed, size);
   const built = buildModel(data, { horizonWeeks: size.weeks });
@@ -213,8 +221,8 @@ describe('shift sheets: work a week cannot finish is carried over, ahead of the 
   // 10 units (20 h) are left. Week 2: those 10 units run first on WC-B (Mon, Tue, Wed to
   // 11:00), and Q (due in week 2, ready Monday 07:00) runs after them, Wed 11:00–15:00.
   const pattern = { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] };
-  const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
-  const item = (code: string) => ({ code, name: code, unit: 'pcs', kind: 'finished' as const, price: 1, safetyStock: 0, batchMultiple: 1, openingStock: 0, latePenalty: 0 });
+  const wc = workCenterOn(pattern);
+  const item = plainProduct;
   const data: PlanningData = {
     plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
     weeks: [{ index: 1, startDate: '2027-01-04' }, { index: 2, startDate: '2027-01-11' }],
@@ -265,7 +273,7 @@ describe('shift sheets: a job without setup that does not fit the rest of a shif
     // Step 10 fills WC-A's Monday shift (8 × 1 h); step 20 on WC-B is released at 15:00, when
     // WC-B's Monday overtime (30 min) cannot hold one 1 h unit, so the job moves to Tuesday.
     const pattern = { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] };
-    const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
+    const wc = workCenterOn(pattern);
     const data: PlanningData = {
       plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
       weeks: [{ index: 1, startDate: '2027-01-04' }],
@@ -302,7 +310,7 @@ describe('shift sheets: transfer batches (overlapping operations)', () => {
   // sublots: Trietsch & Baker 1993, Basic techniques for lot streaming, Operations Research
   // 41(6), from memory); with the whole quantity at once it is Q·p1 + Q·p2.
   const pattern = { shiftsPerDay: 1, hoursPerShift: 12, daysPerWeek: 5, shiftStarts: ['06:00'] };
-  const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
+  const wc = workCenterOn(pattern);
   const twoSteps = (p1: number, p2: number): PlanningData => ({
     plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
     weeks: [{ index: 1, startDate: '2027-01-04' }],
@@ -348,8 +356,8 @@ describe('shift sheets: non-delay dispatching', () => {
     // P1 (due first) runs 8 h on WC-A, then 1 h on WC-B; P2 (no order) runs 8 h on WC-B only.
     // WC-B can start P2 on Monday 07:00; P1 reaches WC-B only at Monday 15:00, the end of its shift.
     const pattern = { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] };
-    const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
-    const product = (code: string) => ({ code, name: code, unit: 'pcs', kind: 'finished' as const, price: 1, safetyStock: 0, batchMultiple: 1, openingStock: 0, latePenalty: 0 });
+    const wc = workCenterOn(pattern);
+    const product = plainProduct;
     const data: PlanningData = {
       plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
       weeks: [{ index: 1, startDate: '2027-01-04' }],
@@ -375,8 +383,8 @@ describe('shift sheets: non-delay dispatching', () => {
 
 describe('shift sheets: dispatch rules for jobs that could start at the same time', () => {
   const pattern = { shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] };
-  const wc = (code: string) => ({ code, name: code, efficiency: 1, overtimeCapHoursPerWeek: null, overtimeCostPerHour: 0, shiftPattern: pattern, exceptions: [] });
-  const product = (code: string) => ({ code, name: code, unit: 'pcs', kind: 'finished' as const, price: 1, safetyStock: 0, batchMultiple: 1, openingStock: 0, latePenalty: 0 });
+  const wc = workCenterOn(pattern);
+  const product = plainProduct;
   const week = (routings: PlanningData['routings'], make: Record<string, number>): { data: PlanningData; plan: Plan } => ({
     data: {
       plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },

@@ -113,7 +113,7 @@ export class SymmetricFactorisation {
       if (e >= this.Cp[k] && e < this.Cp[k + 1] && this.Ci[e] === k) this.diagSlot[this.perm[k]] = e;
     }
     if (kernel === 'supernodal') {
-      const upper = up0Upper(n, this.Cp, this.Ci);
+      const upper = upperPattern(n, this.Cp, this.Ci);
       const sym = supernodalSymbolic(n, upper.Cp, upper.Ci);
       if (sym.nnzL > maxEntries) throw new FactorTooLargeError(sym.nnzL, maxEntries);
       this.supernodal = { sym, F: new SupernodalLdl(sym, this.Cp, this.Ci, this.Cx, parallel) };
@@ -179,7 +179,7 @@ export class SymmetricFactorisation {
 }
 
 /** the upper-triangle pattern (CSC) of a lower-triangle pattern, i.e. its transpose */
-function up0Upper(n: number, Lp: Int32Array, Li: Int32Array): { Cp: Int32Array; Ci: Int32Array } {
+export function upperPattern(n: number, Lp: Int32Array, Li: Int32Array): { Cp: Int32Array; Ci: Int32Array } {
   const Cp = new Int32Array(n + 1);
   for (let p = 0; p < Li.length; p++) Cp[Li[p] + 1]++;
   for (let k = 0; k < n; k++) Cp[k + 1] += Cp[k];
