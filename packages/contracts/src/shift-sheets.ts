@@ -115,6 +115,12 @@ export const sheetWorkCenterSchema = z.object({
   plannedMinutes: z.number(),
   availableMinutes: z.number(),
   overtimeMinutes: z.number(),
+  /**
+   * overtime hours the plan counts on at this work center in this week that find no room after
+   * the day's last shift (the next shift starts first): on no sheet; the supervisor decides
+   * where they go (0 when all of the plan's overtime is on the sheets)
+   */
+  overtimeNotPlacedHours: z.number().nonnegative(),
 });
 export type SheetWorkCenter = z.infer<typeof sheetWorkCenterSchema>;
 

@@ -268,6 +268,54 @@ describe('shift sheets: work a week cannot finish is carried over, ahead of the 
   });
 });
 
+describe('shift sheets: overtime the plan counts on that finds no room after the last shift', () => {
+  // Worked by hand from the rule that overtime goes after each working day's last shift, as far
+  // as the next shift allows (shift-windows.ts). WC-A: three shifts of 7.5 h from 06:00, seven
+  // days (06:00–13:30, 13:30–21:00, 21:00–04:30): after each day's last shift 04:30–06:00 =
+  // 1.5 h of room, on six days (the seventh day's last shift ends after the week), so 9 h of the
+  // plan's 12.5 h fit and 3.5 h do not. WC-B: three 8 h shifts from 06:00, seven days, round the
+  // clock: none of its 2 h fits. WC-C: one 8 h shift from 07:00, five days: its 4 h all fit.
+  const item = plainProduct;
+  const data: PlanningData = {
+    plant: { currency: 'EUR', weekStart: 'monday', maxWeeklyHours: 48, minDailyRestHours: 11, overtimePremium: 1.5 },
+    weeks: [{ index: 1, startDate: '2027-01-04' }],
+    products: [item('P')],
+    bom: [],
+    routings: [{ product: 'P', sequence: 10, workCenter: 'WC-A', hoursPerUnit: 1, setupHours: 0 }],
+    workCenters: [
+      workCenterOn({ shiftsPerDay: 3, hoursPerShift: 7.5, daysPerWeek: 7, shiftStarts: ['06:00', '13:30', '21:00'] })('WC-A'),
+      workCenterOn({ shiftsPerDay: 3, hoursPerShift: 8, daysPerWeek: 7, shiftStarts: ['06:00', '14:00', '22:00'] })('WC-B'),
+      workCenterOn({ shiftsPerDay: 1, hoursPerShift: 8, daysPerWeek: 5, shiftStarts: ['07:00'] })('WC-C'),
+    ],
+    materials: [],
+    demand: [],
+  } as PlanningData;
+  const plan = {
+    horizonWeeks: 1,
+    outcome: 'optimal',
+    products: [{ product: 'P', week: 1, make: 10 }],
+    workCenters: [
+      { workCenter: 'WC-A', week: 1, overtimeHours: 12.5 },
+      { workCenter: 'WC-B', week: 1, overtimeHours: 2 },
+      { workCenter: 'WC-C', week: 1, overtimeHours: 4 },
+    ],
+  } as unknown as Plan;
+
+  it('lists 3.5 h at WC-A and 2 h at WC-B as not placed, nothing at WC-C; the placed overtime is on the shifts', () => {
+    const r = buildShiftSheets(data, plan);
+    expect(r.overtimeNotPlaced.map((o) => ({ ...o, hours: Number(o.hours.toFixed(9)) }))).toEqual([
+      { workCenter: 'WC-A', week: 1, hours: 3.5 },
+      { workCenter: 'WC-B', week: 1, hours: 2 },
+    ]);
+    const placed = (code: string, overtime: number) => shiftWindows(data.workCenters.find((w) => w.code === code)!, 1, overtime).windows.reduce((a, w) => a + (w.overtimeEnd - w.end), 0);
+    expect(placed('WC-A', 12.5)).toBeCloseTo(9 * 60, 9);
+    expect(placed('WC-B', 2)).toBe(0);
+    expect(placed('WC-C', 4)).toBeCloseTo(4 * 60, 9);
+    // P's 10 h run on WC-A from Monday 06:00 and need none of the overtime
+    expect(r.sheets.flatMap((s) => s.jobs.map((j) => `${s.workCenter} ${j.quantity} ${j.start.slice(5)}–${j.end.slice(11)}${j.overtime ? ' OT' : ''}`))).toEqual(['WC-A 7 01-04T06:00–13:00', 'WC-A 3 01-04T13:30–16:30']);
+  });
+});
+
 describe('shift sheets: a job without setup that does not fit the rest of a shift', () => {
   it('starts in the shift where its first unit runs, not where the previous step ended', () => {
     // Step 10 fills WC-A's Monday shift (8 × 1 h); step 20 on WC-B is released at 15:00, when

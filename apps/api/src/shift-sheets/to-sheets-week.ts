@@ -91,6 +91,7 @@ export function toSheetsWeek(parts: SheetsWeekParts): ShiftSheetsWeek {
       plannedMinutes: sheets.reduce((a, s) => a + s.plannedMinutes, 0),
       availableMinutes: openShifts.reduce((a, w) => a + (w.endMinute - w.startMinute), 0),
       overtimeMinutes: openShifts.reduce((a, w) => a + (w.overtimeEndMinute - w.endMinute), 0),
+      overtimeNotPlacedHours: result.overtimeNotPlaced.filter((o) => o.workCenter === wc.code && o.week === weekIndex).reduce((a, o) => a + o.hours, 0),
     };
   });
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { carriedFromWords, formatQuantityUnit, formatWeekOf } from './sheet-words';
+import { carriedFromWords, formatQuantityUnit, formatWeekOf, overtimeNotPlacedWords, showsOvertimeNotPlaced } from './sheet-words';
 
 describe('sheet words', () => {
   // English number agreement: a unit spelt as a word is singular for exactly one and plural
@@ -25,5 +25,12 @@ describe('sheet words', () => {
   it('names the plan week a carried-over job belongs to by its first day: 2026-03-02 is "week of 2 Mar" (calendar fact)', () => {
     expect(carriedFromWords('2026-03-02')).toBe('carried over from week of 2 Mar');
     expect(carriedFromWords('2026-12-28')).toBe('carried over from week of 28 Dec');
+  });
+  it('says overtime that found no room in hours and minutes: 3.5 h is "3 h 30 min", 0.25 h is "15 min" (arithmetic, worked by hand); nothing under half a minute', () => {
+    expect(overtimeNotPlacedWords(3.5, 'CNC')).toBe('The plan counts on 3 h 30 min of overtime at CNC this week that does not fit after the last shift; the supervisor decides where it goes.');
+    expect(overtimeNotPlacedWords(0.25, 'W1')).toContain(' 15 min of overtime at W1 ');
+    expect(showsOvertimeNotPlaced(0)).toBe(false);
+    expect(showsOvertimeNotPlaced(0.005)).toBe(false);
+    expect(showsOvertimeNotPlaced(1 / 60)).toBe(true);
   });
 });

@@ -52,3 +52,14 @@ export const sheetPlanStateWords: Partial<Record<PlanState, string>> = { approve
 
 /** "Shift 1" with its clock times. */
 export const shiftLabel = (shift: number, start: string, end: string): string => `Shift ${shift}, ${clockOf(start)}–${clockOf(end)}`;
+
+/**
+ * Overtime the plan counts on that no sheet holds, in plain words: "The plan counts on 3 h 30 min
+ * of overtime at CNC this week that does not fit after the last shift; the supervisor decides
+ * where it goes."
+ */
+export const overtimeNotPlacedWords = (hours: number, workCenter: string): string =>
+  `The plan counts on ${formatMinutes(hours * 60)} of overtime at ${workCenter} this week that does not fit after the last shift; the supervisor decides where it goes.`;
+
+/** Whether unplaced overtime is worth a line: at least half a minute (it is shown to the minute). */
+export const showsOvertimeNotPlaced = (hours: number): boolean => hours * 60 >= 0.5;

@@ -38,14 +38,14 @@ const week: ShiftSheetsWeek = {
   workCenterScope: 'all',
   workCenters: [
     {
-      code: 'W1', name: 'First', plannedMinutes: 1000, availableMinutes: 960, overtimeMinutes: 60,
+      code: 'W1', name: 'First', plannedMinutes: 1000, availableMinutes: 960, overtimeMinutes: 60, overtimeNotPlacedHours: 0,
       openShifts: [0, 1].map((d) => ({ date: `2027-01-0${4 + d}`, weekday: 'monday', shift: 1, startMinute: d * 1440 + 420, endMinute: d * 1440 + 900, overtimeEndMinute: d * 1440 + (d === 1 ? 960 : 900) })),
       days: [
         { date: '2027-01-04', weekday: 'monday', shifts: [sheet(0, [job({})])] },
         { date: '2027-01-05', weekday: 'tuesday', shifts: [sheet(1, [job({ product: 'P-2', productName: 'Part two', overtime: true, setupStart: '2027-01-05T14:00', start: '2027-01-05T14:00', end: '2027-01-05T15:40', setupStartMinute: 2280, startMinute: 2280, endMinute: 2380, setupMinutes: 0 })], 60)] },
       ],
     },
-    { code: 'W2', name: 'Second', plannedMinutes: 0, availableMinutes: 480, overtimeMinutes: 0, openShifts: [], days: [] },
+    { code: 'W2', name: 'Second', plannedMinutes: 0, availableMinutes: 480, overtimeMinutes: 0, overtimeNotPlacedHours: 0, openShifts: [], days: [] },
   ],
   cautions: [{ kind: 'weekly_hours', workCenter: 'W1', shift: 1, limit: 48, actual: 52, message: 'First, shift 1, week 1: the crew is planned for 52.0 h, above the 48 h weekly limit. Check local labour law and agreements.', source: 'EU Working Time Directive 2003/88/EC, Art. 6' }],
   unscheduled: [],
@@ -82,6 +82,7 @@ describe('shift sheets for the floor', () => {
     expect(screen.getByRole('link', { name: 'Download PDF (A4)' })).toHaveAttribute('href', '/api/plans/7/shift-sheets.pdf?week=2027-01-04&paper=a4');
     expect(screen.getByRole('link', { name: 'Print W1' })).toHaveAttribute('href', '/print/shift-sheets/7?week=2027-01-04&workCenter=W1');
     expect(screen.queryAllByRole('textbox')).toHaveLength(0);
+    expect(screen.queryByText(/does not fit after the last shift/)).toBeNull();
     expect(api.requests.find((r) => r.path === '/api/plans/7/shift-sheets')?.search).toBe('?week=2027-01-04');
   });
 
@@ -106,6 +107,23 @@ describe('shift sheets for the floor', () => {
     view.unmount();
     renderApp('/print/shift-sheets/7?week=2027-01-04&workCenter=W1');
     expect(await screen.findByRole('region', { name: 'Sheet 1 of 1: W1, 2027-01-04, shift 1' }, firstLoad)).toHaveTextContent('Carried over from week of 28 Dec');
+  });
+
+  it('when the plan counts on overtime that found no room after the last shift, then the week page and the printed sheets of that work center say so in words, deferring to labour law', async () => {
+    // 3.5 h = 3 h 30 min (arithmetic, worked by hand)
+    const unplaced: ShiftSheetsWeek = { ...week, workCenters: [{ ...week.workCenters[0], overtimeNotPlacedHours: 3.5 }, week.workCenters[1]] };
+    sheetsApi({ 'GET /api/plans/7/shift-sheets': () => json(unplaced) });
+    const view = renderApp('/shift-sheets?plan=7&week=2027-01-04');
+    const note = await screen.findByRole('note', { name: 'Caution: Overtime not on the sheets: W1 First' }, firstLoad);
+    expect(note).toHaveTextContent('The plan counts on 3 h 30 min of overtime at W1 this week that does not fit after the last shift; the supervisor decides where it goes.');
+    expect(note).toHaveTextContent('fatigue risk');
+    expect(screen.getByRole('region', { name: 'Working time' })).toHaveTextContent('Local labour law, collective agreements and licensed practice take precedence');
+    expect(screen.queryByRole('note', { name: /Overtime not on the sheets: W2/ })).toBeNull();
+    view.unmount();
+    renderApp('/print/shift-sheets/7?week=2027-01-04&workCenter=W1');
+    const first = await screen.findByRole('region', { name: 'Sheet 1 of 2: W1, 2027-01-04, shift 1' }, firstLoad);
+    expect(first).toHaveTextContent('⚠ Overtime: The plan counts on 3 h 30 min of overtime at W1 this week that does not fit after the last shift; the supervisor decides where it goes.');
+    expect(screen.getByRole('region', { name: 'Sheet 2 of 2: W1, 2027-01-05, shift 1' })).toHaveTextContent('3 h 30 min of overtime at W1');
   });
 
   it('when the plan is not released, then the API’s reason is shown in words', async () => {

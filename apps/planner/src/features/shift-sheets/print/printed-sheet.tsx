@@ -1,5 +1,5 @@
 import type { CrewCaution, ShiftSheet, ShiftSheetsWeek } from '@millrace/contracts';
-import { carriedFromWords, clockOf, formatDay, formatMinutes, formatQuantityUnit, formatStamp, formatWeekOf, upperFirst } from '../sheet-words';
+import { carriedFromWords, clockOf, formatDay, formatMinutes, formatQuantityUnit, formatStamp, formatWeekOf, overtimeNotPlacedWords, showsOvertimeNotPlaced, upperFirst } from '../sheet-words';
 
 const cell = 'border border-black px-1 py-0.5 align-top';
 const blank = `${cell} h-9`;
@@ -41,6 +41,7 @@ export function PrintedSheet({
 }) {
   const plan = week.plan;
   const end = sheet.overtimeEnd ?? sheet.shiftEnd;
+  const notPlaced = week.workCenters.find((c) => c.code === sheet.workCenter)?.overtimeNotPlacedHours ?? 0;
   return (
     <section className="printed-sheet flex flex-col gap-1.5 text-black" aria-label={`Sheet ${number} of ${count}: ${sheet.workCenter}, ${sheet.date}, shift ${sheet.shift}`}>
       <div className="flex items-baseline justify-between border-b-2 border-black pb-0.5">
@@ -142,6 +143,11 @@ export function PrintedSheet({
             ⚠ Working time: {c.message}
           </p>
         ))}
+        {showsOvertimeNotPlaced(notPlaced) ? (
+          <p className="font-semibold">
+            ⚠ Overtime: {overtimeNotPlacedWords(notPlaced, sheet.workCenter)} It counts towards the crew’s working time.
+          </p>
+        ) : null}
         <p>{week.labourLawNote}</p>
         <p className="flex justify-between">
           <span>
