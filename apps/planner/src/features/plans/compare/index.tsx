@@ -36,6 +36,19 @@ function Picker({ label, value, onChange, options }: { label: string; value: num
 const cell = 'border border-line px-2 py-1.5';
 
 /** The A figure, the B figure and the signed change from A to B, as three cells of a row. */
+/** one header row's cells: the first `leftColumns` labels name rows (left), the rest are numbers (right) */
+function HeaderCells({ labels, leftColumns }: { labels: string[]; leftColumns: number }) {
+  return (
+    <>
+      {labels.map((h, i) => (
+        <th key={`${h}${i}`} scope="col" className={`${cell} ${i < leftColumns ? 'text-left' : 'text-right'}`}>
+          {h}
+        </th>
+      ))}
+    </>
+  );
+}
+
 function AbCells({ a, b, better }: { a: number; b: number; better?: 'up' | 'down' }) {
   return (
     <>
@@ -117,11 +130,7 @@ function Comparison({ c }: { c: PlanComparison }) {
         <caption className="mb-1 text-left font-semibold">Load per work center over the horizon</caption>
         <thead className="bg-race-50">
           <tr>
-            {['Work center', 'Load A (h)', 'Load B (h)', 'Change', 'Overtime A (h)', 'Overtime B (h)', 'Change', 'Peak % A', 'Peak % B', 'Binding weeks A', 'Binding weeks B'].map((h, i) => (
-              <th key={`${h}${i}`} scope="col" className={`${cell} ${i === 0 ? 'text-left' : 'text-right'}`}>
-                {h}
-              </th>
-            ))}
+            <HeaderCells labels={['Work center', 'Load A (h)', 'Load B (h)', 'Change', 'Overtime A (h)', 'Overtime B (h)', 'Change', 'Peak % A', 'Peak % B', 'Binding weeks A', 'Binding weeks B']} leftColumns={1} />
           </tr>
         </thead>
         <tbody>
@@ -164,11 +173,7 @@ function Comparison({ c }: { c: PlanComparison }) {
               <caption className="sr-only">Shortfall per firm order in A and B</caption>
               <thead className="sticky top-0 bg-race-50">
                 <tr>
-                  {['Order', 'Product', 'Week', 'Short in A', 'Short in B', 'Change'].map((h, i) => (
-                    <th key={h} scope="col" className={`${cell} ${i < 2 ? 'text-left' : 'text-right'}`}>
-                      {h}
-                    </th>
-                  ))}
+                  <HeaderCells labels={['Order', 'Product', 'Week', 'Short in A', 'Short in B', 'Change']} leftColumns={2} />
                 </tr>
               </thead>
               <tbody>
@@ -199,11 +204,7 @@ function Comparison({ c }: { c: PlanComparison }) {
               <caption className="sr-only">Make, ship and late quantities that differ between A and B</caption>
               <thead className="sticky top-0 bg-race-50">
                 <tr>
-                  {['Product', 'Week', 'Make A', 'Make B', 'Change', 'Ship A', 'Ship B', 'Change', 'Late A', 'Late B', 'Change'].map((h, i) => (
-                    <th key={`${h}${i}`} scope="col" className={`${cell} ${i === 0 ? 'text-left' : 'text-right'}`}>
-                      {h}
-                    </th>
-                  ))}
+                  <HeaderCells labels={['Product', 'Week', 'Make A', 'Make B', 'Change', 'Ship A', 'Ship B', 'Change', 'Late A', 'Late B', 'Change']} leftColumns={1} />
                 </tr>
               </thead>
               <tbody>
