@@ -1,15 +1,14 @@
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { personSchema, roles, shiftSheetsWeekSchema, type Person, type Role, type ShiftSheetsWeek } from '@millrace/contracts';
-import { closeSheetPrinters } from '../../src/shift-sheets/sheet-printer';
-import { SolverJobRunner } from '../../src/solver-jobs/solver-job-runner';
+import { personSchema, shiftSheetsWeekSchema, type Person, type Role, type ShiftSheetsWeek } from '@millrace/contracts';
 import { testPeople } from '../support/seed-people';
-import { FIRST_WEEK, WEEKS, seedSmallPlant, type SmallPlant } from '../support/small-plant';
-import { createTestContext, type TestAgent, type TestContext } from '../support/test-app';
+import { FIRST_WEEK, WEEKS, type SmallPlant } from '../support/small-plant';
+import type { TestAgent, TestContext } from '../support/test-app';
 import { planInState } from './sheet-plans';
+import { startPrintingContext, type PrintingContext } from './printing-context';
 
 /**
  * Floor leads' work centers (DESIGN.md, roles: a floor lead "sees and prints the shift sheets of
@@ -21,22 +20,18 @@ import { planInState } from './sheet-plans';
  * plant), filtered here by the assignment — never values from the sequencer itself.
  */
 let ctx: TestContext;
-let runner: SolverJobRunner;
+let printing: PrintingContext;
 let plant: SmallPlant;
-const agents = {} as Record<Role, TestAgent>;
+let agents: Record<Role, TestAgent>;
 let released: number;
 /** the supervisor's whole-plant view of the week with work on both work centers */
 let whole: ShiftSheetsWeek;
 const dir = mkdtempSync(join(tmpdir(), 'millrace-lead-sheets-'));
 
 beforeAll(async () => {
-  const plannerDist = process.env.PLANNER_DIST;
-  if (!plannerDist) throw new Error('These tests print the planner’s print view to PDF: set PLANNER_DIST to the built planner (npm run build -w apps/planner). The README test command sets it.');
-  ctx = await createTestContext({ config: { plannerDist: resolve(plannerDist) } });
-  for (const role of roles) agents[role] = await ctx.agentFor(role);
-  plant = await seedSmallPlant(agents.planner);
-  runner = new SolverJobRunner(ctx.dataSource, { pollMs: 100 });
-  runner.start();
+  printing = await startPrintingContext();
+  ({ ctx, agents } = printing);
+  plant = printing.plant;
   released = await planInState(agents, 'Lead sheets', FIRST_WEEK, 'released');
   const weeks = await Promise.all(WEEKS.map(async (w) => shiftSheetsWeekSchema.parse((await agents.supervisor.get(`/api/plans/${released}/shift-sheets?week=${w}`)).body)));
   const shiftsOf = (week: ShiftSheetsWeek, code: string) => week.workCenters.find((c) => c.code === code)!.days.reduce((a, d) => a + d.shifts.length, 0);
@@ -46,9 +41,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await closeSheetPrinters();
-  await runner?.stop();
-  await ctx?.close();
+  await printing?.close();
   rmSync(dir, { recursive: true, force: true });
 });
 

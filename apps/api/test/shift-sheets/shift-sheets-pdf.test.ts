@@ -1,14 +1,13 @@
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { roles, shiftSheetsWeekSchema, type Role, type ShiftSheetsWeek } from '@millrace/contracts';
-import { closeSheetPrinters } from '../../src/shift-sheets/sheet-printer';
-import { SolverJobRunner } from '../../src/solver-jobs/solver-job-runner';
-import { FIRST_WEEK, WEEKS, seedSmallPlant } from '../support/small-plant';
-import { createTestContext, type TestAgent, type TestContext } from '../support/test-app';
+import { shiftSheetsWeekSchema, type Role, type ShiftSheetsWeek } from '@millrace/contracts';
+import { FIRST_WEEK, WEEKS } from '../support/small-plant';
+import type { TestAgent } from '../support/test-app';
 import { planInState } from './sheet-plans';
+import { startPrintingContext, type PrintingContext } from './printing-context';
 
 /**
  * The printed sheets: the print view of the built planner (PLANNER_DIST) rendered to PDF by
@@ -17,22 +16,16 @@ import { planInState } from './sheet-plans';
  * shift. Paper sizes: A4 is 210 × 297 mm = 595 × 842 pt (ISO 216); Letter is 8.5 × 11 in =
  * 612 × 792 pt (ANSI); the sheets print landscape.
  */
-let ctx: TestContext;
-let runner: SolverJobRunner;
-const agents = {} as Record<Role, TestAgent>;
+let printing: PrintingContext;
+let agents: Record<Role, TestAgent>;
 let released: number;
 let approved: number;
 let week: ShiftSheetsWeek;
 const dir = mkdtempSync(join(tmpdir(), 'millrace-sheets-'));
 
 beforeAll(async () => {
-  const plannerDist = process.env.PLANNER_DIST;
-  if (!plannerDist) throw new Error('The PDF tests print the planner’s print view: set PLANNER_DIST to the built planner (npm run build -w apps/planner). The README test command sets it.');
-  ctx = await createTestContext({ config: { plannerDist: resolve(plannerDist) } });
-  for (const role of roles) agents[role] = await ctx.agentFor(role);
-  await seedSmallPlant(agents.planner);
-  runner = new SolverJobRunner(ctx.dataSource, { pollMs: 100 });
-  runner.start();
+  printing = await startPrintingContext();
+  ({ agents } = printing);
   released = await planInState(agents, 'Printed plan', FIRST_WEEK, 'released');
   approved = await planInState(agents, 'Approved, not released', FIRST_WEEK, 'approved');
   // the week with the most sheets
@@ -42,9 +35,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await closeSheetPrinters();
-  await runner?.stop();
-  await ctx?.close();
+  await printing?.close();
   if (!process.env.KEEP_SHEET_PDFS) rmSync(dir, { recursive: true, force: true });
 });
 
