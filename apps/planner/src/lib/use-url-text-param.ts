@@ -1,5 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
+import { withSearchParam } from './search-params';
 
 /**
  * Text kept in the URL's `?key=` (a search box). The input shows a local copy, so no keystroke is
@@ -23,15 +24,7 @@ export function useUrlTextParam(key: string): [string, (value: string) => void] 
   const update = (value: string) => {
     setText(value);
     written.current.add(value);
-    setParams(
-      (prev) => {
-        const next = new URLSearchParams(prev);
-        if (value) next.set(key, value);
-        else next.delete(key);
-        return next;
-      },
-      { replace: true },
-    );
+    setParams((prev) => withSearchParam(prev, key, value), { replace: true });
   };
 
   return [text, update];

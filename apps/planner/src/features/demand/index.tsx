@@ -16,6 +16,7 @@ import { useSaveDemand } from './api/save-demand';
 import { CellOrders } from './components/cell-orders';
 import { buildChanges, gridLines, pendingChanges, type GridLine } from './components/demand-edits';
 import { DemandGrid, type CellEdit, type GridNotice } from './components/demand-grid';
+import { withSearchParam } from '@/lib/search-params';
 
 /** Horizons offered (weeks). */
 const weekChoices = [4, 8, 13, 26] as const;
@@ -40,16 +41,7 @@ export function DemandPage({ canEdit }: { canEdit: boolean }) {
   const [orderRef, setOrderRef] = useState('');
   const [activeCell, setActiveCell] = useState<{ line: GridLine; week: number } | null>(null);
 
-  const setParam = (key: string, value: string) =>
-    setParams(
-      (prev) => {
-        const next = new URLSearchParams(prev);
-        if (value) next.set(key, value);
-        else next.delete(key);
-        return next;
-      },
-      { replace: true },
-    );
+  const setParam = (key: string, value: string) => setParams((prev) => withSearchParam(prev, key, value), { replace: true });
 
   const lines = useMemo(() => {
     const rows = demand.data?.rows ?? [];

@@ -11,6 +11,7 @@ import { usePlanComparison } from '../api/compare-plans';
 import { usePlans } from '../api/get-plans';
 import { Delta } from '../components/delta';
 import { formatMoney, planStateWords } from '../plan-words';
+import { withSearchParam } from '@/lib/search-params';
 
 const idOf = (raw: string | null) => (raw && /^\d+$/.test(raw) && Number(raw) > 0 ? Number(raw) : null);
 
@@ -235,16 +236,7 @@ export function PlanComparePage() {
   const b = idOf(params.get('b'));
   const plans = usePlans();
   const comparison = usePlanComparison(a, b);
-  const set = (key: 'a' | 'b', v: number | null) =>
-    setParams(
-      (prev) => {
-        const next = new URLSearchParams(prev);
-        if (v === null) next.delete(key);
-        else next.set(key, String(v));
-        return next;
-      },
-      { replace: true },
-    );
+  const set = (key: 'a' | 'b', v: number | null) => setParams((prev) => withSearchParam(prev, key, v === null ? null : String(v)), { replace: true });
   const options = (plans.data ?? [])
     .filter((p) => p.solveStatus === 'solved')
     .map((p) => ({ value: p.id, label: `#${p.id} ${p.name} (${planStateWords[p.state].label})` }));
