@@ -1,9 +1,11 @@
 /**
  * The two-thread supernodal factorisation (a helper worker thread on shared memory) against the
- * one-thread one, on a 3-D grid Laplacian big enough to be split. Checks: the residual of the
- * solve (‖M x − b‖ small relative to ‖b‖: a property of any correct factorisation, common
- * practice, no source), agreement with the one-thread factor, and the pivot reports of both
- * threads (zero pivots found in either half are reported, replaced pivots counted).
+ * one-thread one, on a 3-D grid Laplacian big enough to be split; after it the triangular solves
+ * run on both threads too (each half of the tree on its own thread, the top on the caller's).
+ * Checks: the residual of the solve (‖M x − b‖ small relative to ‖b‖: a property of any correct
+ * factorisation, common practice, no source), agreement with the one-thread factor and solve, and
+ * the pivot reports of both threads (zero pivots found in either half are reported, replaced
+ * pivots counted).
  */
 import { availableParallelism } from 'node:os';
 import { describe, expect, it } from 'vitest';
@@ -94,6 +96,8 @@ describe('two-thread supernodal factorisation (3-D grid Laplacian, 18³ unknowns
       for (let i = 0; i < n; i++) diff = Math.max(diff, Math.abs(x1[i] - x2[i]) / (1 + Math.abs(x1[i])));
       expect(diff).toBeLessThan(1e-12);
     }
+    // the helper answered every factorisation and solve (a failing helper is given up: one thread)
+    expect(two.threads).toBe(availableParallelism() >= 2 ? 2 : 1);
   });
 
   it('reports a zero pivot from either thread, and counts replaced pivots with dynamic regularisation', () => {

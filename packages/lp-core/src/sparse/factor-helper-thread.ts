@@ -12,6 +12,7 @@ import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { warmUpCase } from './kernel-warm-up';
 import { factorSupernodes, type KernelCall, type KernelOptions, type KernelShared } from './supernodal-kernel';
+import { backwardSolveRanges, forwardSolveRanges } from './supernodal-solve-kernel';
 
 /** contexts the helper keeps (one per live factorisation) */
 const KEPT_CONTEXTS = 4;
@@ -21,7 +22,36 @@ const STALLED_MS = 20000;
 export const HELPER_SOURCE = `
 const { parentPort } = require('node:worker_threads');
 const factorSupernodes = (${factorSupernodes.toString()});
+const forwardSolveRanges = (${forwardSolveRanges.toString()});
+const backwardSolveRanges = (${backwardSolveRanges.toString()});
 const contexts = new Map();
+// flags of a shared solve: [0] forward half done (seq, or −seq on failure), [1] top done (seq), [2] backward half done
+function solveHalf(c, seq) {
+  const v = c.solve;
+  const S = c.S;
+  const f = v.flags;
+  try {
+    forwardSolveRanges(S.sup, S.rowPtr, S.rows, S.blockPtr, S.Lx, S.D, v.x, c.work.tmp, c.half.ranges, v.topOut, v.isTopCol);
+  } catch (err) {
+    Atomics.store(f, 0, -seq);
+    Atomics.notify(f, 0);
+    return;
+  }
+  Atomics.store(f, 0, seq);
+  Atomics.notify(f, 0);
+  for (;;) {
+    const cur = Atomics.load(f, 1);
+    if (cur === seq) break;
+    if (Atomics.wait(f, 1, cur, ${STALLED_MS}) === 'timed-out' && Atomics.load(f, 1) !== seq) return;
+  }
+  try {
+    backwardSolveRanges(S.sup, S.rowPtr, S.rows, S.blockPtr, S.Lx, v.x, c.work.tmp, c.half.ranges);
+    Atomics.store(f, 2, seq);
+  } catch (err) {
+    Atomics.store(f, 2, -seq);
+  }
+  Atomics.notify(f, 2);
+}
 parentPort.on('message', (msg) => {
   if (msg.type === 'setup') {
     const c = msg.context;
@@ -46,6 +76,7 @@ parentPort.on('message', (msg) => {
   }
   const c = contexts.get(msg.id);
   if (!c) return;
+  if (msg.type === 'solve') return solveHalf(c, msg.seq);
   try {
     // its half, then its half's updates into the top, kept in its own buffer
     if (factorSupernodes(c.S, c.work, c.half, msg.opts, c.out) === 0) {
@@ -74,6 +105,17 @@ export interface HelperContext {
   half: KernelCall;
   /** its half's updates into the top, into a buffer of its own (its list heads are made in the helper) */
   push: Omit<KernelCall, 'head' | 'linkCount'>;
+  /** for shared solves: the vector, the helper's contributions to the top's rows, and the flags */
+  solve?: SharedSolve;
+}
+
+/** the shared memory of a two-thread triangular solve (see supernodal-solve-kernel.ts) */
+export interface SharedSolve {
+  x: Float64Array;
+  topOut: Float64Array;
+  isTopCol: Uint8Array;
+  /** [0] the helper's forward half done, [1] the top done, [2] the helper's backward half done */
+  flags: Int32Array;
 }
 
 let helper: Worker | null | undefined;
@@ -115,6 +157,7 @@ export class HelperLink {
   private readonly done = new Int32Array(new SharedArrayBuffer(4));
   private readonly out = new Int32Array(new SharedArrayBuffer(20));
   private seq = 0;
+  private solveSeq = 0;
   private setUpOn: Worker | null = null;
 
   /** null when no helper thread can be had */
@@ -140,6 +183,44 @@ export class HelperLink {
     this.out[4] = 0;
     w.postMessage({ type: 'run', id: this.id, seq: this.seq, opts });
     return true;
+  }
+
+  /** posts the helper's half of a solve; false when the helper is gone */
+  startSolve(): boolean {
+    const w = theHelper();
+    const v = this.context.solve;
+    if (!w || !v) return false;
+    if (this.setUpOn !== w) {
+      w.postMessage({ type: 'setup', id: this.id, context: this.context, out: this.out, done: this.done });
+      this.setUpOn = w;
+    }
+    this.solveSeq++;
+    w.postMessage({ type: 'solve', id: this.id, seq: this.solveSeq });
+    return true;
+  }
+
+  /** blocks until the helper's forward half (stage 0) or backward half (stage 2) is done; false when it failed or stalled (then it is given up) */
+  waitSolve(stage: 0 | 2): boolean {
+    const f = this.context.solve!.flags;
+    const seq = this.solveSeq;
+    const until = performance.now() + STALLED_MS;
+    for (;;) {
+      const v = Atomics.load(f, stage);
+      if (v === seq) return true;
+      if (v === -seq || performance.now() > until) {
+        void helper?.terminate();
+        helper = null;
+        return false;
+      }
+      Atomics.wait(f, stage, v, 500);
+    }
+  }
+
+  /** lets the helper go on with its backward half once the top is solved */
+  topSolved(): void {
+    const f = this.context.solve!.flags;
+    Atomics.store(f, 1, this.solveSeq);
+    Atomics.notify(f, 1);
   }
 
   /**

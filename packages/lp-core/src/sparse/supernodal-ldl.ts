@@ -5,13 +5,16 @@
  * them (subtree-split.ts). Each thread factorises its half, then pushes its half's updates into
  * the top: this thread straight into the top's blocks, the helper thread
  * (factor-helper-thread.ts) into a buffer of its own that is added afterwards. Then this thread
- * factorises the top. All arrays are allocated once in the constructor, in shared memory.
+ * factorises the top. The solves with such a factor are shared the same way: each thread solves
+ * its half (forward, then backward after this thread has done the top). All arrays are allocated
+ * once in the constructor, in shared memory.
  */
-import { HelperLink } from './factor-helper-thread';
+import { HelperLink, type SharedSolve } from './factor-helper-thread';
 import { warmUpKernel } from './kernel-warm-up';
 import type { FactorOptions, FactorReport, FactorStatus } from './ldl';
 import { splitSubtrees, type SubtreeSplit } from './subtree-split';
 import { factorSupernodes, type KernelCall, type KernelOptions, type KernelShared, type KernelWork } from './supernodal-kernel';
+import { backwardSolveRanges, forwardSolveRanges } from './supernodal-solve-kernel';
 import type { SupernodalSymbolic } from './supernodal-symbolic';
 
 /** factorisations with fewer multiply–adds stay on one thread (the hand-over costs ~0.1 ms) */
@@ -32,6 +35,9 @@ interface ParallelCalls {
   /** the helper's updates, block by block of the top */
   buffer: Float64Array;
   bufferPtr: Int32Array;
+  /** two-thread solves: the shared vector and the top's columns */
+  solve: SharedSolve;
+  topCols: Int32Array;
 }
 
 export class SupernodalLdl {
@@ -109,6 +115,15 @@ export class SupernodalLdl {
     const buffer = sharedFloat64(size);
     const isTop = sharedBytes(split.isTop);
     const helperDeferred = sharedInt32(count);
+    const isTopCol = new Uint8Array(new SharedArrayBuffer(Math.max(1, n)), 0, n);
+    const topColList: number[] = [];
+    for (let q = 0; q < split.top.length; q += 2) {
+      for (let c = sup[split.top[q]]; c < sup[split.top[q + 1]]; c++) {
+        isTopCol[c] = 1;
+        topColList.push(c);
+      }
+    }
+    const solve: SharedSolve = { x: sharedFloat64(n), topOut: sharedFloat64(n), isTopCol, flags: sharedInt32(3) };
     const helper = HelperLink.create(this, {
       S: this.S,
       n,
@@ -116,6 +131,7 @@ export class SupernodalLdl {
       count,
       half: { ranges: split.second, top: isTop, deferred: helperDeferred, head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx },
       push: { ranges: split.top, top: null, deferred: helperDeferred, link: helperDeferred, assemble: false, factor: false, target: buffer, targetPtr: bufferPtr },
+      solve,
     });
     if (!helper) return null;
     const deferred = sharedInt32(count);
@@ -127,6 +143,8 @@ export class SupernodalLdl {
       top: { ranges: split.top, top: null, deferred, head: this.head, link: null, linkCount: 0, assemble: false, factor: true, ...onLx },
       buffer,
       bufferPtr,
+      solve,
+      topCols: Int32Array.from(topColList),
     };
   }
 
@@ -189,99 +207,41 @@ export class SupernodalLdl {
   }
 
   /**
-   * x ← (L D Lᵀ)⁻¹ x in the permuted numbering. Each supernode's rows start with its own
-   * columns f..l (contiguous in x), so the diagonal block is solved in place and the rows below
-   * are handled as one dense matrix–vector product into tmp, scattered (forward) or gathered
-   * (backward) once per row instead of once per column.
+   * x ← (L D Lᵀ)⁻¹ x in the permuted numbering (supernodal-solve-kernel.ts). After a two-thread
+   * factorisation the helper solves its half of the tree in both directions while this thread
+   * solves the other half and the top; a helper that fails is given up and the solve redone here.
    */
   solve(x: Float64Array): void {
-    const { count, super: sup, rowPtr, rows, blockPtr } = this.sym;
+    const { super: sup, rowPtr, rows, blockPtr } = this.sym;
     const { Lx, D, tmp } = this;
-    for (let s = 0; s < count; s++) {
-      const f = sup[s];
-      const ws = sup[s + 1] - f;
-      const r0 = rowPtr[s];
-      const nrs = rowPtr[s + 1] - r0;
-      const off = blockPtr[s];
-      // diagonal block: unit lower triangular, in place
-      for (let k = 0; k < ws; k++) {
-        const xj = x[f + k];
-        if (xj === 0) continue;
-        const kb = off + k * nrs;
-        for (let r = k + 1; r < ws; r++) x[f + r] -= Lx[kb + r] * xj;
-      }
-      if (nrs === ws) continue;
-      // rows below: tmp = L_below · x_s, then scatter
-      tmp.fill(0, ws, nrs);
-      let k = 0;
-      for (; k + 3 < ws; k += 4) {
-        const x0 = x[f + k];
-        const x1 = x[f + k + 1];
-        const x2 = x[f + k + 2];
-        const x3 = x[f + k + 3];
-        if (x0 === 0 && x1 === 0 && x2 === 0 && x3 === 0) continue;
-        const b0 = off + k * nrs;
-        const b1 = b0 + nrs;
-        const b2 = b1 + nrs;
-        const b3 = b2 + nrs;
-        for (let r = ws; r < nrs; r++) tmp[r] += Lx[b0 + r] * x0 + Lx[b1 + r] * x1 + Lx[b2 + r] * x2 + Lx[b3 + r] * x3;
-      }
-      for (; k < ws; k++) {
-        const x0 = x[f + k];
-        if (x0 === 0) continue;
-        const b0 = off + k * nrs;
-        for (let r = ws; r < nrs; r++) tmp[r] += Lx[b0 + r] * x0;
-      }
-      for (let r = ws; r < nrs; r++) x[rows[r0 + r]] -= tmp[r];
-    }
-    for (let j = 0; j < x.length; j++) x[j] /= D[j];
-    for (let s = count - 1; s >= 0; s--) {
-      const f = sup[s];
-      const ws = sup[s + 1] - f;
-      const r0 = rowPtr[s];
-      const nrs = rowPtr[s + 1] - r0;
-      const off = blockPtr[s];
-      if (nrs > ws) {
-        // rows below: gather once, then dot products, four columns at a time (four independent
-        // sums share each gathered value)
-        for (let r = ws; r < nrs; r++) tmp[r] = x[rows[r0 + r]];
-        let k = 0;
-        for (; k + 3 < ws; k += 4) {
-          const b0 = off + k * nrs;
-          const b1 = b0 + nrs;
-          const b2 = b1 + nrs;
-          const b3 = b2 + nrs;
-          let t0 = 0;
-          let t1 = 0;
-          let t2 = 0;
-          let t3 = 0;
-          for (let r = ws; r < nrs; r++) {
-            const v = tmp[r];
-            t0 += Lx[b0 + r] * v;
-            t1 += Lx[b1 + r] * v;
-            t2 += Lx[b2 + r] * v;
-            t3 += Lx[b3 + r] * v;
-          }
-          x[f + k] -= t0;
-          x[f + k + 1] -= t1;
-          x[f + k + 2] -= t2;
-          x[f + k + 3] -= t3;
+    const par = this.parallel;
+    // the vector is in shared memory before the helper is told to start
+    if (par) par.solve.x.set(x);
+    if (par && par.helper.startSolve()) {
+      const v = par.solve;
+      const xs = v.x;
+      forwardSolveRanges(sup, rowPtr, rows, blockPtr, Lx, D, xs, tmp, par.half.ranges, null, null);
+      if (par.helper.waitSolve(0)) {
+        const { topCols } = par;
+        const topOut = v.topOut;
+        for (let t = 0; t < topCols.length; t++) {
+          const c = topCols[t];
+          xs[c] += topOut[c];
+          topOut[c] = 0;
         }
-        for (; k < ws; k++) {
-          const kb = off + k * nrs;
-          let t = 0;
-          for (let r = ws; r < nrs; r++) t += Lx[kb + r] * tmp[r];
-          x[f + k] -= t;
+        forwardSolveRanges(sup, rowPtr, rows, blockPtr, Lx, D, xs, tmp, par.top.ranges, null, null);
+        backwardSolveRanges(sup, rowPtr, rows, blockPtr, Lx, xs, tmp, par.top.ranges);
+        par.helper.topSolved();
+        backwardSolveRanges(sup, rowPtr, rows, blockPtr, Lx, xs, tmp, par.half.ranges);
+        if (par.helper.waitSolve(2)) {
+          x.set(xs);
+          return;
         }
       }
-      // diagonal block: unit upper triangular (Lᵀ), in place
-      for (let k = ws - 1; k >= 0; k--) {
-        const kb = off + k * nrs;
-        let t = x[f + k];
-        for (let r = k + 1; r < ws; r++) t -= Lx[kb + r] * x[f + r];
-        x[f + k] = t;
-      }
+      this.parallel = null;
     }
+    forwardSolveRanges(sup, rowPtr, rows, blockPtr, Lx, D, x, tmp, this.whole.ranges, null, null);
+    backwardSolveRanges(sup, rowPtr, rows, blockPtr, Lx, x, tmp, this.whole.ranges);
   }
 }
 
