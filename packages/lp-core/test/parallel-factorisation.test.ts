@@ -1,7 +1,9 @@
 /**
  * The two-thread supernodal factorisation (a helper worker thread on shared memory) against the
- * one-thread one, on a 3-D grid Laplacian big enough to be split; after it the triangular solves
- * run on both threads too (each half of the tree on its own thread, the top on the caller's).
+ * one-thread one, on a 3-D grid Laplacian big enough to be split (its nested-dissection root is a
+ * dense 342-column block, wide enough for both threads to share its trailing updates); after it
+ * the triangular solves run on both threads too (each half of the tree on its own thread, the top
+ * on the caller's).
  * Checks: the residual of the solve (‖M x − b‖ small relative to ‖b‖: a property of any correct
  * factorisation, common practice, no source), agreement with the one-thread factor and solve, and
  * the pivot reports of both threads (zero pivots found in either half are reported, replaced

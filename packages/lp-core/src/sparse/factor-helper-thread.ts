@@ -11,7 +11,7 @@
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { warmUpCase } from './kernel-warm-up';
-import { factorSupernodes, type KernelCall, type KernelOptions, type KernelShared } from './supernodal-kernel';
+import { denseTrailingUpdate, factorPanel, factorSupernodes, scalePanel, type KernelCall, type KernelOptions, type KernelShared } from './supernodal-kernel';
 import { backwardSolveRanges, forwardSolveRanges } from './supernodal-solve-kernel';
 
 /** contexts the helper keeps (one per live factorisation) */
@@ -22,9 +22,34 @@ const STALLED_MS = 20000;
 export const HELPER_SOURCE = `
 const { parentPort } = require('node:worker_threads');
 const factorSupernodes = (${factorSupernodes.toString()});
+const factorPanel = (${factorPanel.toString()});
+const denseTrailingUpdate = (${denseTrailingUpdate.toString()});
+const scalePanel = (${scalePanel.toString()});
 const forwardSolveRanges = (${forwardSolveRanges.toString()});
 const backwardSolveRanges = (${backwardSolveRanges.toString()});
 const contexts = new Map();
+// a shared root factorisation: flags [0] panel token, [1] panel done (token, −token on failure),
+// [2] the call that has ended, [3..5] the panel's k0, k1 and the first column of this thread's share
+function denseHalf(c, msg) {
+  const fl = msg.flags;
+  let seen = msg.firstToken - 1;
+  for (;;) {
+    let cur = Atomics.load(fl, 0);
+    while (cur === seen && Atomics.load(fl, 2) !== msg.call) {
+      if (Atomics.wait(fl, 0, cur, ${STALLED_MS}) === 'timed-out' && Atomics.load(fl, 0) === cur) return;
+      cur = Atomics.load(fl, 0);
+    }
+    if (cur === seen) return;
+    seen = cur;
+    try {
+      denseTrailingUpdate(c.S.Lx, c.S.D, msg.off, msg.nrs, msg.f, fl[3], fl[4], fl[5], msg.nrs);
+      Atomics.store(fl, 1, cur);
+    } catch (err) {
+      Atomics.store(fl, 1, -cur);
+    }
+    Atomics.notify(fl, 1);
+  }
+}
 // flags of a shared solve: [0] forward half done (seq, or −seq on failure), [1] top done (seq), [2] backward half done
 function solveHalf(c, seq) {
   const v = c.solve;
@@ -77,6 +102,7 @@ parentPort.on('message', (msg) => {
   const c = contexts.get(msg.id);
   if (!c) return;
   if (msg.type === 'solve') return solveHalf(c, msg.seq);
+  if (msg.type === 'dense') return denseHalf(c, msg);
   try {
     // its half, then its half's updates into the top, kept in its own buffer
     if (factorSupernodes(c.S, c.work, c.half, msg.opts, c.out) === 0) {
@@ -158,6 +184,9 @@ export class HelperLink {
   private readonly out = new Int32Array(new SharedArrayBuffer(20));
   private seq = 0;
   private solveSeq = 0;
+  private denseCall = 0;
+  private denseToken = 0;
+  private readonly denseFlags = new Int32Array(new SharedArrayBuffer(24));
   private setUpOn: Worker | null = null;
 
   /** null when no helper thread can be had */
@@ -214,6 +243,52 @@ export class HelperLink {
       }
       Atomics.wait(f, stage, v, 500);
     }
+  }
+
+  /** posts the helper's share of a root factorisation (see SupernodalLdl); false when the helper is gone */
+  startDense(off: number, nrs: number, f: number): boolean {
+    const w = theHelper();
+    if (!w) return false;
+    if (this.setUpOn !== w) {
+      w.postMessage({ type: 'setup', id: this.id, context: this.context, out: this.out, done: this.done });
+      this.setUpOn = w;
+    }
+    this.denseCall++;
+    w.postMessage({ type: 'dense', id: this.id, call: this.denseCall, firstToken: this.denseToken + 1, off, nrs, f, flags: this.denseFlags });
+    return true;
+  }
+
+  /** hands the helper the trailing columns cs.. of panel k0..k1 (this thread takes the rest) */
+  panelReady(k0: number, k1: number, cs: number): void {
+    const fl = this.denseFlags;
+    fl[3] = k0;
+    fl[4] = k1;
+    fl[5] = cs;
+    Atomics.store(fl, 0, ++this.denseToken);
+    Atomics.notify(fl, 0);
+  }
+
+  /** blocks until the helper has done its share of the panel; false when it failed or stalled (it is then given up) */
+  waitPanel(): boolean {
+    const fl = this.denseFlags;
+    const token = this.denseToken;
+    const until = performance.now() + STALLED_MS;
+    for (;;) {
+      const v = Atomics.load(fl, 1);
+      if (v === token) return true;
+      if (v === -token || performance.now() > until) {
+        void helper?.terminate();
+        helper = null;
+        return false;
+      }
+      Atomics.wait(fl, 1, v, 500);
+    }
+  }
+
+  /** lets the helper leave the root factorisation */
+  endDense(): void {
+    Atomics.store(this.denseFlags, 2, this.denseCall);
+    Atomics.notify(this.denseFlags, 0);
   }
 
   /** lets the helper go on with its backward half once the top is solved */

@@ -10,7 +10,8 @@
  * Pivots are checked as in ldl.ts (relative to the assembled diagonal, optional signs, dynamic
  * regularisation).
  *
- * One self-contained function with no imports, closures or nested functions: the two-thread
+ * Self-contained functions with no imports, closures or nested functions (factorSupernodes calls
+ * the three step-3 functions at the end of this file, and nothing else): the two-thread
  * factorisation (supernodal-ldl.ts) runs this very source in a helper thread on shared memory.
  * A call may do all three steps on Lx, or only steps 1–2 or only step 2 into another target
  * array: that is how each thread pushes its subtree's updates into the supernodes above both
@@ -261,9 +262,9 @@ export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCal
       d = dNext;
     }
     if (!factor) continue;
-    // 3. dense LDLᵀ of the trapezoidal block (the target array is Lx here), blocked right-looking: factorise a panel of up
-    //    to PANEL columns, then update each trailing column with the whole panel (the panel
-    //    stays in cache while the trailing columns stream past once)
+    // 3. dense LDLᵀ of the trapezoidal block (the target array is Lx here), blocked right-looking:
+    //    factorise a panel of up to PANEL columns, update the trailing columns with the whole
+    //    panel (the panel stays in cache while the trailing columns stream past once), scale
     for (let k0 = 0; k0 < ws; k0 += PANEL) {
       out[4]++;
       if (deadline < Infinity && performance.now() > deadline) {
@@ -274,105 +275,16 @@ export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCal
         return 3;
       }
       const k1 = Math.min(k0 + PANEL, ws);
-      for (let k = k0; k < k1; k++) {
-        const j = f + k;
-        const kb = off + k * nrs;
-        let dk = Lx[kb + k];
-        if (!Number.isFinite(dk)) {
-          out[0] = 2;
-          out[1] = j;
-          out[2] = replaced;
-          out[3] = deferredCount;
-          return 2;
-        }
-        const sg = sign ? sign[j] : dk < 0 ? -1 : 1;
-        if (dk * sg <= pivotTolerance * (1 + Math.abs(diag[j]))) {
-          if (!dynamicRegularisation) {
-            out[0] = 1;
-            out[1] = j;
-            out[2] = replaced;
-            out[3] = deferredCount;
-            return 1;
-          }
-          // the unknown is dropped: a huge pivot and no coupling (a zero column, rather than
-          // entries of ~1/bigPivot whose products would underflow into slow subnormal numbers)
-          dk = sg * bigPivot;
-          replaced++;
-          for (let r = k + 1; r < nrs; r++) Lx[kb + r] = 0;
-        }
-        D[j] = dk;
-        const inv = 1 / dk;
-        // the rest of the panel, with column k still unscaled (L·d)
-        for (let c = k + 1; c < k1; c++) {
-          const fct = Lx[kb + c] * inv;
-          if (fct === 0) continue;
-          const cb = off + c * nrs;
-          for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
-        }
+      const code = factorPanel(Lx, D, diag, sign, off, nrs, f, k0, k1, pivotTolerance, dynamicRegularisation, bigPivot, out);
+      if (code !== 0) {
+        out[0] = code;
+        out[2] = replaced;
+        out[3] = deferredCount;
+        return code;
       }
-      // trailing columns: column c −= Σ_k (L·d)_k · L_ck over the panel, two columns at a time
-      // so every panel value loaded serves two multiply–adds
-      let c = k1;
-      for (; c + 1 < ws; c += 2) {
-        const cb0 = off + c * nrs;
-        const cb1 = cb0 + nrs;
-        let k = k0;
-        for (; k + 3 < k1; k += 4) {
-          const p0 = off + k * nrs;
-          const p1 = p0 + nrs;
-          const p2 = p1 + nrs;
-          const p3 = p2 + nrs;
-          const i0 = 1 / D[f + k];
-          const i1 = 1 / D[f + k + 1];
-          const i2 = 1 / D[f + k + 2];
-          const i3 = 1 / D[f + k + 3];
-          const f00 = Lx[p0 + c] * i0;
-          const f10 = Lx[p1 + c] * i1;
-          const f20 = Lx[p2 + c] * i2;
-          const f30 = Lx[p3 + c] * i3;
-          const f01 = Lx[p0 + c + 1] * i0;
-          const f11 = Lx[p1 + c + 1] * i1;
-          const f21 = Lx[p2 + c + 1] * i2;
-          const f31 = Lx[p3 + c + 1] * i3;
-          Lx[cb0 + c] -= Lx[p0 + c] * f00 + Lx[p1 + c] * f10 + Lx[p2 + c] * f20 + Lx[p3 + c] * f30;
-          for (let r = c + 1; r < nrs; r++) {
-            const a0 = Lx[p0 + r];
-            const a1 = Lx[p1 + r];
-            const a2 = Lx[p2 + r];
-            const a3 = Lx[p3 + r];
-            Lx[cb0 + r] -= a0 * f00 + a1 * f10 + a2 * f20 + a3 * f30;
-            Lx[cb1 + r] -= a0 * f01 + a1 * f11 + a2 * f21 + a3 * f31;
-          }
-        }
-        for (; k < k1; k++) {
-          const kb = off + k * nrs;
-          const inv = 1 / D[f + k];
-          const g0 = Lx[kb + c] * inv;
-          const g1 = Lx[kb + c + 1] * inv;
-          Lx[cb0 + c] -= Lx[kb + c] * g0;
-          for (let r = c + 1; r < nrs; r++) {
-            const a = Lx[kb + r];
-            Lx[cb0 + r] -= a * g0;
-            Lx[cb1 + r] -= a * g1;
-          }
-        }
-      }
-      for (; c < ws; c++) {
-        const cb = off + c * nrs;
-        for (let k = k0; k < k1; k++) {
-          const kb = off + k * nrs;
-          const fct = Lx[kb + c] / D[f + k];
-          if (fct === 0) continue;
-          for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
-        }
-      }
-      // scale the panel's columns: L = (L·d) / d
-      for (let k = k0; k < k1; k++) {
-        const kb = off + k * nrs;
-        const inv = 1 / D[f + k];
-        for (let r = k + 1; r < nrs; r++) Lx[kb + r] *= inv;
-        Lx[kb + k] = 1;
-      }
+      replaced += out[2];
+      denseTrailingUpdate(Lx, D, off, nrs, f, k0, k1, k1, ws);
+      scalePanel(Lx, D, off, nrs, f, k0, k1);
     }
     if (nrs > ws) {
       nextRow[s] = ws;
@@ -389,4 +301,132 @@ export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCal
   out[2] = replaced;
   out[3] = deferredCount;
   return 0;
+}
+
+/**
+ * Step 3's panel: LDLᵀ of columns k0..k1 of the dense block at `off` (nrs rows, first column f),
+ * with the pivot checks; the columns are left unscaled (L·d). Returns the status code (0, or 1
+ * zero pivot, 2 not finite, with out[1] the column); out[2] = pivots replaced in the panel.
+ */
+export function factorPanel(
+  Lx: Float64Array,
+  D: Float64Array,
+  diag: Float64Array,
+  sign: Int8Array | null,
+  off: number,
+  nrs: number,
+  f: number,
+  k0: number,
+  k1: number,
+  pivotTolerance: number,
+  dynamicRegularisation: boolean,
+  bigPivot: number,
+  out: Int32Array,
+): number {
+  let replaced = 0;
+  out[2] = 0;
+  for (let k = k0; k < k1; k++) {
+    const j = f + k;
+    const kb = off + k * nrs;
+    let dk = Lx[kb + k];
+    if (!Number.isFinite(dk)) {
+      out[1] = j;
+      return 2;
+    }
+    const sg = sign ? sign[j] : dk < 0 ? -1 : 1;
+    if (dk * sg <= pivotTolerance * (1 + Math.abs(diag[j]))) {
+      if (!dynamicRegularisation) {
+        out[1] = j;
+        return 1;
+      }
+      // the unknown is dropped: a huge pivot and no coupling (a zero column, rather than
+      // entries of ~1/bigPivot whose products would underflow into slow subnormal numbers)
+      dk = sg * bigPivot;
+      replaced++;
+      for (let r = k + 1; r < nrs; r++) Lx[kb + r] = 0;
+    }
+    D[j] = dk;
+    const inv = 1 / dk;
+    // the rest of the panel, with column k still unscaled (L·d)
+    for (let c = k + 1; c < k1; c++) {
+      const fct = Lx[kb + c] * inv;
+      if (fct === 0) continue;
+      const cb = off + c * nrs;
+      for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
+    }
+  }
+  out[2] = replaced;
+  return 0;
+}
+
+/**
+ * Step 3's trailing update: columns c0..c1 (of a block of ws columns) −= Σ_k (L·d)_k · L_ck over
+ * the panel k0..k1, two columns at a time so every panel value loaded serves two multiply–adds.
+ * Columns are independent, so two threads may update disjoint ranges at once.
+ */
+export function denseTrailingUpdate(Lx: Float64Array, D: Float64Array, off: number, nrs: number, f: number, k0: number, k1: number, c0: number, c1: number): void {
+  let c = c0;
+  for (; c + 1 < c1; c += 2) {
+    const cb0 = off + c * nrs;
+    const cb1 = cb0 + nrs;
+    let k = k0;
+    for (; k + 3 < k1; k += 4) {
+      const p0 = off + k * nrs;
+      const p1 = p0 + nrs;
+      const p2 = p1 + nrs;
+      const p3 = p2 + nrs;
+      const i0 = 1 / D[f + k];
+      const i1 = 1 / D[f + k + 1];
+      const i2 = 1 / D[f + k + 2];
+      const i3 = 1 / D[f + k + 3];
+      const f00 = Lx[p0 + c] * i0;
+      const f10 = Lx[p1 + c] * i1;
+      const f20 = Lx[p2 + c] * i2;
+      const f30 = Lx[p3 + c] * i3;
+      const f01 = Lx[p0 + c + 1] * i0;
+      const f11 = Lx[p1 + c + 1] * i1;
+      const f21 = Lx[p2 + c + 1] * i2;
+      const f31 = Lx[p3 + c + 1] * i3;
+      Lx[cb0 + c] -= Lx[p0 + c] * f00 + Lx[p1 + c] * f10 + Lx[p2 + c] * f20 + Lx[p3 + c] * f30;
+      for (let r = c + 1; r < nrs; r++) {
+        const a0 = Lx[p0 + r];
+        const a1 = Lx[p1 + r];
+        const a2 = Lx[p2 + r];
+        const a3 = Lx[p3 + r];
+        Lx[cb0 + r] -= a0 * f00 + a1 * f10 + a2 * f20 + a3 * f30;
+        Lx[cb1 + r] -= a0 * f01 + a1 * f11 + a2 * f21 + a3 * f31;
+      }
+    }
+    for (; k < k1; k++) {
+      const kb = off + k * nrs;
+      const inv = 1 / D[f + k];
+      const g0 = Lx[kb + c] * inv;
+      const g1 = Lx[kb + c + 1] * inv;
+      Lx[cb0 + c] -= Lx[kb + c] * g0;
+      for (let r = c + 1; r < nrs; r++) {
+        const a = Lx[kb + r];
+        Lx[cb0 + r] -= a * g0;
+        Lx[cb1 + r] -= a * g1;
+      }
+    }
+  }
+  for (; c < c1; c++) {
+    const cb = off + c * nrs;
+    for (let k = k0; k < k1; k++) {
+      const kb = off + k * nrs;
+      const fct = Lx[kb + c] / D[f + k];
+      if (fct === 0) continue;
+      for (let r = c; r < nrs; r++) Lx[cb + r] -= Lx[kb + r] * fct;
+    }
+  }
+}
+
+/** Step 3's scaling of the panel's columns: L = (L·d) / d, unit diagonal. */
+export function scalePanel(Lx: Float64Array, D: Float64Array, off: number, nrs: number, f: number, k0: number, k1: number): void {
+  for (let k = k0; k < k1; k++) {
+    const kb = off + k * nrs;
+    const inv = 1 / D[f + k];
+    for (let r = k + 1; r < nrs; r++) Lx[kb + r] *= inv;
+    Lx[kb + k] = 1;
+  }
 }

@@ -5,7 +5,8 @@
  * them (subtree-split.ts). Each thread factorises its half, then pushes its half's updates into
  * the top: this thread straight into the top's blocks, the helper thread
  * (factor-helper-thread.ts) into a buffer of its own that is added afterwards. Then this thread
- * factorises the top. The solves with such a factor are shared the same way: each thread solves
+ * factorises the top; when the top ends in a wide dense root (often the largest single piece of
+ * work on planning models), its trailing updates are shared panel by panel. The solves with such a factor are shared the same way: each thread solves
  * its half (forward, then backward after this thread has done the top). All arrays are allocated
  * once in the constructor, in shared memory.
  */
@@ -13,12 +14,25 @@ import { HelperLink, type SharedSolve } from './factor-helper-thread';
 import { warmUpKernel } from './kernel-warm-up';
 import type { FactorOptions, FactorReport, FactorStatus } from './ldl';
 import { splitSubtrees, type SubtreeSplit } from './subtree-split';
-import { factorSupernodes, type KernelCall, type KernelOptions, type KernelShared, type KernelWork } from './supernodal-kernel';
+import {
+  denseTrailingUpdate,
+  factorPanel,
+  factorSupernodes,
+  scalePanel,
+  type KernelCall,
+  type KernelOptions,
+  type KernelShared,
+  type KernelWork,
+} from './supernodal-kernel';
 import { backwardSolveRanges, forwardSolveRanges } from './supernodal-solve-kernel';
 import type { SupernodalSymbolic } from './supernodal-symbolic';
 
 /** factorisations with fewer multiply–adds stay on one thread (the hand-over costs ~0.1 ms) */
 const PARALLEL_MIN_FLOPS = 2e7;
+/** a root supernode at least this wide has its dense factorisation shared by both threads */
+const SHARED_ROOT_MIN_WIDTH = 192;
+/** columns per panel of a shared root factorisation */
+const ROOT_PANEL = 32;
 
 const STATUS: FactorStatus[] = ['factorised', 'zero_pivot', 'not_finite', 'interrupted'];
 
@@ -32,6 +46,11 @@ interface ParallelCalls {
   push: KernelCall;
   /** the top, once the helper's updates are added */
   top: KernelCall;
+  /**
+   * when the top ends in a wide root: the top without it, the updates into the root, and the
+   * root's dense block, factorised panel by panel with the trailing columns shared by both threads
+   */
+  root: { rest: KernelCall | null; updates: KernelCall; s: number } | null;
   /** the helper's updates, block by block of the top */
   buffer: Float64Array;
   bufferPtr: Int32Array;
@@ -141,11 +160,71 @@ export class SupernodalLdl {
       half: { ranges: split.first, top: isTop, deferred, head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx },
       push: { ranges: split.top, top: null, deferred, head: sharedInt32(count), link: deferred, linkCount: 0, assemble: true, factor: false, ...onLx },
       top: { ranges: split.top, top: null, deferred, head: this.head, link: null, linkCount: 0, assemble: false, factor: true, ...onLx },
+      root: this.sharedRoot(split.top, deferred, onLx),
       buffer,
       bufferPtr,
       solve,
       topCols: Int32Array.from(topColList),
     };
+  }
+
+  /** the calls of a shared root factorisation, or null when the top does not end in a wide root */
+  private sharedRoot(top: Int32Array, deferred: Int32Array, onLx: Pick<KernelCall, 'target' | 'targetPtr'>): ParallelCalls['root'] {
+    const { super: sup, rowPtr } = this.sym;
+    const r = top[top.length - 1] - 1;
+    const ws = sup[r + 1] - sup[r];
+    if (ws < SHARED_ROOT_MIN_WIDTH || rowPtr[r + 1] - rowPtr[r] !== ws) return null;
+    const rest = Int32Array.from(top);
+    rest[rest.length - 1] = r;
+    const ranges = rest[rest.length - 2] === r ? rest.subarray(0, rest.length - 2) : rest;
+    const call = (rs: Int32Array, factor: boolean): KernelCall => ({ ranges: rs, top: null, deferred, head: this.head, link: null, linkCount: 0, assemble: false, factor, ...onLx });
+    return { rest: ranges.length > 0 ? call(ranges, true) : null, updates: call(Int32Array.from([r, r + 1]), false), s: r };
+  }
+
+  /**
+   * The dense LDLᵀ of the root's block, right-looking by panels as in the kernel's step 3; this
+   * thread factorises and scales each panel, and the trailing update is split between the two
+   * threads in halves of equal work. Returns the status code (out[1] the failing column) and adds
+   * the replaced pivots to out[2]; −1 when the helper failed (the caller starts over on one thread).
+   */
+  private factorSharedRoot(par: ParallelCalls, r: number, opts: KernelOptions): number {
+    const { super: sup, blockPtr } = this.sym;
+    const { Lx, D, out } = this;
+    const f = sup[r];
+    const ws = sup[r + 1] - f;
+    const nrs = ws;
+    const off = blockPtr[r];
+    const link = par.helper;
+    const shared = link.startDense(off, nrs, f);
+    let replaced = 0;
+    let code = 0;
+    for (let k0 = 0; k0 < ws; k0 += ROOT_PANEL) {
+      out[4]++;
+      if (opts.deadline < Infinity && performance.now() > opts.deadline) {
+        out[1] = f + k0;
+        code = 3;
+        break;
+      }
+      const k1 = Math.min(k0 + ROOT_PANEL, ws);
+      code = factorPanel(Lx, D, this.W.diag, opts.sign, off, nrs, f, k0, k1, opts.pivotTolerance, opts.dynamicRegularisation, opts.bigPivot, out);
+      if (code !== 0) break;
+      replaced += out[2];
+      // split the trailing columns k1..ws where the work (rows nrs − c per column) halves
+      let cs = ws;
+      if (shared) {
+        const total = ((ws - k1) * (2 * nrs - k1 - ws + 1)) / 2;
+        let acc = 0;
+        cs = k1;
+        while (cs < ws && acc < total / 2) acc += nrs - cs++;
+        link.panelReady(k0, k1, cs);
+      }
+      denseTrailingUpdate(Lx, D, off, nrs, f, k0, k1, k1, cs);
+      if (shared && !link.waitPanel()) return -1;
+      scalePanel(Lx, D, off, nrs, f, k0, k1);
+    }
+    if (shared) link.endDense();
+    out[2] = replaced;
+    return code;
   }
 
   /** whether factorise() runs on two threads */
@@ -202,8 +281,24 @@ export class SupernodalLdl {
         for (let i = 0; i < size; i++) Lx[a + i] += buffer[b + i];
       }
     }
-    const code = factorSupernodes(S, W, par.top, kernelOpts, out);
-    return { status: STATUS[code], column: out[1], replacedPivots: replaced + out[2] };
+    if (!par.root) {
+      const code = factorSupernodes(S, W, par.top, kernelOpts, out);
+      return { status: STATUS[code], column: out[1], replacedPivots: replaced + out[2] };
+    }
+    // the top without its root, the updates into the root, then the root on both threads
+    const { rest, updates, s } = par.root;
+    let code = rest ? factorSupernodes(S, W, rest, kernelOpts, out) : 0;
+    if (rest) replaced += out[2];
+    if (code === 0) code = factorSupernodes(S, W, updates, kernelOpts, out);
+    if (code === 0) {
+      code = this.factorSharedRoot(par, s, kernelOpts);
+      if (code === -1) {
+        this.parallel = null;
+        return this.factorise(opts);
+      }
+      replaced += out[2];
+    }
+    return { status: STATUS[code], column: out[1], replacedPivots: replaced };
   }
 
   /**
