@@ -24,12 +24,12 @@ export function writeMps(problem: Problem): string {
   w.header(`NAME          ${problem.name ?? ''}`.trimEnd());
   if (problem.maximise) {
     w.header('OBJSENSE');
-    w.line(['', 'MAX']);
+    w.line('', 'MAX');
   }
   w.header('ROWS');
-  w.line(['N', objName]);
+  w.line('N', objName);
   const rowKinds = problem.rowNames.map((name, i) => rowEncoding(problem.rowLower[i], problem.rowUpper[i]));
-  problem.rowNames.forEach((name, i) => w.line([rowKinds[i].type, name]));
+  problem.rowNames.forEach((name, i) => w.line(rowKinds[i].type, name));
 
   w.header('COLUMNS');
   writeColumns(w, problem, objName, sign);
@@ -50,53 +50,84 @@ export function writeMps(problem: Problem): string {
   return w.text();
 }
 
-/** Collects header lines and data-line fields; picks fixed or free layout once everything is known. */
+/**
+ * Collects header lines and data-line fields; picks fixed or free layout once everything is known.
+ * Fields live in one flat array (a line is a header when its field count is 0), so writing a
+ * model of a few hundred thousand entries does not allocate an array per line.
+ */
 class MpsWriter {
-  private readonly records: (string | string[])[] = [];
+  private readonly fields: string[] = [];
+  /** per line: [first field, field count]; count 0 = a header whose text is fields[first] */
+  private readonly starts: number[] = [];
+  private fitsFixed = true;
 
   header(text: string): void {
-    this.records.push(text);
+    this.starts.push(this.fields.length, 0);
+    this.fields.push(text);
   }
 
   /** fields 1–6 of a data line (field 1 = type code, field 2 = first name, …) */
-  line(fields: (string | number)[]): void {
-    this.records.push(fields.map((v) => (typeof v === 'number' ? formatNumber(v) : v)));
+  line(...values: (string | number)[]): void {
+    this.starts.push(this.fields.length, values.length);
+    for (let k = 0; k < values.length; k++) {
+      const v = values[k];
+      const f = typeof v === 'number' ? formatNumber(v) : v;
+      if (this.fitsFixed && !fitsFixedField(f, k)) this.fitsFixed = false;
+      this.fields.push(f);
+    }
   }
 
   /** (name, value) pairs, two per line, under a vector name (RHS, RANGES). */
   pairs(setName: string, pairs: [string, number][]): void {
     for (let k = 0; k < pairs.length; k += 2) {
       const second = pairs[k + 1];
-      this.line(['', setName, pairs[k][0], pairs[k][1], ...(second ? [second[0], second[1]] : [])]);
+      if (second) this.line('', setName, pairs[k][0], pairs[k][1], second[0], second[1]);
+      else this.line('', setName, pairs[k][0], pairs[k][1]);
     }
   }
 
   text(): string {
-    const fixed = this.records.every((r) => typeof r === 'string' || fitsFixedFields(r));
-    const out = this.records.map((r) => (typeof r === 'string' ? r : fixed ? fixedLine(r) : freeLine(r)));
+    const { fields, starts } = this;
+    const out: string[] = new Array(starts.length / 2);
+    for (let l = 0; l < starts.length; l += 2) {
+      const first = starts[l];
+      const count = starts[l + 1];
+      out[l / 2] = count === 0 ? fields[first] : this.fitsFixed ? fixedLine(fields, first, count) : freeLine(fields, first, count);
+    }
     return out.join('\n') + '\n';
   }
 }
 
 const FIELD_WIDTHS = [2, NAME_WIDTH, NAME_WIDTH, NUMBER_WIDTH, NAME_WIDTH, NUMBER_WIDTH];
 const FIELD_GAPS = [' ', ' ', '  ', '  ', '   ', '  '];
+const BLANK = /\s/;
 
-function fitsFixedFields(fields: string[]): boolean {
-  return fields.every((f, k) => f.length <= FIELD_WIDTHS[k] && f === f.trim());
+function fitsFixedField(f: string, k: number): boolean {
+  if (f.length > FIELD_WIDTHS[k]) return false;
+  return f.length === 0 || (!BLANK.test(f[0]) && !BLANK.test(f[f.length - 1]));
 }
 
-function fixedLine(fields: string[]): string {
-  const numeric = (k: number) => k === 3 || k === 5;
-  const text = fields.map((v, k) => FIELD_GAPS[k] + (numeric(k) ? v.padStart(FIELD_WIDTHS[k]) : v.padEnd(FIELD_WIDTHS[k])));
-  return text.join('').trimEnd();
-}
-
-function freeLine(fields: string[]): string {
-  for (const f of fields) {
-    if (/\s/.test(f)) throw new Error(`writeMps: name '${f}' contains blanks and is too long for the fixed layout`);
+function fixedLine(fields: string[], first: number, count: number): string {
+  let text = '';
+  for (let k = 0; k < count; k++) {
+    const v = fields[first + k];
+    text += FIELD_GAPS[k] + (k === 3 || k === 5 ? v.padStart(FIELD_WIDTHS[k]) : v.padEnd(FIELD_WIDTHS[k]));
   }
-  const [code, ...rest] = fields;
-  return (code === '' ? '    ' : ` ${code.padEnd(2)} `) + rest.filter((v) => v !== '').join('  ');
+  return text.trimEnd();
+}
+
+function freeLine(fields: string[], first: number, count: number): string {
+  const code = fields[first];
+  let text = code === '' ? '    ' : ` ${code.padEnd(2)} `;
+  let any = false;
+  for (let k = 1; k < count; k++) {
+    const v = fields[first + k];
+    if (v === '') continue;
+    if (BLANK.test(v)) throw new Error(`writeMps: name '${v}' contains blanks and is too long for the fixed layout`);
+    text += any ? '  ' + v : v;
+    any = true;
+  }
+  return text;
 }
 
 function writeColumns(w: MpsWriter, problem: Problem, objName: string, sign: number): void {
@@ -107,17 +138,19 @@ function writeColumns(w: MpsWriter, problem: Problem, objName: string, sign: num
   for (let j = 0; j < A.n; j++) {
     if (integer.has(j) !== inMarker) {
       inMarker = !inMarker;
-      w.line(['', `MARKER${inMarker ? markers++ : ''}`.slice(0, NAME_WIDTH), "'MARKER'", '', inMarker ? "'INTORG'" : "'INTEND'"]);
+      w.line('', `MARKER${inMarker ? markers++ : ''}`.slice(0, NAME_WIDTH), "'MARKER'", '', inMarker ? "'INTORG'" : "'INTEND'");
     }
-    const pairs: [string, number][] = [];
-    if (c[j] !== 0 || A.colPtr[j] === A.colPtr[j + 1]) pairs.push([objName, sign * c[j] + 0]);
-    for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) pairs.push([rowNames[A.rowIdx[p]], A.values[p]]);
-    for (let k = 0; k < pairs.length; k += 2) {
-      const second = pairs[k + 1];
-      w.line(['', colNames[j], pairs[k][0], pairs[k][1], ...(second ? [second[0], second[1]] : [])]);
+    // (row, value) entries of column j, two per line: the objective first when it is nonzero or the column is empty
+    const p1 = A.colPtr[j + 1];
+    let p = A.colPtr[j];
+    if (c[j] !== 0 || p === p1) {
+      if (p < p1) w.line('', colNames[j], objName, sign * c[j] + 0, rowNames[A.rowIdx[p]], A.values[p++]);
+      else w.line('', colNames[j], objName, sign * c[j] + 0);
     }
+    for (; p + 1 < p1; p += 2) w.line('', colNames[j], rowNames[A.rowIdx[p]], A.values[p], rowNames[A.rowIdx[p + 1]], A.values[p + 1]);
+    if (p < p1) w.line('', colNames[j], rowNames[A.rowIdx[p]], A.values[p]);
   }
-  if (inMarker) w.line(['', 'MARKEND', "'MARKER'", '', "'INTEND'"]);
+  if (inMarker) w.line('', 'MARKEND', "'MARKER'", '', "'INTEND'");
 }
 
 function writeBounds(w: MpsWriter, problem: Problem): void {
@@ -138,7 +171,7 @@ function writeBounds(w: MpsWriter, problem: Problem): void {
   }
   if (lines.length === 0) return;
   w.header('BOUNDS');
-  for (const line of lines) w.line(line);
+  for (const line of lines) w.line(...line);
 }
 
 function writeQuadobj(w: MpsWriter, problem: Problem, sign: number): void {
@@ -146,7 +179,7 @@ function writeQuadobj(w: MpsWriter, problem: Problem, sign: number): void {
   w.header('QUADOBJ');
   for (let j = 0; j < Q.n; j++) {
     for (let p = Q.colPtr[j]; p < Q.colPtr[j + 1]; p++) {
-      if (Q.values[p] !== 0) w.line(['', problem.colNames[j], problem.colNames[Q.rowIdx[p]], sign * Q.values[p] + 0]);
+      if (Q.values[p] !== 0) w.line('', problem.colNames[j], problem.colNames[Q.rowIdx[p]], sign * Q.values[p] + 0);
     }
   }
 }
