@@ -18,7 +18,12 @@ function sortKeys(value: unknown): unknown {
   return value;
 }
 
+/** SHA-256 (hex) of a text. */
+export function sha256(text: string): string {
+  return createHash('sha256').update(text).digest('hex');
+}
+
 /** SHA-256 (hex) of the canonical JSON of `value`: the hash kept in the audit trail. */
 export function hashOf(value: unknown): string {
-  return createHash('sha256').update(canonicalJson(value)).digest('hex');
+  return sha256(canonicalJson(value));
 }

@@ -9,7 +9,7 @@ import { loadPlanningData } from '../planning-data/load-planning-data';
 import { applyScenarioOverrides } from '../scenarios/apply-scenario-overrides';
 import { findScenario } from '../scenarios/scenarios.repository';
 import { appendAudit } from '../sign-off/audit.repository';
-import { canonicalJson, hashOf } from './canonical-hash';
+import { canonicalJson, sha256 } from './canonical-hash';
 import { findPlanDetail, insertPlan } from './plans.repository';
 
 /**
@@ -35,6 +35,8 @@ export async function createPlan(ds: DataSource, input: PlanCreate, person: Sign
       );
     }
     const snapshot = data;
+    const inputs = canonicalJson(snapshot);
+    const inputsHash = sha256(inputs);
     const planId = await insertPlan(db, {
       name: request.name,
       horizonWeeks: request.horizonWeeks,
@@ -45,8 +47,8 @@ export async function createPlan(ds: DataSource, input: PlanCreate, person: Sign
       smoothing: request.smoothing,
       wholeUnits: request.wholeUnits,
       currency: snapshot.plant.currency,
-      inputs: canonicalJson(snapshot),
-      inputsHash: hashOf(snapshot),
+      inputs,
+      inputsHash,
       createdBy: person.id,
     });
     await appendAudit(db, {
@@ -56,7 +58,7 @@ export async function createPlan(ds: DataSource, input: PlanCreate, person: Sign
       fromState: null,
       toState: 'draft',
       comment: scenario ? `Built from scenario "${scenario.name}".` : null,
-      inputsHash: hashOf(snapshot),
+      inputsHash,
       resultsHash: null,
     });
     return planId;
