@@ -118,3 +118,84 @@ describe('two-thread supernodal factorisation (3-D grid Laplacian, 18³ unknowns
     expect(regularised.replacedPivots).toBe(singular.size);
   });
 });
+
+/**
+ * A tree that cannot be split: a dense 560-column block (its root, nearly all the work) with 300
+ * sparse unknowns hanging off it, as in planning models whose shared materials and subassemblies
+ * couple every week. Only the root's dense factorisation is shared between the threads.
+ */
+describe('two-thread factorisation of a wide dense root alone', () => {
+  const dense = 560;
+  const leaves = 300;
+  const size = dense + leaves;
+  function entries(zeroRoot: number[] = []): { rows: Int32Array; cols: Int32Array; vals: Float64Array } {
+    const rows: number[] = [];
+    const cols: number[] = [];
+    const vals: number[] = [];
+    const cut = new Set(zeroRoot);
+    // leaves first: each couples to three unknowns of the dense block
+    for (let l = 0; l < leaves; l++) {
+      const v = dense + l;
+      rows.push(v), cols.push(v), vals.push(4);
+      for (const k of [l % dense, (7 * l + 3) % dense, (13 * l + 5) % dense]) {
+        if (cut.has(k)) continue;
+        rows.push(Math.max(v, k)), cols.push(Math.min(v, k)), vals.push(-0.5);
+      }
+    }
+    // the dense block: diagonally dominant, entries from a fixed pattern (no randomness)
+    for (let j = 0; j < dense; j++) {
+      for (let i = j; i < dense; i++) {
+        if (cut.has(i) || cut.has(j)) continue;
+        rows.push(i), cols.push(j), vals.push(i === j ? dense + 5 : Math.sin(i * 31 + j * 17));
+      }
+    }
+    return { rows: Int32Array.from(rows), cols: Int32Array.from(cols), vals: Float64Array.from(vals) };
+  }
+  function factor(parallel: boolean, e = entries()) {
+    const F = new SymmetricFactorisation(size, e.rows, e.cols, 'amd', 'supernodal', Infinity, parallel);
+    F.Cx.fill(0);
+    e.vals.forEach((v, t) => (F.Cx[F.slot[t]] += v));
+    return F;
+  }
+
+  it('cannot be split, and shares the root: same factor and solve as one thread', () => {
+    const two = factor(true);
+    const upper = upperPattern(size, two.Cp, two.Ci);
+    expect(splitSubtrees(supernodalSymbolic(size, upper.Cp, upper.Ci))).toBeNull();
+    expect(two.threads).toBe(availableParallelism() >= 2 ? 2 : 1);
+    const one = factor(false);
+    expect(one.factorise(strict).status).toBe('factorised');
+    for (let round = 0; round < 2; round++) {
+      expect(two.factorise(strict).status).toBe('factorised');
+      const b = Float64Array.from({ length: size }, (_, i) => Math.cos(i) + 0.25);
+      const x1 = Float64Array.from(b);
+      const x2 = Float64Array.from(b);
+      one.solve(x1);
+      two.solve(x2);
+      const Mx = new Float64Array(size);
+      two.multiply(x2, Mx);
+      let r = 0;
+      let diff = 0;
+      for (let i = 0; i < size; i++) {
+        r = Math.max(r, Math.abs(Mx[i] - b[i]));
+        diff = Math.max(diff, Math.abs(x1[i] - x2[i]) / (1 + Math.abs(x1[i])));
+      }
+      expect(r).toBeLessThan(1e-12);
+      expect(diff).toBeLessThan(1e-13);
+    }
+    expect(two.threads).toBe(availableParallelism() >= 2 ? 2 : 1);
+  });
+
+  it('reports a zero pivot inside the shared root, and counts replaced ones', () => {
+    const zero = [17, 300, 555];
+    const F = factor(true, entries(zero));
+    const report = F.factorise(strict);
+    expect(report.status).toBe('zero_pivot');
+    const G = factor(true, entries(zero));
+    const regularised = G.factorise({ ...strict, dynamicRegularisation: true });
+    expect(regularised.status).toBe('factorised');
+    expect(regularised.replacedPivots).toBe(zero.length);
+    // the helper is still answering afterwards
+    expect(G.threads).toBe(availableParallelism() >= 2 ? 2 : 1);
+  });
+});

@@ -6,7 +6,8 @@
  * the top: this thread straight into the top's blocks, the helper thread
  * (factor-helper-thread.ts) into a buffer of its own that is added afterwards. Then this thread
  * factorises the top; when the top ends in a wide dense root (often the largest single piece of
- * work on planning models), its trailing updates are shared panel by panel. The solves with such a factor are shared the same way: each thread solves
+ * work on planning models), its trailing updates are shared panel by panel. A tree that cannot be
+ * split (its top would hold most of the work) still shares a wide root that way. The solves with such a factor are shared the same way: each thread solves
  * its half (forward, then backward after this thread has done the top). All arrays are allocated
  * once in the constructor, in shared memory.
  */
@@ -69,6 +70,12 @@ export class SupernodalLdl {
   private readonly whole: KernelCall;
   private readonly out = new Int32Array(5);
   private parallel: ParallelCalls | null;
+  /**
+   * when the tree cannot be split (its top would hold most of the work: one wide dense root, as in
+   * planning models with shared materials and subassemblies) but the root is wide: everything
+   * below the root on this thread, then the root's dense block on both threads
+   */
+  private rootOnly: { helper: HelperLink; below: KernelCall | null; updates: KernelCall; s: number } | null = null;
 
   /**
    * Lp/Li/Ax: the lower triangle (rows ≥ column) of the permuted matrix in CSC form; Ax is read
@@ -119,6 +126,9 @@ export class SupernodalLdl {
     this.whole = { ranges: Int32Array.from([0, count]), top: null, deferred: sharedInt32(1), head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx };
     if (split) warmUpKernel();
     this.parallel = split ? this.parallelCalls(split, n, maxRows, onLx) : null;
+    if (!this.parallel && parallel && sym.flops >= PARALLEL_MIN_FLOPS && Ax.buffer instanceof SharedArrayBuffer) {
+      this.rootOnly = this.rootOnlyCalls(n, maxRows, onLx);
+    }
   }
 
   /** the calls of both threads; null when no helper thread can be had */
@@ -168,6 +178,19 @@ export class SupernodalLdl {
     };
   }
 
+  /** the calls of a root-only two-thread factorisation; null without a wide root or a helper */
+  private rootOnlyCalls(n: number, maxRows: number, onLx: Pick<KernelCall, 'target' | 'targetPtr'>): SupernodalLdl['rootOnly'] {
+    const { count, super: sup, rowPtr } = this.sym;
+    const r = count - 1;
+    const ws = sup[r + 1] - sup[r];
+    if (ws < SHARED_ROOT_MIN_WIDTH || rowPtr[r + 1] - rowPtr[r] !== ws) return null;
+    const none = { ranges: new Int32Array(0), top: null, deferred: sharedInt32(1), link: null, assemble: false, factor: false, ...onLx };
+    const helper = HelperLink.create(this, { S: this.S, n, maxRows, count, half: { ...none, head: this.head, linkCount: 0 }, push: none });
+    if (!helper) return null;
+    const call = (ranges: Int32Array, factor: boolean): KernelCall => ({ ranges, top: null, deferred: sharedInt32(1), head: this.head, link: null, linkCount: 0, assemble: true, factor, ...onLx });
+    return { helper, below: r > 0 ? call(Int32Array.from([0, r]), true) : null, updates: call(Int32Array.from([r, r + 1]), false), s: r };
+  }
+
   /** the calls of a shared root factorisation, or null when the top does not end in a wide root */
   private sharedRoot(top: Int32Array, deferred: Int32Array, onLx: Pick<KernelCall, 'target' | 'targetPtr'>): ParallelCalls['root'] {
     const { super: sup, rowPtr } = this.sym;
@@ -187,14 +210,13 @@ export class SupernodalLdl {
    * threads in halves of equal work. Returns the status code (out[1] the failing column) and adds
    * the replaced pivots to out[2]; −1 when the helper failed (the caller starts over on one thread).
    */
-  private factorSharedRoot(par: ParallelCalls, r: number, opts: KernelOptions): number {
+  private factorSharedRoot(link: HelperLink, r: number, opts: KernelOptions): number {
     const { super: sup, blockPtr } = this.sym;
     const { Lx, D, out } = this;
     const f = sup[r];
     const ws = sup[r + 1] - f;
     const nrs = ws;
     const off = blockPtr[r];
-    const link = par.helper;
     const shared = link.startDense(off, nrs, f);
     let replaced = 0;
     let code = 0;
@@ -229,7 +251,7 @@ export class SupernodalLdl {
 
   /** whether factorise() runs on two threads */
   get threads(): number {
-    return this.parallel ? 2 : 1;
+    return this.parallel || this.rootOnly ? 2 : 1;
   }
 
   factorise(opts: FactorOptions): FactorReport {
@@ -243,6 +265,22 @@ export class SupernodalLdl {
     const { S, W, out } = this;
     this.head.fill(-1);
     const par = this.parallel;
+    const ro = this.rootOnly;
+    if (ro) {
+      // everything below the root here, then the root's updates, then its dense block on both threads
+      let code = ro.below ? factorSupernodes(S, W, ro.below, kernelOpts, out) : 0;
+      let replaced = ro.below ? out[2] : 0;
+      if (code === 0) code = factorSupernodes(S, W, ro.updates, kernelOpts, out);
+      if (code === 0) {
+        code = this.factorSharedRoot(ro.helper, ro.s, kernelOpts);
+        if (code === -1) {
+          this.rootOnly = null;
+          return this.factorise(opts);
+        }
+        replaced += out[2];
+      }
+      return { status: STATUS[code], column: out[1], replacedPivots: replaced };
+    }
     if (!par || !par.helper.start(kernelOpts)) {
       const code = factorSupernodes(S, W, this.whole, kernelOpts, out);
       return { status: STATUS[code], column: out[1], replacedPivots: out[2] };
@@ -291,7 +329,7 @@ export class SupernodalLdl {
     if (rest) replaced += out[2];
     if (code === 0) code = factorSupernodes(S, W, updates, kernelOpts, out);
     if (code === 0) {
-      code = this.factorSharedRoot(par, s, kernelOpts);
+      code = this.factorSharedRoot(par.helper, s, kernelOpts);
       if (code === -1) {
         this.parallel = null;
         return this.factorise(opts);
