@@ -47,12 +47,13 @@ export interface IpmSettings {
   /** fill-reducing ordering: 'auto' tries AMD and nested dissection and keeps the cheaper factorisation */
   ordering: 'auto' | 'amd' | 'nd' | 'natural';
   /**
-   * factorise big normal-equations matrices on two threads (a helper worker thread) when the
-   * machine has two cores. Off by default: on the shared 2-core machine it is measured here the
-   * middle factorisations of a solve ran ~20–30 % faster, but the helper's start-up (~1 s once
-   * per thread) and a busy second core ate the gain on whole solves.
+   * factorise (and solve with) big normal-equations matrices on two threads, a helper worker
+   * thread sharing the work, when the machine has two cores: true, false, or 'auto' (the
+   * default: only when one factorisation takes at least 1e9 multiply–adds, so the helper's
+   * one-off start-up of about 1 s is repaid within a few iterations; smaller models stay on one
+   * thread). A long-lived process (the API's solver thread) passes true: it pays the start-up once.
    */
-  parallelFactorisation: boolean;
+  parallelFactorisation: boolean | 'auto';
   /** called after every iteration (progress bars) */
   onIteration?: (info: IterationInfo) => void;
   /** polled once per iteration; returning true ends the solve with status 'cancelled' */
@@ -81,7 +82,7 @@ export const defaultIpmSettings: Readonly<IpmSettings> = Object.freeze({
   refinementSteps: 3,
   maxFactorMegabytes: 1536,
   ordering: 'auto',
-  parallelFactorisation: false,
+  parallelFactorisation: 'auto',
 });
 
 /** Merges with the defaults and checks every field; throws one Error listing what is wrong. */
@@ -111,7 +112,10 @@ export function resolveSettings(partial: Partial<IpmSettings> = {}): IpmSettings
   if (typeof s.timeLimitSeconds !== 'number' || !(s.timeLimitSeconds > 0)) {
     problems.push(`timeLimitSeconds must be a positive number or Infinity, got ${String(s.timeLimitSeconds)}`);
   }
-  for (const k of ['presolve', 'scaling', 'parallelFactorisation'] as const) {
+  if (s.parallelFactorisation !== 'auto' && typeof s.parallelFactorisation !== 'boolean') {
+    problems.push(`parallelFactorisation must be true, false or "auto", got ${String(s.parallelFactorisation)}`);
+  }
+  for (const k of ['presolve', 'scaling'] as const) {
     if (typeof s[k] !== 'boolean') problems.push(`${k} must be true or false, got ${String(s[k])}`);
   }
   if (!['auto', 'amd', 'nd', 'natural'].includes(s.ordering)) problems.push(`ordering must be "auto", "amd", "nd" or "natural", got ${String(s.ordering)}`);

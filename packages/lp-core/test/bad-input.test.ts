@@ -55,5 +55,6 @@ describe('bad input', () => {
     expect(() => solve(base(), { tolGapRel: 0 })).toThrow('tolGapRel must be a number in (0, 1), got 0');
     expect(() => solve(base(), { maxIterations: 2.5 })).toThrow('maxIterations must be a non-negative integer, got 2.5');
     expect(() => solve(base(), { nonsense: 1 } as never)).toThrow('unknown setting "nonsense"');
+    expect(() => solve(base(), { parallelFactorisation: 'yes' } as never)).toThrow('parallelFactorisation must be true, false or "auto", got yes');
   });
 });

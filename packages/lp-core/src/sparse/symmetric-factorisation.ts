@@ -21,6 +21,9 @@ import { ldlSolve } from './triangular';
 import { supernodalSymbolic, type SupernodalSymbolic } from './supernodal-symbolic';
 import { SupernodalLdl } from './supernodal-ldl';
 
+/** with parallel = 'auto', factorisations of at least this many multiply–adds use two threads */
+const AUTO_PARALLEL_FLOPS = 1e9;
+
 /** 'auto' computes both AMD and nested dissection and keeps the one with fewer factorisation flops */
 export type Ordering = 'auto' | 'amd' | 'nd' | 'natural';
 
@@ -65,7 +68,7 @@ export class SymmetricFactorisation {
     ordering: Ordering = 'auto',
     kernel: Kernel = 'supernodal',
     maxEntries = Infinity,
-    parallel = false,
+    parallel: boolean | 'auto' = false,
   ) {
     this.n = n;
     this.kernel = kernel;
@@ -116,7 +119,8 @@ export class SymmetricFactorisation {
       const upper = upperPattern(n, this.Cp, this.Ci);
       const sym = supernodalSymbolic(n, upper.Cp, upper.Ci);
       if (sym.nnzL > maxEntries) throw new FactorTooLargeError(sym.nnzL, maxEntries);
-      this.supernodal = { sym, F: new SupernodalLdl(sym, this.Cp, this.Ci, this.Cx, parallel) };
+      const twoThreads = parallel === true || (parallel === 'auto' && sym.flops >= AUTO_PARALLEL_FLOPS);
+      this.supernodal = { sym, F: new SupernodalLdl(sym, this.Cp, this.Ci, this.Cx, twoThreads) };
       this.simplicial = null;
       this.nnzL = sym.nnzL;
       this.flops = sym.flops;
