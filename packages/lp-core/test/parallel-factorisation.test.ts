@@ -122,7 +122,8 @@ describe('two-thread supernodal factorisation (3-D grid Laplacian, 18³ unknowns
 /**
  * A tree that cannot be split: a dense 560-column block (its root, nearly all the work) with 300
  * sparse unknowns hanging off it, as in planning models whose shared materials and subassemblies
- * couple every week. Only the root's dense factorisation is shared between the threads.
+ * couple every week. Only the root is shared between the threads: the updates into it from the
+ * sparse part (split by the root's columns) and its dense factorisation.
  */
 describe('two-thread factorisation of a wide dense root alone', () => {
   const dense = 560;
@@ -133,10 +134,12 @@ describe('two-thread factorisation of a wide dense root alone', () => {
     const cols: number[] = [];
     const vals: number[] = [];
     const cut = new Set(zeroRoot);
-    // leaves first: each couples to three unknowns of the dense block
+    // leaves first, in cliques of four (supernodes four columns wide); each couples to three
+    // unknowns of the dense block
     for (let l = 0; l < leaves; l++) {
       const v = dense + l;
       rows.push(v), cols.push(v), vals.push(4);
+      for (let o = l + 1; o < leaves && Math.floor(o / 4) === Math.floor(l / 4); o++) rows.push(dense + o), cols.push(v), vals.push(-0.1);
       for (const k of [l % dense, (7 * l + 3) % dense, (13 * l + 5) % dense]) {
         if (cut.has(k)) continue;
         rows.push(Math.max(v, k)), cols.push(Math.min(v, k)), vals.push(-0.5);

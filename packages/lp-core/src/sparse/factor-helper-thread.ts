@@ -11,7 +11,16 @@
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { warmUpCase } from './kernel-warm-up';
-import { denseTrailingUpdate, factorPanel, factorSupernodes, scalePanel, type KernelCall, type KernelOptions, type KernelShared } from './supernodal-kernel';
+import {
+  denseTrailingUpdate,
+  factorPanel,
+  factorSupernodes,
+  scalePanel,
+  updateFromDescendant,
+  type KernelCall,
+  type KernelOptions,
+  type KernelShared,
+} from './supernodal-kernel';
 import { backwardSolveRanges, forwardSolveRanges } from './supernodal-solve-kernel';
 
 /** contexts the helper keeps (one per live factorisation) */
@@ -25,9 +34,33 @@ const factorSupernodes = (${factorSupernodes.toString()});
 const factorPanel = (${factorPanel.toString()});
 const denseTrailingUpdate = (${denseTrailingUpdate.toString()});
 const scalePanel = (${scalePanel.toString()});
+const updateFromDescendant = (${updateFromDescendant.toString()});
 const forwardSolveRanges = (${forwardSolveRanges.toString()});
 const backwardSolveRanges = (${backwardSolveRanges.toString()});
 const contexts = new Map();
+// the updates into a root from its descendants, for the root's columns cs.. (the caller does the rest)
+function rootUpdatesHalf(c, msg) {
+  const S = c.S;
+  const W = c.work;
+  const fl = msg.flags;
+  try {
+    const f = msg.f;
+    const cut = f + msg.cs;
+    for (let r = 0; r < msg.nrs; r++) W.relmap[f + r] = r;
+    for (let i = 0; i < msg.count; i++) {
+      const d = msg.list[i];
+      const rd0 = S.rowPtr[d];
+      const nrd = S.rowPtr[d + 1] - rd0;
+      let t = S.nextRow[d];
+      while (t < nrd && S.rows[rd0 + t] < cut) t++;
+      if (t < nrd) updateFromDescendant(S, W, S.Lx, msg.off, f, msg.nrs, d, t, nrd);
+    }
+    Atomics.store(fl, 0, msg.token);
+  } catch (err) {
+    Atomics.store(fl, 0, -msg.token);
+  }
+  Atomics.notify(fl, 0);
+}
 // a shared root factorisation: flags [0] panel token, [1] panel done (token, −token on failure),
 // [2] the call that has ended, [3..5] the panel's k0, k1 and the first column of this thread's share
 function denseHalf(c, msg) {
@@ -103,6 +136,7 @@ parentPort.on('message', (msg) => {
   if (!c) return;
   if (msg.type === 'solve') return solveHalf(c, msg.seq);
   if (msg.type === 'dense') return denseHalf(c, msg);
+  if (msg.type === 'rootUpdates') return rootUpdatesHalf(c, msg);
   try {
     // its half, then its half's updates into the top, kept in its own buffer
     if (factorSupernodes(c.S, c.work, c.half, msg.opts, c.out) === 0) {
@@ -187,6 +221,8 @@ export class HelperLink {
   private denseCall = 0;
   private denseToken = 0;
   private readonly denseFlags = new Int32Array(new SharedArrayBuffer(24));
+  private rootToken = 0;
+  private readonly rootFlags = new Int32Array(new SharedArrayBuffer(4));
   private setUpOn: Worker | null = null;
 
   /** null when no helper thread can be had */
@@ -256,6 +292,35 @@ export class HelperLink {
     this.denseCall++;
     w.postMessage({ type: 'dense', id: this.id, call: this.denseCall, firstToken: this.denseToken + 1, off, nrs, f, flags: this.denseFlags });
     return true;
+  }
+
+  /** posts the helper's share of the updates into a root (its columns cs..); false when the helper is gone */
+  startRootUpdates(list: Int32Array, count: number, cs: number, f: number, nrs: number, off: number): boolean {
+    const w = theHelper();
+    if (!w) return false;
+    if (this.setUpOn !== w) {
+      w.postMessage({ type: 'setup', id: this.id, context: this.context, out: this.out, done: this.done });
+      this.setUpOn = w;
+    }
+    w.postMessage({ type: 'rootUpdates', id: this.id, token: ++this.rootToken, list, count, cs, f, nrs, off, flags: this.rootFlags });
+    return true;
+  }
+
+  /** blocks until the helper's share of the root's updates is done; false when it failed or stalled (it is then given up) */
+  waitRootUpdates(): boolean {
+    const fl = this.rootFlags;
+    const token = this.rootToken;
+    const until = performance.now() + STALLED_MS;
+    for (;;) {
+      const v = Atomics.load(fl, 0);
+      if (v === token) return true;
+      if (v === -token || performance.now() > until) {
+        void helper?.terminate();
+        helper = null;
+        return false;
+      }
+      Atomics.wait(fl, 0, v, 500);
+    }
   }
 
   /** hands the helper the trailing columns cs.. of panel k0..k1 (this thread takes the rest) */

@@ -11,7 +11,7 @@
  * regularisation).
  *
  * Self-contained functions with no imports, closures or nested functions (factorSupernodes calls
- * the three step-3 functions at the end of this file, and nothing else): the two-thread
+ * the step-2 and step-3 functions at the end of this file, and nothing else): the two-thread
  * factorisation (supernodal-ldl.ts) runs this very source in a helper thread on shared memory.
  * A call may do all three steps on Lx, or only steps 1–2 or only step 2 into another target
  * array: that is how each thread pushes its subtree's updates into the supernodes above both
@@ -91,8 +91,8 @@ export interface KernelOptions {
 export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCall, opts: KernelOptions, out: Int32Array): number {
   /** columns per panel of the dense block factorisation */
   const PANEL = 32;
-  const { sup, snode, rowPtr, rows, blockPtr, Lp, Li, Ax, Lx, D, next, nextRow } = S;
-  const { relmap, tmp, rel, diag, pack } = W;
+  const { sup, snode, rowPtr, rows, Lp, Li, Ax, Lx, D, next, nextRow } = S;
+  const { relmap, diag } = W;
   const { pivotTolerance, dynamicRegularisation, bigPivot, sign, deadline } = opts;
   const { ranges, top, deferred, head, assemble, factor, target: T, targetPtr } = call;
   const rangeCount = ranges.length / 2;
@@ -148,108 +148,12 @@ export function factorSupernodes(S: KernelShared, W: KernelWork, call: KernelCal
         return 3;
       }
       const dNext = next[d];
-      const fd = sup[d];
-      const wd = sup[d + 1] - fd;
       const rd0 = rowPtr[d];
       const nrd = rowPtr[d + 1] - rd0;
-      const offd = blockPtr[d];
       const start = nextRow[d];
       let end = start;
       while (end < nrd && rows[rd0 + end] <= l) end++;
-      // positions in s's block of d's rows from `start` on
-      for (let r = start; r < nrd; r++) rel[r] = relmap[rows[rd0 + r]];
-      if (wd <= 2) {
-        // narrow descendant: subtract straight into the target column
-        const b0 = offd;
-        const b1 = offd + nrd;
-        const d0 = D[fd];
-        const d1 = wd === 2 ? D[fd + 1] : 0;
-        for (let t = start; t < end; t++) {
-          const a0 = Lx[b0 + t] * d0;
-          const a1 = wd === 2 ? Lx[b1 + t] * d1 : 0;
-          const cbase = off + (rows[rd0 + t] - f) * nrs;
-          if (wd === 2) {
-            for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= Lx[b0 + r] * a0 + Lx[b1 + r] * a1;
-          } else if (a0 !== 0) {
-            for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= Lx[b0 + r] * a0;
-          }
-        }
-      } else {
-        // wide descendant: two target columns (t, t + 1) at a time. Their multipliers
-        // L(t, k)·D(k) and L(t + 1, k)·D(k) are packed side by side; then four rows of d's
-        // block at a time are multiplied by them, the eight sums held in registers over all k
-        // and subtracted from the target once.
-        let t = start;
-        for (; t + 1 < end; t += 2) {
-          for (let k = 0, b = offd; k < wd; k++, b += nrd) {
-            const e = D[fd + k];
-            pack[2 * k] = Lx[b + t] * e;
-            pack[2 * k + 1] = Lx[b + t + 1] * e;
-          }
-          const cbase = off + (rows[rd0 + t] - f) * nrs;
-          const cbase2 = off + (rows[rd0 + t + 1] - f) * nrs;
-          let d0 = 0;
-          for (let k = 0, b = offd + t; k < wd; k++, b += nrd) d0 += Lx[b] * pack[2 * k];
-          T[cbase + rel[t]] -= d0;
-          let r = t + 1;
-          for (; r + 3 < nrd; r += 4) {
-            let a00 = 0;
-            let a01 = 0;
-            let a10 = 0;
-            let a11 = 0;
-            let a20 = 0;
-            let a21 = 0;
-            let a30 = 0;
-            let a31 = 0;
-            for (let k = 0, b = offd + r; k < wd; k++, b += nrd) {
-              const x0 = pack[2 * k];
-              const x1 = pack[2 * k + 1];
-              const l0 = Lx[b];
-              const l1 = Lx[b + 1];
-              const l2 = Lx[b + 2];
-              const l3 = Lx[b + 3];
-              a00 += l0 * x0;
-              a01 += l0 * x1;
-              a10 += l1 * x0;
-              a11 += l1 * x1;
-              a20 += l2 * x0;
-              a21 += l2 * x1;
-              a30 += l3 * x0;
-              a31 += l3 * x1;
-            }
-            T[cbase + rel[r]] -= a00;
-            T[cbase2 + rel[r]] -= a01;
-            T[cbase + rel[r + 1]] -= a10;
-            T[cbase2 + rel[r + 1]] -= a11;
-            T[cbase + rel[r + 2]] -= a20;
-            T[cbase2 + rel[r + 2]] -= a21;
-            T[cbase + rel[r + 3]] -= a30;
-            T[cbase2 + rel[r + 3]] -= a31;
-          }
-          for (; r < nrd; r++) {
-            let a0 = 0;
-            let a1 = 0;
-            for (let k = 0, b = offd + r; k < wd; k++, b += nrd) {
-              const l = Lx[b];
-              a0 += l * pack[2 * k];
-              a1 += l * pack[2 * k + 1];
-            }
-            T[cbase + rel[r]] -= a0;
-            T[cbase2 + rel[r]] -= a1;
-          }
-        }
-        for (; t < end; t++) {
-          tmp.fill(0, t, nrd);
-          for (let k = 0; k < wd; k++) {
-            const b0 = offd + k * nrd;
-            const a0 = Lx[b0 + t] * D[fd + k];
-            if (a0 === 0) continue;
-            for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0;
-          }
-          const cbase = off + (rows[rd0 + t] - f) * nrs;
-          for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= tmp[r];
-        }
-      }
+      updateFromDescendant(S, W, T, off, f, nrs, d, start, end);
       nextRow[d] = end;
       if (end < nrd) {
         const target = snode[rows[rd0 + end]];
@@ -428,5 +332,115 @@ export function scalePanel(Lx: Float64Array, D: Float64Array, off: number, nrs: 
     const inv = 1 / D[f + k];
     for (let r = k + 1; r < nrs; r++) Lx[kb + r] *= inv;
     Lx[kb + k] = 1;
+  }
+}
+
+/**
+ * Step 2 for one descendant d: subtracts L_d D_d L_dᵀ from the target block at `off` (nrs rows,
+ * first column f; relmap holds the target's row positions) for the target columns given by d's
+ * rows t0..t1 (rows below them included). Target columns are independent, so two threads may
+ * update disjoint column ranges of one target at once.
+ */
+export function updateFromDescendant(S: KernelShared, W: KernelWork, T: Float64Array, off: number, f: number, nrs: number, d: number, t0: number, t1: number): void {
+  const { sup, rowPtr, rows, blockPtr, Lx, D } = S;
+  const { relmap, tmp, rel, pack } = W;
+  const fd = sup[d];
+  const wd = sup[d + 1] - fd;
+  const rd0 = rowPtr[d];
+  const nrd = rowPtr[d + 1] - rd0;
+  const offd = blockPtr[d];
+  // positions in s's block of d's rows from `t0` on
+  for (let r = t0; r < nrd; r++) rel[r] = relmap[rows[rd0 + r]];
+  if (wd <= 2) {
+    // narrow descendant: subtract straight into the target column
+    const b0 = offd;
+    const b1 = offd + nrd;
+    const d0 = D[fd];
+    const d1 = wd === 2 ? D[fd + 1] : 0;
+    for (let t = t0; t < t1; t++) {
+      const a0 = Lx[b0 + t] * d0;
+      const a1 = wd === 2 ? Lx[b1 + t] * d1 : 0;
+      const cbase = off + (rows[rd0 + t] - f) * nrs;
+      if (wd === 2) {
+        for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= Lx[b0 + r] * a0 + Lx[b1 + r] * a1;
+      } else if (a0 !== 0) {
+        for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= Lx[b0 + r] * a0;
+      }
+    }
+  } else {
+    // wide descendant: two target columns (t, t + 1) at a time. Their multipliers
+    // L(t, k)·D(k) and L(t + 1, k)·D(k) are packed side by side; then four rows of d's
+    // block at a time are multiplied by them, the eight sums held in registers over all k
+    // and subtracted from the target once.
+    let t = t0;
+    for (; t + 1 < t1; t += 2) {
+      for (let k = 0, b = offd; k < wd; k++, b += nrd) {
+        const e = D[fd + k];
+        pack[2 * k] = Lx[b + t] * e;
+        pack[2 * k + 1] = Lx[b + t + 1] * e;
+      }
+      const cbase = off + (rows[rd0 + t] - f) * nrs;
+      const cbase2 = off + (rows[rd0 + t + 1] - f) * nrs;
+      let d0 = 0;
+      for (let k = 0, b = offd + t; k < wd; k++, b += nrd) d0 += Lx[b] * pack[2 * k];
+      T[cbase + rel[t]] -= d0;
+      let r = t + 1;
+      for (; r + 3 < nrd; r += 4) {
+        let a00 = 0;
+        let a01 = 0;
+        let a10 = 0;
+        let a11 = 0;
+        let a20 = 0;
+        let a21 = 0;
+        let a30 = 0;
+        let a31 = 0;
+        for (let k = 0, b = offd + r; k < wd; k++, b += nrd) {
+          const x0 = pack[2 * k];
+          const x1 = pack[2 * k + 1];
+          const l0 = Lx[b];
+          const l1 = Lx[b + 1];
+          const l2 = Lx[b + 2];
+          const l3 = Lx[b + 3];
+          a00 += l0 * x0;
+          a01 += l0 * x1;
+          a10 += l1 * x0;
+          a11 += l1 * x1;
+          a20 += l2 * x0;
+          a21 += l2 * x1;
+          a30 += l3 * x0;
+          a31 += l3 * x1;
+        }
+        T[cbase + rel[r]] -= a00;
+        T[cbase2 + rel[r]] -= a01;
+        T[cbase + rel[r + 1]] -= a10;
+        T[cbase2 + rel[r + 1]] -= a11;
+        T[cbase + rel[r + 2]] -= a20;
+        T[cbase2 + rel[r + 2]] -= a21;
+        T[cbase + rel[r + 3]] -= a30;
+        T[cbase2 + rel[r + 3]] -= a31;
+      }
+      for (; r < nrd; r++) {
+        let a0 = 0;
+        let a1 = 0;
+        for (let k = 0, b = offd + r; k < wd; k++, b += nrd) {
+          const l = Lx[b];
+          a0 += l * pack[2 * k];
+          a1 += l * pack[2 * k + 1];
+        }
+        T[cbase + rel[r]] -= a0;
+        T[cbase2 + rel[r]] -= a1;
+      }
+    }
+    for (; t < t1; t++) {
+      tmp.fill(0, t, nrd);
+      for (let k = 0; k < wd; k++) {
+        const b0 = offd + k * nrd;
+        const a0 = Lx[b0 + t] * D[fd + k];
+        if (a0 === 0) continue;
+        for (let r = t; r < nrd; r++) tmp[r] += Lx[b0 + r] * a0;
+      }
+      const cbase = off + (rows[rd0 + t] - f) * nrs;
+      for (let r = t; r < nrd; r++) T[cbase + rel[r]] -= tmp[r];
+    }
   }
 }

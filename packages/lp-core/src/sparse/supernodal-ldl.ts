@@ -20,6 +20,7 @@ import {
   factorPanel,
   factorSupernodes,
   scalePanel,
+  updateFromDescendant,
   type KernelCall,
   type KernelOptions,
   type KernelShared,
@@ -75,7 +76,7 @@ export class SupernodalLdl {
    * planning models with shared materials and subassemblies) but the root is wide: everything
    * below the root on this thread, then the root's dense block on both threads
    */
-  private rootOnly: { helper: HelperLink; below: KernelCall | null; updates: KernelCall; s: number } | null = null;
+  private rootOnly: { helper: HelperLink; below: KernelCall | null; updates: KernelCall; s: number; list: Int32Array } | null = null;
 
   /**
    * Lp/Li/Ax: the lower triangle (rows ≥ column) of the permuted matrix in CSC form; Ax is read
@@ -188,7 +189,42 @@ export class SupernodalLdl {
     const helper = HelperLink.create(this, { S: this.S, n, maxRows, count, half: { ...none, head: this.head, linkCount: 0 }, push: none });
     if (!helper) return null;
     const call = (ranges: Int32Array, factor: boolean): KernelCall => ({ ranges, top: null, deferred: sharedInt32(1), head: this.head, link: null, linkCount: 0, assemble: true, factor, ...onLx });
-    return { helper, below: r > 0 ? call(Int32Array.from([0, r]), true) : null, updates: call(Int32Array.from([r, r + 1]), false), s: r };
+    return { helper, below: r > 0 ? call(Int32Array.from([0, r]), true) : null, updates: call(Int32Array.from([r, r + 1]), false), s: r, list: sharedInt32(count) };
+  }
+
+  /**
+   * The updates into the root from its descendants (ro.list), split by the root's columns where
+   * the work (rows at and below each column) halves: the helper takes the right part. Returns 0,
+   * or −1 when the helper failed (the caller starts over on one thread).
+   */
+  private sharedRootUpdates(ro: NonNullable<SupernodalLdl['rootOnly']>, count: number): number {
+    const { super: sup, rowPtr, rows, blockPtr } = this.sym;
+    const { S, W, Lx } = this;
+    const r = ro.s;
+    const f = sup[r];
+    const ws = sup[r + 1] - f;
+    const off = blockPtr[r];
+    const total = (ws * (ws + 1)) / 2;
+    let acc = 0;
+    let cs = 0;
+    while (cs < ws && acc < total / 2) acc += ws - cs++;
+    const shared = ro.helper.startRootUpdates(ro.list, count, cs, f, ws, off);
+    const cut = shared ? f + cs : f + ws;
+    for (let i = 0; i < count; i++) {
+      const d = ro.list[i];
+      const rd0 = rowPtr[d];
+      const nrd = rowPtr[d + 1] - rd0;
+      const t0 = S.nextRow[d];
+      let t1 = t0;
+      while (t1 < nrd && rows[rd0 + t1] < cut) t1++;
+      if (t1 > t0) updateFromDescendant(S, W, Lx, off, f, ws, d, t0, t1);
+    }
+    if (shared && !ro.helper.waitRootUpdates()) return -1;
+    for (let i = 0; i < count; i++) {
+      const d = ro.list[i];
+      S.nextRow[d] = rowPtr[d + 1] - rowPtr[d];
+    }
+    return 0;
   }
 
   /** the calls of a shared root factorisation, or null when the top does not end in a wide root */
@@ -270,15 +306,22 @@ export class SupernodalLdl {
       // everything below the root here, then the root's updates, then its dense block on both threads
       let code = ro.below ? factorSupernodes(S, W, ro.below, kernelOpts, out) : 0;
       let replaced = ro.below ? out[2] : 0;
-      if (code === 0) code = factorSupernodes(S, W, ro.updates, kernelOpts, out);
+      if (code === 0) {
+        // take the root's descendants off its list, so the next call only assembles the root
+        let count = 0;
+        for (let d = this.head[ro.s]; d !== -1; d = S.next[d]) ro.list[count++] = d;
+        this.head[ro.s] = -1;
+        code = factorSupernodes(S, W, ro.updates, kernelOpts, out);
+        if (code === 0) code = this.sharedRootUpdates(ro, count);
+      }
       if (code === 0) {
         code = this.factorSharedRoot(ro.helper, ro.s, kernelOpts);
-        if (code === -1) {
-          this.rootOnly = null;
-          return this.factorise(opts);
-        }
-        replaced += out[2];
       }
+      if (code === -1) {
+        this.rootOnly = null;
+        return this.factorise(opts);
+      }
+      if (code === 0) replaced += out[2];
       return { status: STATUS[code], column: out[1], replacedPivots: replaced };
     }
     if (!par || !par.helper.start(kernelOpts)) {
