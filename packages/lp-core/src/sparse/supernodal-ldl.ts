@@ -253,10 +253,14 @@ export class SupernodalLdl {
     const ws = sup[r + 1] - f;
     const nrs = ws;
     const off = blockPtr[r];
+    const panel = (k0: number, k1: number): number =>
+      factorPanel(Lx, D, this.W.diag, opts.sign, off, nrs, f, k0, k1, opts.pivotTolerance, opts.dynamicRegularisation, opts.bigPivot, out);
     const shared = link.startDense(off, nrs, f);
-    let replaced = 0;
-    let code = 0;
-    for (let k0 = 0; k0 < ws; k0 += ROOT_PANEL) {
+    let code = panel(0, Math.min(ROOT_PANEL, ws));
+    let replaced = out[2];
+    // panel k0..k1 is factorised (unscaled) at the top of each round; with look-ahead, this thread
+    // updates and factorises the next panel while the helper updates its share of the rest
+    for (let k0 = 0; code === 0 && k0 < ws; k0 += ROOT_PANEL) {
       out[4]++;
       if (opts.deadline < Infinity && performance.now() > opts.deadline) {
         out[1] = f + k0;
@@ -264,19 +268,26 @@ export class SupernodalLdl {
         break;
       }
       const k1 = Math.min(k0 + ROOT_PANEL, ws);
-      code = factorPanel(Lx, D, this.W.diag, opts.sign, off, nrs, f, k0, k1, opts.pivotTolerance, opts.dynamicRegularisation, opts.bigPivot, out);
-      if (code !== 0) break;
-      replaced += out[2];
-      // split the trailing columns k1..ws where the work (rows nrs − c per column) halves
+      const k2 = Math.min(k1 + ROOT_PANEL, ws);
+      // split the trailing columns k1..ws where the work (rows nrs − c per column) halves, this
+      // thread's share counting the next panel's factorisation (about half a panel of updates);
+      // the next panel k1..k2 stays on this thread
       let cs = ws;
       if (shared) {
         const total = ((ws - k1) * (2 * nrs - k1 - ws + 1)) / 2;
-        let acc = 0;
+        const lookAhead = ((k2 - k1) / 2) * (nrs - k1);
+        let acc = lookAhead;
         cs = k1;
-        while (cs < ws && acc < total / 2) acc += nrs - cs++;
+        while (cs < ws && acc < (total + lookAhead) / 2) acc += nrs - cs++;
+        cs = Math.max(cs, k2);
         link.panelReady(k0, k1, cs);
       }
-      denseTrailingUpdate(Lx, D, off, nrs, f, k0, k1, k1, cs);
+      denseTrailingUpdate(Lx, D, off, nrs, f, k0, k1, k1, k2);
+      if (k2 > k1) {
+        code = panel(k1, k2);
+        if (code === 0) replaced += out[2];
+      }
+      if (code === 0) denseTrailingUpdate(Lx, D, off, nrs, f, k0, k1, k2, cs);
       if (shared && !link.waitPanel()) return -1;
       scalePanel(Lx, D, off, nrs, f, k0, k1);
     }
@@ -284,6 +295,7 @@ export class SupernodalLdl {
     out[2] = replaced;
     return code;
   }
+
 
   /** whether factorise() runs on two threads */
   get threads(): number {
