@@ -237,12 +237,8 @@ export class HelperLink {
 
   /** posts the helper's part; false when the helper is gone */
   start(opts: KernelOptions): boolean {
-    const w = theHelper();
+    const w = this.helperSetUp();
     if (!w) return false;
-    if (this.setUpOn !== w) {
-      w.postMessage({ type: 'setup', id: this.id, context: this.context, out: this.out, done: this.done });
-      this.setUpOn = w;
-    }
     this.seq++;
     this.out[0] = -1;
     this.out[4] = 0;
@@ -250,15 +246,38 @@ export class HelperLink {
     return true;
   }
 
-  /** posts the helper's half of a solve; false when the helper is gone */
-  startSolve(): boolean {
+  /** the helper, with this factorisation's context registered on it; null when it is gone */
+  private helperSetUp(): Worker | null {
     const w = theHelper();
-    const v = this.context.solve;
-    if (!w || !v) return false;
-    if (this.setUpOn !== w) {
+    if (w && this.setUpOn !== w) {
       w.postMessage({ type: 'setup', id: this.id, context: this.context, out: this.out, done: this.done });
       this.setUpOn = w;
     }
+    return w;
+  }
+
+  /**
+   * Blocks until flags[index] holds token (the helper's part is done); false when it holds −token
+   * (the helper's part failed) or nothing came for STALLED_MS: the helper is then given up for good.
+   */
+  private awaitFlag(flags: Int32Array, index: number, token: number): boolean {
+    const until = performance.now() + STALLED_MS;
+    for (;;) {
+      const v = Atomics.load(flags, index);
+      if (v === token) return true;
+      if (v === -token || performance.now() > until) {
+        void helper?.terminate();
+        helper = null;
+        return false;
+      }
+      Atomics.wait(flags, index, v, 500);
+    }
+  }
+
+  /** posts the helper's half of a solve; false when the helper is gone */
+  startSolve(): boolean {
+    const w = this.context.solve ? this.helperSetUp() : null;
+    if (!w) return false;
     this.solveSeq++;
     w.postMessage({ type: 'solve', id: this.id, seq: this.solveSeq });
     return true;
@@ -266,29 +285,13 @@ export class HelperLink {
 
   /** blocks until the helper's forward half (stage 0) or backward half (stage 2) is done; false when it failed or stalled (then it is given up) */
   waitSolve(stage: 0 | 2): boolean {
-    const f = this.context.solve!.flags;
-    const seq = this.solveSeq;
-    const until = performance.now() + STALLED_MS;
-    for (;;) {
-      const v = Atomics.load(f, stage);
-      if (v === seq) return true;
-      if (v === -seq || performance.now() > until) {
-        void helper?.terminate();
-        helper = null;
-        return false;
-      }
-      Atomics.wait(f, stage, v, 500);
-    }
+    return this.awaitFlag(this.context.solve!.flags, stage, this.solveSeq);
   }
 
   /** posts the helper's share of a root factorisation (see SupernodalLdl); false when the helper is gone */
   startDense(off: number, nrs: number, f: number): boolean {
-    const w = theHelper();
+    const w = this.helperSetUp();
     if (!w) return false;
-    if (this.setUpOn !== w) {
-      w.postMessage({ type: 'setup', id: this.id, context: this.context, out: this.out, done: this.done });
-      this.setUpOn = w;
-    }
     this.denseCall++;
     w.postMessage({ type: 'dense', id: this.id, call: this.denseCall, firstToken: this.denseToken + 1, off, nrs, f, flags: this.denseFlags });
     return true;
@@ -296,31 +299,15 @@ export class HelperLink {
 
   /** posts the helper's share of the updates into a root (its columns cs..); false when the helper is gone */
   startRootUpdates(list: Int32Array, count: number, cs: number, f: number, nrs: number, off: number): boolean {
-    const w = theHelper();
+    const w = this.helperSetUp();
     if (!w) return false;
-    if (this.setUpOn !== w) {
-      w.postMessage({ type: 'setup', id: this.id, context: this.context, out: this.out, done: this.done });
-      this.setUpOn = w;
-    }
     w.postMessage({ type: 'rootUpdates', id: this.id, token: ++this.rootToken, list, count, cs, f, nrs, off, flags: this.rootFlags });
     return true;
   }
 
   /** blocks until the helper's share of the root's updates is done; false when it failed or stalled (it is then given up) */
   waitRootUpdates(): boolean {
-    const fl = this.rootFlags;
-    const token = this.rootToken;
-    const until = performance.now() + STALLED_MS;
-    for (;;) {
-      const v = Atomics.load(fl, 0);
-      if (v === token) return true;
-      if (v === -token || performance.now() > until) {
-        void helper?.terminate();
-        helper = null;
-        return false;
-      }
-      Atomics.wait(fl, 0, v, 500);
-    }
+    return this.awaitFlag(this.rootFlags, 0, this.rootToken);
   }
 
   /** hands the helper the trailing columns cs.. of panel k0..k1 (this thread takes the rest) */
@@ -335,19 +322,7 @@ export class HelperLink {
 
   /** blocks until the helper has done its share of the panel; false when it failed or stalled (it is then given up) */
   waitPanel(): boolean {
-    const fl = this.denseFlags;
-    const token = this.denseToken;
-    const until = performance.now() + STALLED_MS;
-    for (;;) {
-      const v = Atomics.load(fl, 1);
-      if (v === token) return true;
-      if (v === -token || performance.now() > until) {
-        void helper?.terminate();
-        helper = null;
-        return false;
-      }
-      Atomics.wait(fl, 1, v, 500);
-    }
+    return this.awaitFlag(this.denseFlags, 1, this.denseToken);
   }
 
   /** lets the helper leave the root factorisation */
