@@ -5,11 +5,12 @@
  * them (subtree-split.ts). Each thread factorises its half, then pushes its half's updates into
  * the top: this thread straight into the top's blocks, the helper thread
  * (factor-helper-thread.ts) into a buffer of its own that is added afterwards. Then this thread
- * factorises the top; when the top ends in a wide dense root (often the largest single piece of
- * work on planning models), its trailing updates are shared panel by panel. A tree that cannot be
- * split (its top would hold most of the work) still shares a wide root that way. The solves with such a factor are shared the same way: each thread solves
- * its half (forward, then backward after this thread has done the top). All arrays are allocated
- * once in the constructor, in shared memory.
+ * factorises the top. A wide dense root (often the largest single piece of work on planning
+ * models) is shared: the updates into it split by its columns, its dense block panel by panel;
+ * a tree that cannot be split (its top would hold most of the work) still shares its root that
+ * way. The solves with a split factor are shared too: each thread solves its half (forward, then
+ * backward after this thread has done the top). All arrays are allocated once in the
+ * constructor, in shared memory.
  */
 import { HelperLink, type SharedSolve } from './factor-helper-thread';
 import { warmUpKernel } from './kernel-warm-up';
@@ -48,11 +49,8 @@ interface ParallelCalls {
   push: KernelCall;
   /** the top, once the helper's updates are added */
   top: KernelCall;
-  /**
-   * when the top ends in a wide root: the top without it, the updates into the root, and the
-   * root's dense block, factorised panel by panel with the trailing columns shared by both threads
-   */
-  root: { rest: KernelCall | null; updates: KernelCall; s: number } | null;
+  /** when the top ends in a wide root: the top without it, and the root (see factorRoot) */
+  root: { rest: KernelCall | null; s: number; list: Int32Array } | null;
   /** the helper's updates, block by block of the top */
   buffer: Float64Array;
   bufferPtr: Int32Array;
@@ -76,7 +74,7 @@ export class SupernodalLdl {
    * planning models with shared materials and subassemblies) but the root is wide: everything
    * below the root on this thread, then the root's dense block on both threads
    */
-  private rootOnly: { helper: HelperLink; below: KernelCall | null; updates: KernelCall; s: number; list: Int32Array } | null = null;
+  private rootOnly: { helper: HelperLink; below: KernelCall | null; assemble: KernelCall; s: number; list: Int32Array } | null = null;
 
   /**
    * Lp/Li/Ax: the lower triangle (rows ≥ column) of the permuted matrix in CSC form; Ax is read
@@ -189,29 +187,29 @@ export class SupernodalLdl {
     const helper = HelperLink.create(this, { S: this.S, n, maxRows, count, half: { ...none, head: this.head, linkCount: 0 }, push: none });
     if (!helper) return null;
     const call = (ranges: Int32Array, factor: boolean): KernelCall => ({ ranges, top: null, deferred: sharedInt32(1), head: this.head, link: null, linkCount: 0, assemble: true, factor, ...onLx });
-    return { helper, below: r > 0 ? call(Int32Array.from([0, r]), true) : null, updates: call(Int32Array.from([r, r + 1]), false), s: r, list: sharedInt32(count) };
+    return { helper, below: r > 0 ? call(Int32Array.from([0, r]), true) : null, assemble: call(Int32Array.from([r, r + 1]), false), s: r, list: sharedInt32(count) };
   }
 
   /**
-   * The updates into the root from its descendants (ro.list), split by the root's columns where
+   * The updates into root r from its descendants (list), split by the root's columns where
    * the work (rows at and below each column) halves: the helper takes the right part. Returns 0,
    * or −1 when the helper failed (the caller starts over on one thread).
    */
-  private sharedRootUpdates(ro: NonNullable<SupernodalLdl['rootOnly']>, count: number): number {
+  private sharedRootUpdates(link: HelperLink, r: number, list: Int32Array, count: number): number {
     const { super: sup, rowPtr, rows, blockPtr } = this.sym;
     const { S, W, Lx } = this;
-    const r = ro.s;
     const f = sup[r];
     const ws = sup[r + 1] - f;
     const off = blockPtr[r];
+    for (let i = 0; i < ws; i++) W.relmap[f + i] = i;
     const total = (ws * (ws + 1)) / 2;
     let acc = 0;
     let cs = 0;
     while (cs < ws && acc < total / 2) acc += ws - cs++;
-    const shared = ro.helper.startRootUpdates(ro.list, count, cs, f, ws, off);
+    const shared = link.startRootUpdates(list, count, cs, f, ws, off);
     const cut = shared ? f + cs : f + ws;
     for (let i = 0; i < count; i++) {
-      const d = ro.list[i];
+      const d = list[i];
       const rd0 = rowPtr[d];
       const nrd = rowPtr[d + 1] - rd0;
       const t0 = S.nextRow[d];
@@ -219,9 +217,9 @@ export class SupernodalLdl {
       while (t1 < nrd && rows[rd0 + t1] < cut) t1++;
       if (t1 > t0) updateFromDescendant(S, W, Lx, off, f, ws, d, t0, t1);
     }
-    if (shared && !ro.helper.waitRootUpdates()) return -1;
+    if (shared && !link.waitRootUpdates()) return -1;
     for (let i = 0; i < count; i++) {
-      const d = ro.list[i];
+      const d = list[i];
       S.nextRow[d] = rowPtr[d + 1] - rowPtr[d];
     }
     return 0;
@@ -233,11 +231,11 @@ export class SupernodalLdl {
     const r = top[top.length - 1] - 1;
     const ws = sup[r + 1] - sup[r];
     if (ws < SHARED_ROOT_MIN_WIDTH || rowPtr[r + 1] - rowPtr[r] !== ws) return null;
-    const rest = Int32Array.from(top);
-    rest[rest.length - 1] = r;
-    const ranges = rest[rest.length - 2] === r ? rest.subarray(0, rest.length - 2) : rest;
-    const call = (rs: Int32Array, factor: boolean): KernelCall => ({ ranges: rs, top: null, deferred, head: this.head, link: null, linkCount: 0, assemble: false, factor, ...onLx });
-    return { rest: ranges.length > 0 ? call(ranges, true) : null, updates: call(Int32Array.from([r, r + 1]), false), s: r };
+    const cut = Int32Array.from(top);
+    cut[cut.length - 1] = r;
+    const ranges = cut[cut.length - 2] === r ? cut.subarray(0, cut.length - 2) : cut;
+    const rest: KernelCall | null = ranges.length > 0 ? { ranges, top: null, deferred, head: this.head, link: null, linkCount: 0, assemble: false, factor: true, ...onLx } : null;
+    return { rest, s: r, list: sharedInt32(this.sym.count) };
   }
 
   /**
@@ -296,6 +294,22 @@ export class SupernodalLdl {
     return code;
   }
 
+  /**
+   * Root r on both threads, once everything below it is factorised: its descendants are taken
+   * off its list (so `assemble`, when given, only assembles its block), their updates into it
+   * shared, then its dense block shared. Returns the status code with the root's replaced pivots
+   * in out[2], or −1 when the helper failed.
+   */
+  private factorRoot(link: HelperLink, r: number, list: Int32Array, assemble: KernelCall | null, opts: KernelOptions): number {
+    const { S, W, out } = this;
+    let count = 0;
+    for (let d = this.head[r]; d !== -1; d = S.next[d]) list[count++] = d;
+    this.head[r] = -1;
+    let code = assemble ? factorSupernodes(S, W, assemble, opts, out) : 0;
+    if (code === 0) code = this.sharedRootUpdates(link, r, list, count);
+    if (code === 0) code = this.factorSharedRoot(link, r, opts);
+    return code;
+  }
 
   /** whether factorise() runs on two threads */
   get threads(): number {
@@ -318,17 +332,7 @@ export class SupernodalLdl {
       // everything below the root here, then the root's updates, then its dense block on both threads
       let code = ro.below ? factorSupernodes(S, W, ro.below, kernelOpts, out) : 0;
       let replaced = ro.below ? out[2] : 0;
-      if (code === 0) {
-        // take the root's descendants off its list, so the next call only assembles the root
-        let count = 0;
-        for (let d = this.head[ro.s]; d !== -1; d = S.next[d]) ro.list[count++] = d;
-        this.head[ro.s] = -1;
-        code = factorSupernodes(S, W, ro.updates, kernelOpts, out);
-        if (code === 0) code = this.sharedRootUpdates(ro, count);
-      }
-      if (code === 0) {
-        code = this.factorSharedRoot(ro.helper, ro.s, kernelOpts);
-      }
+      if (code === 0) code = this.factorRoot(ro.helper, ro.s, ro.list, ro.assemble, kernelOpts);
       if (code === -1) {
         this.rootOnly = null;
         return this.factorise(opts);
@@ -378,18 +382,17 @@ export class SupernodalLdl {
       const code = factorSupernodes(S, W, par.top, kernelOpts, out);
       return { status: STATUS[code], column: out[1], replacedPivots: replaced + out[2] };
     }
-    // the top without its root, the updates into the root, then the root on both threads
-    const { rest, updates, s } = par.root;
+    // the top without its root here, then the root on both threads (its block already assembled)
+    const { rest, s, list } = par.root;
     let code = rest ? factorSupernodes(S, W, rest, kernelOpts, out) : 0;
     if (rest) replaced += out[2];
-    if (code === 0) code = factorSupernodes(S, W, updates, kernelOpts, out);
     if (code === 0) {
-      code = this.factorSharedRoot(par.helper, s, kernelOpts);
+      code = this.factorRoot(par.helper, s, list, null, kernelOpts);
       if (code === -1) {
         this.parallel = null;
         return this.factorise(opts);
       }
-      replaced += out[2];
+      if (code === 0) replaced += out[2];
     }
     return { status: STATUS[code], column: out[1], replacedPivots: replaced };
   }
