@@ -15,8 +15,13 @@ import { DenseColumnUpdate } from './dense-column-update';
 import type { KktSolver, KktStatus } from './kkt-solver';
 import { qDiagonal, type IpmProblem } from './ipm-problem';
 
-/** refinement stops once the residual is this small relative to the right-hand side */
-const REFINE_TOLERANCE = 1e-12;
+/**
+ * refinement stops once the residual is this small relative to the right-hand side. Measured on
+ * the API bench's 200 × 26 model: 1e-12 took 226 factor solves for 135 Newton solves (28
+ * iterations), 1e-10 takes 139 for the same 28 iterations and objective to 5e-11 (time in Newton
+ * solves 1.15–1.25 s → 0.64–0.69 s); the Netlib optima keep their accuracy.
+ */
+const REFINE_TOLERANCE = 1e-10;
 
 export class NormalEquations implements KktSolver {
   private readonly F: SymmetricFactorisation;
