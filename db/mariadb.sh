@@ -81,10 +81,13 @@ mr_db_start() {
   mkdir -p "$(dirname "$pidfile")"
   rm -f "$sock" "$run/mysqld.pid"
   mkdir -p "$base/tmp"
+  # max-allowed-packet: a large plan (1000 products × 52 weeks) stores an MPS model and results of
+  # several tens of MB in one row; the server's default of 16 MB refused them
   "$mariadbd" --no-defaults --user="$(id -un)" --datadir="$data" --socket="$sock" --tmpdir="$base/tmp" \
     --pid-file="$run/mysqld.pid" --log-error="$run/mysqld.err" \
     --port="$port" --bind-address=127.0.0.1 --skip-name-resolve \
     --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
+    --max-allowed-packet=1G \
     "$@" </dev/null >>"$run/mysqld.err" 2>&1 &
   pid=$!
   echo "$pid" >"$pidfile"

@@ -70,7 +70,7 @@ export const smoothingSchema = z.strictObject({
 export type Smoothing = z.infer<typeof smoothingSchema>;
 
 export const planHorizonMinWeeks = 4;
-export const planHorizonMaxWeeks = 26;
+export const planHorizonMaxWeeks = 52;
 
 const planName = z.string().trim().min(1, 'Enter a name.').max(120, 'Use at most 120 characters.');
 
