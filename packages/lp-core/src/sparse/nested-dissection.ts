@@ -3,8 +3,11 @@
  * a regular finite element mesh", SIAM J. Numer. Anal. 10, 1973; George & Liu, Computer
  * Solution of Large Sparse Positive Definite Systems, 1981, ch. 8):
  *  - from a pseudo-peripheral node, breadth-first search splits the graph into level sets;
- *  - a small level near the middle is a vertex separator: the levels before and after it are
- *    ordered first (recursively), the separator last;
+ *  - a level near the middle, thinned to its nodes adjacent to the next (or the previous) level,
+ *    is a vertex separator: the parts before and after it are ordered first (recursively), the
+ *    separator last. Thinning measured (multiply–adds per factorisation): lp-core bench M
+ *    1.56e8 → 1.38e8, L 7.58e9 → 7.31e9; the API bench's 200 × 26 model 5.67e9 → 4.35e9 (AMD,
+ *    3.1e8, stays the better ordering there);
  *  - pieces of at most LEAF_SIZE nodes (or without a useful separator) are ordered by
  *    approximate minimum degree.
  * Graphs with a long "time" axis (multi-period planning models) get separators of one period,
@@ -123,17 +126,50 @@ export function nestedDissection(n: number, Ap: Int32Array, Ai: Int32Array): Int
       for (const comp of comps) dissect(comp);
       return;
     }
-    // level sizes and the smallest level leaving both sides at least MIN_SIDE of the nodes
+    // Candidate separators, one per level L: the nodes of L with a neighbour in level L + 1 (the
+    // rest of L joins the side before it) or those with a neighbour in level L − 1 (the rest
+    // joins the side after it); either cuts every path from before L to after L. The smallest
+    // candidate leaving both sides at least MIN_SIDE of the nodes is kept.
     const size = new Int32Array(height + 1);
-    for (let q = 0; q < count; q++) size[level[queue[q]]]++;
+    const towardNext = new Int32Array(height + 1);
+    const towardPrev = new Int32Array(height + 1);
+    for (let q = 0; q < count; q++) {
+      const v = queue[q];
+      const l = level[v];
+      size[l]++;
+      let next = false;
+      let prev = false;
+      for (let p = ptr[v]; p < ptr[v + 1]; p++) {
+        const w = idx[p];
+        if (setId[w] !== id) continue;
+        if (level[w] === l + 1) next = true;
+        else if (level[w] === l - 1) prev = true;
+      }
+      if (next) towardNext[l]++;
+      if (prev) towardPrev[l]++;
+    }
     let before = 0;
     let sep = -1;
+    let sepSize = Infinity;
+    let sepTowardNext = true;
     for (let L = 0; L <= height; L++) {
       const after = k - before - size[L];
-      if (before >= MIN_SIDE * k && after >= MIN_SIDE * k && (sep < 0 || size[L] < size[sep])) sep = L;
+      // towardNext: before + (size − towardNext) | towardNext | after
+      const b1 = before + size[L] - towardNext[L];
+      if (b1 >= MIN_SIDE * k && after >= MIN_SIDE * k && towardNext[L] < sepSize) {
+        sep = L;
+        sepSize = towardNext[L];
+        sepTowardNext = true;
+      }
+      const a2 = after + size[L] - towardPrev[L];
+      if (before >= MIN_SIDE * k && a2 >= MIN_SIDE * k && towardPrev[L] < sepSize) {
+        sep = L;
+        sepSize = towardPrev[L];
+        sepTowardNext = false;
+      }
       before += size[L];
     }
-    if (sep < 0 || size[sep] > 0.3 * k) {
+    if (sep < 0 || sepSize > 0.3 * k) {
       for (let a = 0; a < k; a++) setId[nodes[a]] = -1;
       orderByAmd(nodes);
       return;
@@ -144,7 +180,14 @@ export function nestedDissection(n: number, Ap: Int32Array, Ai: Int32Array): Int
     for (let q = 0; q < count; q++) {
       const v = queue[q];
       const l = level[v];
-      (l < sep ? left : l > sep ? right : middle).push(v);
+      if (l < sep) left.push(v);
+      else if (l > sep) right.push(v);
+      else {
+        const toward = sepTowardNext ? sep + 1 : sep - 1;
+        let inSeparator = false;
+        for (let p = ptr[v]; p < ptr[v + 1] && !inSeparator; p++) inSeparator = setId[idx[p]] === id && level[idx[p]] === toward;
+        (inSeparator ? middle : sepTowardNext ? left : right).push(v);
+      }
     }
     for (let a = 0; a < k; a++) setId[nodes[a]] = -1;
     dissect(Int32Array.from(left));
