@@ -43,6 +43,13 @@ export function humanPath(path: string): string {
     .join(', ');
 }
 
+/** "item: message", unless the message already starts by naming its item */
+function withItem(path: string, message: string): string {
+  if (!path) return message;
+  const item = humanPath(path);
+  return message.startsWith(`${item}:`) ? message : `${item}: ${message}`;
+}
+
 type Outcome =
   | { kind: 'idle' }
   | { kind: 'saved'; message: string }
@@ -164,10 +171,7 @@ export function Form<S extends z.ZodType<FieldValues, FieldValues>>({
               {outcome.unplaced.length > 0 ? (
                 <ul className="mt-1 list-disc pl-5">
                   {outcome.unplaced.map((u) => (
-                    <li key={`${u.path}:${u.message}`}>
-                      {u.path ? `${humanPath(u.path)}: ` : ''}
-                      {u.message}
-                    </li>
+                    <li key={`${u.path}:${u.message}`}>{withItem(u.path, u.message)}</li>
                   ))}
                 </ul>
               ) : null}

@@ -17,10 +17,11 @@ describe('create a plan version', () => {
       'GET /api/me': () => json(people.planner),
       'GET /api/scenarios': () => json([]),
       'POST /api/plans': () =>
-        apiError(422, 'unprocessable', 'The planning data has 2 issues; fix them and create the plan again.', {
+        apiError(422, 'unprocessable', 'The planning data has 3 issues; fix them and create the plan again.', {
           issues: [
             { item: 'work center SAW', message: 'Work center SAW has no hours in week 2026-12-14.' },
             { item: 'product T-1', message: 'Product T-1 has no routing.' },
+            { item: 'horizon', message: 'horizon: 52 weeks asked but demand is known only up to week 13' },
           ],
         }),
     });
@@ -31,9 +32,14 @@ describe('create a plan version', () => {
 
     const alert = await screen.findByRole('alert');
     expect(alert).toHaveTextContent('Not saved');
-    expect(alert).toHaveTextContent('The planning data has 2 issues');
+    expect(alert).toHaveTextContent('The planning data has 3 issues');
     const items = within(alert).getAllByRole('listitem').map((li) => li.textContent);
-    expect(items).toEqual(['work center SAW: Work center SAW has no hours in week 2026-12-14.', 'product T-1: Product T-1 has no routing.']);
+    // an issue whose message already names its item is not prefixed twice
+    expect(items).toEqual([
+      'work center SAW: Work center SAW has no hours in week 2026-12-14.',
+      'product T-1: Product T-1 has no routing.',
+      'horizon: 52 weeks asked but demand is known only up to week 13',
+    ]);
     expect(api.sent('POST', '/api/plans')[0].body).toEqual({
       name: 'Spring peak',
       horizonWeeks: 12,
