@@ -44,7 +44,13 @@ export function validatePlanningData(data: PlanningData, horizonWeeks: number): 
     add('horizon_beyond_data', 'horizon', `horizon: ${horizonWeeks} weeks asked but the calendar has ${data.weeks.length}`);
   const lastDemandWeek = data.demand.reduce((m, d) => Math.max(m, d.week), 0);
   if (horizonWeeks > lastDemandWeek)
-    add('horizon_beyond_data', 'horizon', `horizon: ${horizonWeeks} weeks asked but demand is known only up to week ${lastDemandWeek}`);
+    add(
+      'horizon_beyond_data',
+      'horizon',
+      lastDemandWeek === 0
+        ? `horizon: no demand is known in these weeks; enter firm orders or forecast first`
+        : `horizon: ${horizonWeeks} weeks asked, but demand is known only up to week ${lastDemandWeek}; plan at most ${lastDemandWeek} weeks or enter firm orders or forecast for the later weeks`,
+    );
   data.weeks.forEach((w, i) => {
     if (w.index !== i + 1) add('invalid_value', `week ${w.index}`, `week ${w.index}: weeks must be numbered 1..T in order`);
     if (!/^\d{4}-\d{2}-\d{2}$/.test(w.startDate)) add('invalid_value', `week ${w.index}`, `week ${w.index}: start date "${w.startDate}" is not YYYY-MM-DD`);
