@@ -75,6 +75,7 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
   const best = allocateIterate(N, m);
   const aff = allocateIterate(N, m);
   const dir = allocateIterate(N, m);
+  const trial = allocateIterate(N, m);
   const rhat = new Float64Array(N);
   const rp = new Float64Array(m);
   const D = new Float64Array(N);
@@ -224,11 +225,26 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
       const tD = isQP ? enlarged : Math.min(1, 1.5 * aD + 0.1);
       if (!gondzioRhs(target, tP, tD)) break;
       timed('solve', () => computeDirection(aff));
+      // the corrected direction, or a blend dir + ω (corrected − dir) if that steps further
+      // (weighted correctors: Colombo & Gondzio, Comput. Optim. Appl. 41, 2008)
       let cP = maxPrimalStep(prob, kind, it, aff);
       let cD = maxDualStep(kind, it, aff);
       if (isQP) cP = cD = Math.min(cP, cD);
+      let weight = 1;
+      for (const w of [0.75, 0.5, Math.max(0.1, aP * aD)]) {
+        blend(dir, aff, w, trial);
+        let p = maxPrimalStep(prob, kind, it, trial);
+        let q = maxDualStep(kind, it, trial);
+        if (isQP) p = q = Math.min(p, q);
+        if (p + q > cP + cD) {
+          cP = p;
+          cD = q;
+          weight = w;
+        }
+      }
       if (cP + cD < 1.01 * (aP + aD)) break;
-      copyIterate(aff, dir);
+      if (weight === 1) copyIterate(aff, dir);
+      else blend(dir, aff, weight, dir);
       aP = cP;
       aD = cD;
     }
@@ -247,6 +263,16 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
     for (let i = 0; i < m; i++) it.y[i] += alphaD * dir.y[i];
     keepInterior();
     void rd;
+  }
+
+  /** out ← a + w (b − a); out may be a */
+  function blend(a: Iterate, b: Iterate, w: number, out: Iterate): void {
+    for (let j = 0; j < N; j++) {
+      out.v[j] = a.v[j] + w * (b.v[j] - a.v[j]);
+      out.zl[j] = a.zl[j] + w * (b.zl[j] - a.zl[j]);
+      out.zu[j] = a.zu[j] + w * (b.zu[j] - a.zu[j]);
+    }
+    for (let i = 0; i < m; i++) out.y[i] = a.y[i] + w * (b.y[i] - a.y[i]);
   }
 
   /** r̂ = −rd + r_l/x_l − r_u/x_u, solve, then recover dz_l, dz_u into d */
