@@ -46,6 +46,12 @@ export interface Clock {
 /** Iterations of tiny steps after which progress is declared stalled */
 const STALL_ITERATIONS = 5;
 const TINY_STEP = 1e-8;
+/**
+ * A Gondzio corrector aims at the point reached with steps min(1, CORRECTOR_REACH·α + 0.1).
+ * Measured (iterations, with weighted correctors; 1.5 → 2): the API bench's 200 × 26 model 25 → 24,
+ * bench M 17 → 17, L 24 → 23; Netlib afiro 7, brandy 11, e226 15 → 14, finnis 19 → 15.
+ */
+const CORRECTOR_REACH = 2;
 
 export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clock: Clock): IpmOutcome {
   const t0 = performance.now();
@@ -220,9 +226,9 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
 
     // Gondzio centrality correctors: push outlying products x z toward [β_min, β_max]·σμ
     for (let k = 0; k < settings.maxCorrectors; k++) {
-      const enlarged = Math.min(1, 1.5 * Math.min(aP, aD) + 0.1);
-      const tP = isQP ? enlarged : Math.min(1, 1.5 * aP + 0.1);
-      const tD = isQP ? enlarged : Math.min(1, 1.5 * aD + 0.1);
+      const enlarged = Math.min(1, CORRECTOR_REACH * Math.min(aP, aD) + 0.1);
+      const tP = isQP ? enlarged : Math.min(1, CORRECTOR_REACH * aP + 0.1);
+      const tD = isQP ? enlarged : Math.min(1, CORRECTOR_REACH * aD + 0.1);
       if (!gondzioRhs(target, tP, tD)) break;
       timed('solve', () => computeDirection(aff));
       // the corrected direction, or a blend dir + ω (corrected − dir) if that steps further
