@@ -23,7 +23,7 @@ import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
 import { NormalEquations } from './normal-equations';
 import { Residuals, type Measures } from './residuals';
 import { startingPoint } from './starting-point';
-import { maxDualStep, maxPrimalStep } from './step-length';
+import { blendedSteps, maxDualStep, maxPrimalStep } from './step-length';
 
 export interface IpmOutcome {
   status: SolveStatus;
@@ -81,7 +81,10 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
   const best = allocateIterate(N, m);
   const aff = allocateIterate(N, m);
   const dir = allocateIterate(N, m);
-  const trial = allocateIterate(N, m);
+  // weighted correctors: the full correction first, then blends (the last weight is α_p·α_d)
+  const weights = Float64Array.from([1, 0.75, 0.5, 0]);
+  const blendP = new Float64Array(weights.length);
+  const blendD = new Float64Array(weights.length);
   const rhat = new Float64Array(N);
   const rp = new Float64Array(m);
   const D = new Float64Array(N);
@@ -233,19 +236,19 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
       timed('solve', () => computeDirection(aff));
       // the corrected direction, or a blend dir + ω (corrected − dir) if that steps further
       // (weighted correctors: Colombo & Gondzio, Comput. Optim. Appl. 41, 2008)
-      let cP = maxPrimalStep(prob, kind, it, aff);
-      let cD = maxDualStep(kind, it, aff);
-      if (isQP) cP = cD = Math.min(cP, cD);
+      weights[3] = Math.max(0.1, aP * aD);
+      blendedSteps(prob, kind, it, dir, aff, weights, blendP, blendD);
+      let cP = -1;
+      let cD = -1;
       let weight = 1;
-      for (const w of [0.75, 0.5, Math.max(0.1, aP * aD)]) {
-        blend(dir, aff, w, trial);
-        let p = maxPrimalStep(prob, kind, it, trial);
-        let q = maxDualStep(kind, it, trial);
-        if (isQP) p = q = Math.min(p, q);
-        if (p + q > cP + cD) {
+      for (let q = 0; q < weights.length; q++) {
+        let p = blendP[q];
+        let d = blendD[q];
+        if (isQP) p = d = Math.min(p, d);
+        if (p + d > cP + cD) {
           cP = p;
-          cD = q;
-          weight = w;
+          cD = d;
+          weight = weights[q];
         }
       }
       if (cP + cD < 1.01 * (aP + aD)) break;
