@@ -42,8 +42,9 @@ export function maxDualStep(kind: Uint8Array, it: Iterate, d: Iterate): number {
 }
 
 /**
- * The longest primal and dual steps along each blend a + w_k (b − a) of two directions, for the
- * weights w (ratio tests as above, in one pass, without forming the blends): primal[k], dual[k].
+ * The longest primal and dual steps along each blend a + w_q (b − a) of two directions, for four
+ * weights w (ratio tests as above, in one pass, without forming the blends): primal[q], dual[q].
+ * The minima are kept in locals, not the output arrays, while the entries stream past.
  */
 export function blendedSteps(
   prob: IpmProblem,
@@ -55,50 +56,65 @@ export function blendedSteps(
   primal: Float64Array,
   dual: Float64Array,
 ): void {
+  if (w.length !== 4) throw new Error(`blendedSteps takes 4 weights, got ${w.length}`);
   const { lower, upper } = prob;
   const { v, zl, zu } = it;
-  const K = w.length;
-  primal.fill(1);
-  dual.fill(1);
+  const [w0, w1, w2, w3] = w;
+  let p0 = 1, p1 = 1, p2 = 1, p3 = 1; // prettier-ignore
+  let d0 = 1, d1 = 1, d2 = 1, d3 = 1; // prettier-ignore
   for (let j = 0; j < v.length; j++) {
     const k = kind[j];
     const lo = hasLower(k);
     const up = hasUpper(k);
     if (!lo && !up) continue;
+    // primal: the slack to the bound the blended step heads for, over that step (r < p written
+    // as a product, the direction's sign taken into account)
     const av = a.v[j];
     const bv = b.v[j] - av;
-    const azl = a.zl[j];
-    const bzl = b.zl[j] - azl;
-    const azu = a.zu[j];
-    const bzu = b.zu[j] - azu;
-    for (let q = 0; q < K; q++) {
-      const wq = w[q];
-      const dj = av + wq * bv;
-      if (dj < 0 && lo) {
-        const r = (lower[j] - v[j]) / dj;
-        if (r < primal[q]) primal[q] = r;
-      } else if (dj > 0 && up) {
-        const r = (upper[j] - v[j]) / dj;
-        if (r < primal[q]) primal[q] = r;
-      }
-      if (lo) {
-        const dz = azl + wq * bzl;
-        if (dz < 0) {
-          const r = -zl[j] / dz;
-          if (r < dual[q]) dual[q] = r;
-        }
-      }
-      if (up) {
-        const dz = azu + wq * bzu;
-        if (dz < 0) {
-          const r = -zu[j] / dz;
-          if (r < dual[q]) dual[q] = r;
-        }
-      }
+    const gl = lo ? lower[j] - v[j] : 0;
+    const gu = up ? upper[j] - v[j] : 0;
+    let s = av + w0 * bv;
+    if (s < 0 ? lo && gl > p0 * s : up && s > 0 && gu < p0 * s) p0 = (s < 0 ? gl : gu) / s;
+    s = av + w1 * bv;
+    if (s < 0 ? lo && gl > p1 * s : up && s > 0 && gu < p1 * s) p1 = (s < 0 ? gl : gu) / s;
+    s = av + w2 * bv;
+    if (s < 0 ? lo && gl > p2 * s : up && s > 0 && gu < p2 * s) p2 = (s < 0 ? gl : gu) / s;
+    s = av + w3 * bv;
+    if (s < 0 ? lo && gl > p3 * s : up && s > 0 && gu < p3 * s) p3 = (s < 0 ? gl : gu) / s;
+    // dual: z + α dz ≥ 0 for each bound the entry has
+    if (lo) {
+      const az = a.zl[j];
+      const bz = b.zl[j] - az;
+      const z = zl[j];
+      s = az + w0 * bz;
+      if (s < 0 && -z > d0 * s) d0 = -z / s;
+      s = az + w1 * bz;
+      if (s < 0 && -z > d1 * s) d1 = -z / s;
+      s = az + w2 * bz;
+      if (s < 0 && -z > d2 * s) d2 = -z / s;
+      s = az + w3 * bz;
+      if (s < 0 && -z > d3 * s) d3 = -z / s;
+    }
+    if (up) {
+      const az = a.zu[j];
+      const bz = b.zu[j] - az;
+      const z = zu[j];
+      s = az + w0 * bz;
+      if (s < 0 && -z > d0 * s) d0 = -z / s;
+      s = az + w1 * bz;
+      if (s < 0 && -z > d1 * s) d1 = -z / s;
+      s = az + w2 * bz;
+      if (s < 0 && -z > d2 * s) d2 = -z / s;
+      s = az + w3 * bz;
+      if (s < 0 && -z > d3 * s) d3 = -z / s;
     }
   }
-  for (let q = 0; q < K; q++) {
-    primal[q] = Math.max(primal[q], 0);
-    dual[q] = Math.max(dual[q], 0);
-  }
+  primal[0] = Math.max(p0, 0);
+  primal[1] = Math.max(p1, 0);
+  primal[2] = Math.max(p2, 0);
+  primal[3] = Math.max(p3, 0);
+  dual[0] = Math.max(d0, 0);
+  dual[1] = Math.max(d1, 0);
+  dual[2] = Math.max(d2, 0);
+  dual[3] = Math.max(d3, 0);
 }
