@@ -81,24 +81,12 @@ export function blendedSteps(
     if (s < 0 ? lo && gl > p2 * s : up && s > 0 && gu < p2 * s) p2 = (s < 0 ? gl : gu) / s;
     s = av + w3 * bv;
     if (s < 0 ? lo && gl > p3 * s : up && s > 0 && gu < p3 * s) p3 = (s < 0 ? gl : gu) / s;
-    // dual: z + α dz ≥ 0 for each bound the entry has
-    if (lo) {
-      const az = a.zl[j];
-      const bz = b.zl[j] - az;
-      const z = zl[j];
-      s = az + w0 * bz;
-      if (s < 0 && -z > d0 * s) d0 = -z / s;
-      s = az + w1 * bz;
-      if (s < 0 && -z > d1 * s) d1 = -z / s;
-      s = az + w2 * bz;
-      if (s < 0 && -z > d2 * s) d2 = -z / s;
-      s = az + w3 * bz;
-      if (s < 0 && -z > d3 * s) d3 = -z / s;
-    }
-    if (up) {
-      const az = a.zu[j];
-      const bz = b.zu[j] - az;
-      const z = zu[j];
+    // dual: z + α dz ≥ 0 for each bound the entry has (side 0 the lower, side 1 the upper)
+    for (let side = 0; side < 2; side++) {
+      if (side === 0 ? !lo : !up) continue;
+      const az = side === 0 ? a.zl[j] : a.zu[j];
+      const bz = (side === 0 ? b.zl[j] : b.zu[j]) - az;
+      const z = side === 0 ? zl[j] : zu[j];
       s = az + w0 * bz;
       if (s < 0 && -z > d0 * s) d0 = -z / s;
       s = az + w1 * bz;
