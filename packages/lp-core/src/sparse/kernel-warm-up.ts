@@ -1,18 +1,25 @@
 /**
- * Runs every kind of call of the supernodal kernel once on a tiny arrowhead matrix (32 leaves
- * and a dense 8 × 8 root block), before the first two-thread factorisation of this thread.
+ * Runs every kind of call of the supernodal kernel on a small block arrowhead matrix (leaf
+ * supernodes of widths 1 to 7, each coupled to a dense 41 × 41 root block), before this thread's
+ * first factorisation.
  *
  * Why: V8 optimises factorSupernodes from the calls it has seen. If a thread has only made
  * one-thread calls, the first two-thread call reaches statements that never ran (the deferred
  * lists, the hand-over, updates only), the optimised code is thrown away in the middle of a long
- * call and the rest runs unoptimised: measured ~0.4–0.9 s lost once per thread. After this
- * warm-up every statement has run, so the optimised code covers all kinds of calls.
+ * call and the rest runs unoptimised: measured ~0.4–0.9 s lost once per thread. The same happens
+ * on the first model with wide supernodes after small ones (a descendant wider than two columns,
+ * a block of more than one panel): the bench's M model, solved after a size-S warm-up, took
+ * 1.0–1.4 s against 0.7–0.8 s for the same solve repeated. After this warm-up every statement
+ * of the kernel has run, so the optimised code covers all of them.
  */
 import { supernodalSymbolic } from './supernodal-symbolic';
 import { factorSupernodes, type KernelCall, type KernelOptions, type KernelShared, type KernelWork } from './supernodal-kernel';
 
-const LEAVES = 32;
-const ROOT = 8;
+/** widths of the leaf supernodes: narrow (1, 2) and wide descendants, odd and even */
+const LEAF_WIDTHS = [1, 1, 2, 2, 3, 5, 4, 6, 1, 2, 3, 7, 1, 2, 5, 4];
+const LEAVES = LEAF_WIDTHS.reduce((a, b) => a + b, 0);
+/** more than one 32-column panel, odd, so paired loops also meet their remainders */
+const ROOT = 41;
 const ROUNDS = 3;
 
 let warmed = false;
@@ -69,9 +76,18 @@ export function warmUpKernel(): void {
 /** Builds the tiny case (fresh arrays each time). */
 export function warmUpCase(): WarmUpCase {
   const n = LEAVES + ROOT;
-  // upper triangle (rows ≤ column) for the symbolic phase, lower triangle (rows ≥ column) for the values
-  const up: number[][] = Array.from({ length: n }, (_, j) => (j < LEAVES ? [j] : [...Array(LEAVES).keys(), ...Array.from({ length: j - LEAVES + 1 }, (_, k) => LEAVES + k)]));
-  const low: number[][] = Array.from({ length: n }, (_, j) => (j < LEAVES ? [j, ...Array.from({ length: ROOT }, (_, k) => LEAVES + k)] : Array.from({ length: n - j }, (_, k) => j + k)));
+  // leaf columns come in dense groups (one supernode each), every leaf column coupled to every root
+  // column; upper triangle (rows ≤ column) for the symbolic phase, lower (rows ≥ column) for values
+  const groupStart = new Int32Array(LEAVES);
+  for (let g = 0, j = 0; g < LEAF_WIDTHS.length; j += LEAF_WIDTHS[g++]) groupStart.fill(j, j, j + LEAF_WIDTHS[g]);
+  const range = (a: number, b: number) => Array.from({ length: b - a }, (_, k) => a + k);
+  const groupEnd = (j: number) => {
+    let e = j;
+    while (e < LEAVES && groupStart[e] === groupStart[j]) e++;
+    return e;
+  };
+  const up: number[][] = Array.from({ length: n }, (_, j) => (j < LEAVES ? range(groupStart[j], j + 1) : range(0, j + 1)));
+  const low: number[][] = Array.from({ length: n }, (_, j) => (j < LEAVES ? [...range(j, groupEnd(j)), ...range(LEAVES, n)] : range(j, n)));
   const csc = (cols: number[][]) => {
     const p = new Int32Array(n + 1);
     cols.forEach((c, j) => (p[j + 1] = p[j] + c.length));
@@ -89,7 +105,7 @@ export function warmUpCase(): WarmUpCase {
   };
   const sharedF = (len: number) => new Float64Array(new SharedArrayBuffer(8 * Math.max(1, len)), 0, len);
   const Ax = sharedF(L.i.length);
-  for (let j = 0; j < n; j++) for (let q = L.p[j]; q < L.p[j + 1]; q++) Ax[q] = L.i[q] === j ? 16 : 0.5;
+  for (let j = 0; j < n; j++) for (let q = L.p[j]; q < L.p[j + 1]; q++) Ax[q] = L.i[q] === j ? 2 * n : 0.5;
   const S: KernelShared = {
     sup: sharedI(sym.super),
     snode: sharedI(sym.snode),

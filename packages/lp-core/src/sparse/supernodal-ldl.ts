@@ -123,7 +123,7 @@ export class SupernodalLdl {
     this.tmp = this.W.tmp;
     const onLx = { target: this.Lx, targetPtr: this.S.blockPtr };
     this.whole = { ranges: Int32Array.from([0, count]), top: null, deferred: sharedInt32(1), head: this.head, link: null, linkCount: 0, assemble: true, factor: true, ...onLx };
-    if (split) warmUpKernel();
+    warmUpKernel();
     this.parallel = split ? this.parallelCalls(split, n, maxRows, onLx) : null;
     if (!this.parallel && parallel && sym.flops >= PARALLEL_MIN_FLOPS && Ax.buffer instanceof SharedArrayBuffer) {
       this.rootOnly = this.rootOnlyCalls(n, maxRows, onLx);
