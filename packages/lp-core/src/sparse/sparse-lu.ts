@@ -1,0 +1,242 @@
+/**
+ * Sparse LU factorisation of a square matrix built one column at a time: left-looking, with
+ * partial pivoting (J. R. Gilbert & T. Peierls, "Sparse partial pivoting in time proportional to
+ * arithmetic operations", SIAM J. Sci. Stat. Comput. 9, 1988), laid out as CSparse's cs_lu
+ * (T. A. Davis, Direct Methods for Sparse Linear Systems, SIAM 2006, ch. 6).
+ *
+ * Column k is offered as a sparse vector b; x = L⁻¹b is computed by a sparse triangular solve that
+ * visits only the rows reachable from b's pattern (a depth-first search in L's graph); the largest
+ * entry of x in a row not yet pivoted becomes the pivot. A column whose candidates are all below
+ * `dependenceTolerance` · ‖b‖∞ lies (numerically) in the span of the columns already taken and is
+ * refused, which leaves the factorisation as it was: offering columns in order of preference
+ * therefore picks the preferred basis greedily.
+ *
+ * With the accepted columns as B (column k = the k-th accepted one) and P the row permutation,
+ * P B = L U. L is unit lower triangular, stored by column with original row numbers (its first
+ * entry the pivot row); U is upper triangular, stored by column with step numbers (the diagonal
+ * last).
+ */
+export class SparseLu {
+  readonly m: number;
+  /** number of accepted columns (the rank so far) */
+  rank = 0;
+  /** step of each row, −1 while not pivoted; pivotRow[k] is the row pivoted at step k */
+  readonly pinv: Int32Array;
+  readonly pivotRow: Int32Array;
+  Lp: Int32Array;
+  Li: Int32Array;
+  Lx: Float64Array;
+  Up: Int32Array;
+  Ui: Int32Array;
+  Ux: Float64Array;
+  private readonly x: Float64Array;
+  private readonly stack: Int32Array;
+  private readonly pstack: Int32Array;
+  private readonly reach: Int32Array;
+  private readonly mark: Int32Array;
+  private stamp = 0;
+
+  constructor(m: number, expectedNonzeros = 4 * m) {
+    this.m = m;
+    this.pinv = new Int32Array(m).fill(-1);
+    this.pivotRow = new Int32Array(m).fill(-1);
+    this.Lp = new Int32Array(m + 1);
+    this.Up = new Int32Array(m + 1);
+    const cap = Math.max(16, expectedNonzeros);
+    this.Li = new Int32Array(cap);
+    this.Lx = new Float64Array(cap);
+    this.Ui = new Int32Array(cap);
+    this.Ux = new Float64Array(cap);
+    this.x = new Float64Array(m);
+    this.stack = new Int32Array(m);
+    this.pstack = new Int32Array(m);
+    this.reach = new Int32Array(m);
+    this.mark = new Int32Array(m);
+  }
+
+  /** nonzeros stored in L and U */
+  get nonzeros(): number {
+    return this.Lp[this.rank] + this.Up[this.rank];
+  }
+
+  /**
+   * Offers column b (rows bi[start..end), values bx[start..end)): true when accepted as the next
+   * column. Refused columns leave the factorisation unchanged.
+   */
+  offer(bi: Int32Array | number[], bx: Float64Array | number[], start: number, end: number, dependenceTolerance: number): boolean {
+    const { x, pinv, reach } = this;
+    const k = this.rank;
+    if (k >= this.m) return false;
+    const top = this.reachOf(bi, start, end);
+    let bmax = 0;
+    for (let p = start; p < end; p++) {
+      x[bi[p]] = bx[p];
+      const a = Math.abs(bx[p]);
+      if (a > bmax) bmax = a;
+    }
+    // x = L⁻¹ b over the reach, in topological order
+    const { Lp, Li, Lx } = this;
+    for (let q = top; q < this.m; q++) {
+      const j = reach[q];
+      const s = pinv[j];
+      if (s < 0) continue;
+      const xj = x[j];
+      if (xj === 0) continue;
+      for (let p = Lp[s] + 1; p < Lp[s + 1]; p++) x[Li[p]] -= Lx[p] * xj;
+    }
+    let ipiv = -1;
+    let amax = 0;
+    let uCount = 0;
+    let lCount = 0;
+    for (let q = top; q < this.m; q++) {
+      const i = reach[q];
+      if (pinv[i] >= 0) {
+        if (x[i] !== 0) uCount++;
+      } else {
+        lCount++;
+        const a = Math.abs(x[i]);
+        if (a > amax) {
+          amax = a;
+          ipiv = i;
+        }
+      }
+    }
+    if (ipiv < 0 || !(amax > dependenceTolerance * bmax)) {
+      for (let q = top; q < this.m; q++) x[reach[q]] = 0;
+      return false;
+    }
+    this.reserve(this.Lp[k] + lCount, this.Up[k] + uCount + 1);
+    const { Ui, Ux } = this;
+    const L = { i: this.Li, x: this.Lx };
+    let unz = this.Up[k];
+    let lnz = this.Lp[k];
+    const pivot = x[ipiv];
+    L.i[lnz] = ipiv;
+    L.x[lnz++] = 1;
+    for (let q = top; q < this.m; q++) {
+      const i = reach[q];
+      const v = x[i];
+      x[i] = 0;
+      if (i === ipiv) continue;
+      const s = pinv[i];
+      if (s >= 0) {
+        if (v !== 0) {
+          Ui[unz] = s;
+          Ux[unz++] = v;
+        }
+      } else if (v !== 0) {
+        L.i[lnz] = i;
+        L.x[lnz++] = v / pivot;
+      }
+    }
+    Ui[unz] = k;
+    Ux[unz++] = pivot;
+    pinv[ipiv] = k;
+    this.pivotRow[k] = ipiv;
+    this.rank = k + 1;
+    this.Lp[k + 1] = lnz;
+    this.Up[k + 1] = unz;
+    return true;
+  }
+
+  /** x ← B⁻¹x: x comes in by row, leaves by column position (requires rank = m) */
+  solve(x: Float64Array, work: Float64Array): void {
+    const { m, Lp, Li, Lx, Up, Ui, Ux, pivotRow } = this;
+    // L y = P x, y by step (in work)
+    for (let s = 0; s < m; s++) {
+      const ys = x[pivotRow[s]];
+      work[s] = ys;
+      if (ys === 0) continue;
+      for (let p = Lp[s] + 1; p < Lp[s + 1]; p++) x[Li[p]] -= Lx[p] * ys;
+    }
+    // U z = y
+    for (let k = m - 1; k >= 0; k--) {
+      const last = Up[k + 1] - 1;
+      const zk = work[k] / Ux[last];
+      x[k] = zk;
+      if (zk === 0) continue;
+      for (let p = Up[k]; p < last; p++) work[Ui[p]] -= Ux[p] * zk;
+    }
+  }
+
+  /** x ← B⁻ᵀx: x comes in by column position, leaves by row (requires rank = m) */
+  solveTransposed(x: Float64Array, work: Float64Array): void {
+    const { m, Lp, Li, Lx, Up, Ui, Ux, pivotRow } = this;
+    // Uᵀ w = x, w by step
+    for (let k = 0; k < m; k++) {
+      const last = Up[k + 1] - 1;
+      let s = x[k];
+      for (let p = Up[k]; p < last; p++) s -= Ux[p] * work[Ui[p]];
+      work[k] = s / Ux[last];
+    }
+    // Lᵀ P y = w, y by row
+    for (let s = m - 1; s >= 0; s--) {
+      let v = work[s];
+      for (let p = Lp[s] + 1; p < Lp[s + 1]; p++) v -= Lx[p] * x[Li[p]];
+      x[pivotRow[s]] = v;
+    }
+  }
+
+  /** rows reachable from b's pattern in L's graph, in topological order: reach[top..m) */
+  private reachOf(bi: Int32Array | number[], start: number, end: number): number {
+    const { pinv, stack, pstack, reach, mark, Lp, Li } = this;
+    const stamp = ++this.stamp;
+    let top = this.m;
+    for (let q = start; q < end; q++) {
+      const root = bi[q];
+      if (mark[root] === stamp) continue;
+      let head = 0;
+      stack[0] = root;
+      while (head >= 0) {
+        const j = stack[head];
+        const s = pinv[j];
+        if (mark[j] !== stamp) {
+          mark[j] = stamp;
+          pstack[head] = s < 0 ? 0 : Lp[s] + 1;
+        }
+        let done = true;
+        if (s >= 0) {
+          const end = Lp[s + 1];
+          for (let p = pstack[head]; p < end; p++) {
+            const i = Li[p];
+            if (mark[i] === stamp) continue;
+            pstack[head] = p + 1;
+            stack[++head] = i;
+            done = false;
+            break;
+          }
+        }
+        if (done) {
+          head--;
+          reach[--top] = j;
+        }
+      }
+    }
+    return top;
+  }
+
+  private reserve(lNeed: number, uNeed: number): void {
+    if (lNeed > this.Li.length) {
+      const cap = Math.max(lNeed, 2 * this.Li.length);
+      this.Li = grow(this.Li, cap);
+      this.Lx = growF(this.Lx, cap);
+    }
+    if (uNeed > this.Ui.length) {
+      const cap = Math.max(uNeed, 2 * this.Ui.length);
+      this.Ui = grow(this.Ui, cap);
+      this.Ux = growF(this.Ux, cap);
+    }
+  }
+}
+
+function grow(a: Int32Array, cap: number): Int32Array {
+  const b = new Int32Array(cap);
+  b.set(a);
+  return b;
+}
+
+function growF(a: Float64Array, cap: number): Float64Array {
+  const b = new Float64Array(cap);
+  b.set(a);
+  return b;
+}

@@ -1,0 +1,117 @@
+/**
+ * Sparse LU (sparse-lu.ts): solves with B and Bᵀ checked against ml-matrix's dense LU solve (a
+ * reference library) on seeded sparse matrices; dependent columns refused, as the rank of the
+ * dense matrix (ml-matrix's SVD) says they must be.
+ */
+import { describe, expect, it } from 'vitest';
+import { Matrix, SingularValueDecomposition, solve as denseSolve } from 'ml-matrix';
+import { SparseLu } from '../src/sparse/sparse-lu';
+import { SeededRandom } from './support/seeded-random';
+
+interface SparseColumn {
+  rows: number[];
+  vals: number[];
+}
+
+function randomColumn(rng: SeededRandom, m: number, count: number): SparseColumn {
+  const rows = new Set<number>();
+  while (rows.size < count) rows.add(rng.integer(0, m - 1));
+  const r = [...rows];
+  return { rows: r, vals: r.map(() => (rng.chance(0.5) ? -1 : 1) * rng.uniform(0.1, 3)) };
+}
+
+function dense(m: number, cols: SparseColumn[]): Matrix {
+  const B = Matrix.zeros(m, cols.length);
+  cols.forEach((c, k) => c.rows.forEach((i, p) => B.set(i, k, c.vals[p])));
+  return B;
+}
+
+function offerAll(lu: SparseLu, cols: SparseColumn[]): SparseColumn[] {
+  const taken: SparseColumn[] = [];
+  for (const c of cols) if (lu.offer(c.rows, c.vals, 0, c.rows.length, 1e-9)) taken.push(c);
+  return taken;
+}
+
+describe('sparse LU', () => {
+  it('1 × 1 and a permutation: pivots where the entries are', () => {
+    const lu = new SparseLu(1);
+    expect(lu.offer([0], [4], 0, 1, 1e-9)).toBe(true);
+    const x = Float64Array.from([2]);
+    lu.solve(x, new Float64Array(1));
+    expect(x[0]).toBeCloseTo(0.5, 15);
+    const p = new SparseLu(3);
+    offerAll(p, [
+      { rows: [2], vals: [2] },
+      { rows: [0], vals: [-1] },
+      { rows: [1], vals: [5] },
+    ]);
+    const y = Float64Array.from([1, 1, 1]);
+    p.solve(y, new Float64Array(3));
+    expect([...y]).toEqual([0.5, -1, 0.2]);
+  });
+
+  it.each([
+    [1, 30, 3],
+    [2, 120, 4],
+    [3, 400, 3],
+  ])('seed %i, %i × %i-per-column random matrix plus unit columns: B x = b and Bᵀ y = c match the dense solve', (seed, m, perColumn) => {
+    const rng = new SeededRandom(seed);
+    const cols: SparseColumn[] = [];
+    for (let k = 0; k < 2 * m; k++) cols.push(randomColumn(rng, m, rng.integer(1, perColumn)));
+    for (let i = 0; i < m; i++) cols.push({ rows: [i], vals: [1] });
+    const lu = new SparseLu(m);
+    const taken = offerAll(lu, cols);
+    expect(lu.rank).toBe(m);
+    const B = dense(m, taken);
+    const b = Array.from({ length: m }, () => rng.uniform(-1, 1));
+    const x = Float64Array.from(b);
+    const work = new Float64Array(m);
+    lu.solve(x, work);
+    const ref = denseSolve(B, Matrix.columnVector(b)).to1DArray();
+    for (let i = 0; i < m; i++) expect(x[i]).toBeCloseTo(ref[i], 8);
+    const y = Float64Array.from(b);
+    lu.solveTransposed(y, work);
+    const refT = denseSolve(B.transpose(), Matrix.columnVector(b)).to1DArray();
+    for (let i = 0; i < m; i++) expect(y[i]).toBeCloseTo(refT[i], 8);
+  });
+
+  it('refuses columns in the span of those taken, and the rank it reaches is the matrix rank', () => {
+    const rng = new SeededRandom(11);
+    const m = 40;
+    const base: SparseColumn[] = Array.from({ length: 25 }, () => randomColumn(rng, m, 3));
+    // sums of two earlier columns are dependent
+    const sums: SparseColumn[] = Array.from({ length: 20 }, () => {
+      const a = base[rng.integer(0, 24)];
+      const b = base[rng.integer(0, 24)];
+      const acc = new Map<number, number>();
+      a.rows.forEach((i, p) => acc.set(i, (acc.get(i) ?? 0) + a.vals[p]));
+      b.rows.forEach((i, p) => acc.set(i, (acc.get(i) ?? 0) + 2 * b.vals[p]));
+      return { rows: [...acc.keys()], vals: [...acc.values()] };
+    });
+    const all = [...base, ...sums];
+    const lu = new SparseLu(m);
+    const taken = offerAll(lu, all);
+    const rank = new SingularValueDecomposition(dense(m, all), { autoTranspose: true }).rank;
+    expect(lu.rank).toBe(rank);
+    // what was taken is independent
+    expect(new SingularValueDecomposition(dense(m, taken)).rank).toBe(taken.length);
+  });
+
+  it('a refused column leaves the factorisation exactly as it was', () => {
+    const m = 3;
+    const lu = new SparseLu(m);
+    lu.offer([0, 1], [1, 2], 0, 2, 1e-9);
+    expect(lu.offer([0, 1], [2, 4], 0, 2, 1e-9)).toBe(false);
+    lu.offer([1, 2], [1, 1], 0, 2, 1e-9);
+    lu.offer([2], [3], 0, 1, 1e-9);
+    const B = dense(m, [
+      { rows: [0, 1], vals: [1, 2] },
+      { rows: [1, 2], vals: [1, 1] },
+      { rows: [2], vals: [3] },
+    ]);
+    const x = Float64Array.from([1, 2, 3]);
+    lu.solve(x, new Float64Array(m));
+    const ref = denseSolve(B, Matrix.columnVector([1, 2, 3])).to1DArray();
+    for (let i = 0; i < m; i++) expect(x[i]).toBeCloseTo(ref[i], 12);
+  });
+});
