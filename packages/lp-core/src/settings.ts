@@ -47,6 +47,15 @@ export interface IpmSettings {
   /** fill-reducing ordering: 'auto' tries AMD and nested dissection and keeps the cheaper factorisation */
   ordering: 'auto' | 'amd' | 'nd' | 'natural';
   /**
+   * how the Newton systems of an LP are solved (ipm/choose-kkt-solver.ts): 'cholesky' (sparse
+   * Cholesky of the normal equations), 'basis-cg' (conjugate gradients with a diagonal, then a
+   * basis preconditioner; no factorisation), 'cholesky-then-basis-cg' (Cholesky for the first six
+   * iterations, then basis-preconditioned CG), or 'auto': Cholesky unless one factorisation takes
+   * at least 2e9 multiply–adds (then 'cholesky-then-basis-cg') or the factor does not fit in
+   * maxFactorMegabytes (then 'basis-cg'). QPs always use a factorisation.
+   */
+  linearSolver: 'auto' | 'cholesky' | 'basis-cg' | 'cholesky-then-basis-cg';
+  /**
    * factorise (and solve with) big normal-equations matrices on two threads, a helper worker
    * thread sharing the work, when the machine has two cores: true, false, or 'auto' (the
    * default: only when one factorisation takes at least 1e9 multiply–adds, so the helper's
@@ -82,6 +91,7 @@ export const defaultIpmSettings: Readonly<IpmSettings> = Object.freeze({
   refinementSteps: 3,
   maxFactorMegabytes: 1536,
   ordering: 'auto',
+  linearSolver: 'auto',
   parallelFactorisation: 'auto',
 });
 
@@ -117,6 +127,9 @@ export function resolveSettings(partial: Partial<IpmSettings> = {}): IpmSettings
   }
   for (const k of ['presolve', 'scaling'] as const) {
     if (typeof s[k] !== 'boolean') problems.push(`${k} must be true or false, got ${String(s[k])}`);
+  }
+  if (!['auto', 'cholesky', 'basis-cg', 'cholesky-then-basis-cg'].includes(s.linearSolver)) {
+    problems.push(`linearSolver must be "auto", "cholesky", "basis-cg" or "cholesky-then-basis-cg", got ${String(s.linearSolver)}`);
   }
   if (!['auto', 'amd', 'nd', 'natural'].includes(s.ordering)) problems.push(`ordering must be "auto", "amd", "nd" or "natural", got ${String(s.ordering)}`);
   for (const k of ['onIteration', 'shouldStop'] as const) {

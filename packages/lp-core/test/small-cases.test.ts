@@ -177,11 +177,15 @@ describe('limits and hooks', () => {
     expect(r.iterations).toBe(2);
     expect(Array.from(r.x).every(Number.isFinite)).toBe(true);
   });
-  it('a factor above maxFactorMegabytes ends at once with numerical_trouble and says why', () => {
-    const r = solve(p, { presolve: false, maxFactorMegabytes: 1e-6 });
+  it('with Cholesky asked for, a factor above maxFactorMegabytes ends at once with numerical_trouble and says why', () => {
+    const r = solve(p, { presolve: false, maxFactorMegabytes: 1e-6, linearSolver: 'cholesky' });
     expect(r.status).toBe('numerical_trouble');
     expect(r.iterations).toBe(0);
     expect(r.message).toMatch(/the Cholesky factor would hold \d+ entries .* \(maxFactorMegabytes = 0.000001\)/);
+  });
+  it("by default ('auto') a factor above maxFactorMegabytes gives way to conjugate gradients; HiGHS agrees", async () => {
+    const r = solve(p, { presolve: false, maxFactorMegabytes: 1e-6 });
+    await expectAgreesWithHighs(p, r);
   });
   it('a time limit is honoured', () => {
     const r = solve(p, { presolve: false, timeLimitSeconds: 1e-9 });

@@ -14,13 +14,12 @@
  */
 import type { IpmSettings } from '../settings';
 import type { IterationInfo, SolveStatus } from '../solution/result';
-import { AugmentedSystem } from './augmented-system';
+import { chooseKktSolver } from './choose-kkt-solver';
 import { InfeasibilityTest } from './infeasibility';
-import { FIXED, FREE, boundKinds, hasLower, hasOffDiagonalQ, hasUpper, type IpmProblem } from './ipm-problem';
+import { FIXED, FREE, boundKinds, hasLower, hasUpper, type IpmProblem } from './ipm-problem';
 import { allocateIterate, copyIterate, type Iterate } from './iterate';
 import type { KktSolver } from './kkt-solver';
 import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
-import { NormalEquations } from './normal-equations';
 import { Residuals, type Measures } from './residuals';
 import { startingPoint } from './starting-point';
 import { blendedSteps, maxDualStep, maxPrimalStep } from './step-length';
@@ -61,7 +60,7 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
   const kind = boundKinds(lower, upper);
   let kkt: KktSolver;
   try {
-    kkt = hasOffDiagonalQ(prob.Q) ? new AugmentedSystem(prob, settings) : new NormalEquations(prob, settings);
+    kkt = chooseKktSolver(prob, settings);
   } catch (err) {
     if (!(err instanceof FactorTooLargeError)) throw err;
     const it0 = allocateIterate(N, m);
@@ -228,7 +227,8 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
     if (isQP) aP = aD = Math.min(aP, aD);
 
     // Gondzio centrality correctors: push outlying products x z toward [β_min, β_max]·σμ
-    for (let k = 0; k < settings.maxCorrectors; k++) {
+    const correctors = Math.min(settings.maxCorrectors, kkt.correctorLimit ?? Infinity);
+    for (let k = 0; k < correctors; k++) {
       const enlarged = Math.min(1, CORRECTOR_REACH * Math.min(aP, aD) + 0.1);
       const tP = isQP ? enlarged : Math.min(1, CORRECTOR_REACH * aP + 0.1);
       const tD = isQP ? enlarged : Math.min(1, CORRECTOR_REACH * aD + 0.1);

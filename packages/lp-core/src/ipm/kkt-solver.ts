@@ -15,6 +15,8 @@ export interface KktSolver {
   readonly nnzL: number;
   /** pivots replaced by dynamic regularisation in the last factorisation */
   readonly replacedPivots: number;
+  /** Gondzio correctors worth their cost with this solver (undefined: as many as the settings allow) */
+  readonly correctorLimit?: number;
   /** deadline: performance.now() value after which the factorisation gives up ('interrupted') */
   factorise(D: Float64Array, deadline?: number): KktStatus;
   solve(rhat: Float64Array, rp: Float64Array, dv: Float64Array, dy: Float64Array): void;

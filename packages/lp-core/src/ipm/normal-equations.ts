@@ -92,6 +92,11 @@ export class NormalEquations implements KktSolver {
     return this.F.nnzL;
   }
 
+  /** multiply–adds of one factorisation */
+  get flops(): number {
+    return this.F.flops;
+  }
+
   factorise(D: Float64Array, deadline = Infinity): KktStatus {
     const { n, m, A } = this.prob;
     const { colPtr: Ap, values: Ax } = A;

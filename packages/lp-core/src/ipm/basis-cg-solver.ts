@@ -1,0 +1,273 @@
+/**
+ * The normal equations of normal-equations.ts, (A Θ_x Aᵀ + Θ_w + δI) dy = rhs, solved by
+ * preconditioned conjugate gradients instead of a Cholesky factor: for models whose factor is
+ * dense (multi-period planning models couple every capacity and material row of a period, and
+ * the periods to each other) the factor costs far more than a few hundred products with A.
+ *
+ * Preconditioners, in turn:
+ *  - optionally a Cholesky factorisation for the first `directIterations` iterations (the
+ *    solver is then a NormalEquations), while the weights θ are still alike and no basis stands
+ *    out;
+ *  - else the diagonal of the matrix, until a solve needs more than DIAGONAL_STEPS steps;
+ *  - then P = B Θ_B Bᵀ for a basis B of [A I] picked and improved by the weights
+ *    (basis-preconditioner.ts), applied as P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r.
+ * A step costs one product with A, one with Aᵀ and the preconditioner. CG stops when
+ * ‖r‖∞ ≤ max(CG_TOLERANCE · (1 + ‖rhs‖∞), INEXACT · ‖rp‖∞), keeping the iterate with the smallest
+ * residual: the residual left is the direction's error in Â dv = rp, which need only be small
+ * against rp while the iterate is far from feasible (an inexact Newton step).
+ */
+import type { IpmSettings } from '../settings';
+import { BasisPreconditioner } from './basis-preconditioner';
+import type { KktSolver, KktStatus } from './kkt-solver';
+import type { IpmProblem } from './ipm-problem';
+import type { NormalEquations } from './normal-equations';
+
+/**
+ * CG's relative residual target, and the fraction of the primal residual it may stop at.
+ * Measured on the bench's L model (Cholesky for six iterations, then CG): 1e-9 and 0.1 took
+ * 22 iterations and 8096 CG steps, 1e-8 22 and 7522, INEXACT 0.01 24 and 8954; objectives within
+ * 1e-9 of HiGHS. The stricter target is kept: it costs 7 % more steps.
+ */
+const CG_TOLERANCE = 1e-9;
+const INEXACT = 0.1;
+/** a diagonally preconditioned solve that needs more steps than this switches to the basis */
+const DIAGONAL_STEPS = 300;
+/** exchanges per iteration, and the scaled entry size they push under (Schork & Gondzio use 2) */
+const MAX_EXCHANGES = 400;
+const VOLUME_TOLERANCE = 2;
+/**
+ * Gondzio correctors per iteration while CG solves: each costs a whole CG solve (with a Cholesky
+ * factor, two triangular solves). Measured on L (six Cholesky iterations first): 4 correctors
+ * 22 iterations and 8096 CG steps, 2: 25 and 6412, 1: 27 and 5452, 0: 37 and 5271.
+ */
+export const CG_CORRECTORS = 1;
+
+export interface CgStatistics {
+  /** CG steps of every solve */
+  steps: number[];
+  /** basis exchanges of every iteration with the basis preconditioner */
+  exchanges: number[];
+}
+
+export class BasisCgSolver implements KktSolver {
+  readonly stats: CgStatistics = { steps: [], exchanges: [] };
+  private readonly basis: BasisPreconditioner;
+  private readonly weight: Float64Array;
+  private readonly thetaX: Float64Array;
+  private readonly thetaW: Float64Array;
+  private readonly diagonal: Float64Array;
+  private readonly rhs: Float64Array;
+  private readonly r: Float64Array;
+  private readonly z: Float64Array;
+  private readonly p: Float64Array;
+  private readonly q: Float64Array;
+  private readonly best: Float64Array;
+  private readonly maxSteps: number;
+  private mode: 'direct' | 'diagonal' | 'basis';
+  private iterations = 0;
+  private deadline = Infinity;
+
+  constructor(
+    private readonly prob: IpmProblem,
+    private readonly settings: IpmSettings,
+    /** the Cholesky solver for the first `directIterations` iterations, or null */
+    private direct: NormalEquations | null = null,
+    private readonly directIterations = 0,
+  ) {
+    const { n, m } = prob;
+    this.basis = new BasisPreconditioner(prob.A);
+    this.weight = new Float64Array(n + m);
+    this.thetaX = new Float64Array(n);
+    this.thetaW = new Float64Array(m);
+    this.diagonal = new Float64Array(m);
+    this.rhs = new Float64Array(m);
+    this.r = new Float64Array(m);
+    this.z = new Float64Array(m);
+    this.p = new Float64Array(m);
+    this.q = new Float64Array(m);
+    this.best = new Float64Array(m);
+    this.maxSteps = Math.max(500, Math.min(5000, m));
+    this.mode = direct && directIterations > 0 ? 'direct' : 'diagonal';
+  }
+
+  get nnzL(): number {
+    return this.mode === 'direct' ? this.direct!.nnzL : this.basis.nonzeros;
+  }
+
+  get replacedPivots(): number {
+    return this.mode === 'direct' ? this.direct!.replacedPivots : 0;
+  }
+
+  /** correctors worth their cost: as many as asked while the Cholesky factor solves */
+  get correctorLimit(): number {
+    return this.mode === 'direct' ? Infinity : CG_CORRECTORS;
+  }
+
+  /** the preconditioner in use: 'direct' (Cholesky), 'diagonal' or 'basis' */
+  get preconditioner(): 'direct' | 'diagonal' | 'basis' {
+    return this.mode;
+  }
+
+  factorise(D: Float64Array, deadline = Infinity): KktStatus {
+    this.iterations++;
+    this.deadline = deadline;
+    if (this.mode === 'direct') {
+      if (this.iterations <= this.directIterations) return this.direct!.factorise(D, deadline);
+      this.direct = null;
+      this.mode = 'diagonal';
+    }
+    const { n, m } = this.prob;
+    const { thetaX, thetaW, weight } = this;
+    const delta = this.settings.regDual;
+    for (let j = 0; j < n; j++) thetaX[j] = D[j] === Infinity ? 0 : 1 / D[j];
+    for (let i = 0; i < m; i++) thetaW[i] = D[n + i] === Infinity ? 0 : 1 / D[n + i];
+    for (let j = 0; j < n; j++) weight[j] = thetaX[j];
+    for (let i = 0; i < m; i++) weight[n + i] = thetaW[i] + delta;
+    for (let j = 0; j < n + m; j++) if (!(weight[j] < Infinity)) return 'numerical_trouble';
+    if (this.mode === 'basis') this.stats.exchanges.push(this.basis.improve(weight, VOLUME_TOLERANCE, MAX_EXCHANGES).exchanges);
+    else if (this.directIterations > 0) this.switchToBasis();
+    else this.setDiagonal();
+    return 'factorised';
+  }
+
+  solve(rhat: Float64Array, rp: Float64Array, dv: Float64Array, dy: Float64Array): void {
+    if (this.mode === 'direct') {
+      this.direct!.solve(rhat, rp, dv, dy);
+      return;
+    }
+    const { n, m, A } = this.prob;
+    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
+    const { thetaX, thetaW, rhs } = this;
+    for (let i = 0; i < m; i++) rhs[i] = rp[i] + thetaW[i] * rhat[n + i];
+    for (let j = 0; j < n; j++) {
+      const s = thetaX[j] * rhat[j];
+      if (s === 0) continue;
+      for (let k = Ap[j]; k < Ap[j + 1]; k++) rhs[Ai[k]] -= Ax[k] * s;
+    }
+    const target = Math.max(CG_TOLERANCE * (1 + maxAbs(rhs)), INEXACT * maxAbs(rp));
+    let steps: number;
+    if (this.mode === 'diagonal') {
+      steps = this.conjugateGradients(dy, target, DIAGONAL_STEPS);
+      if (steps < 0) {
+        this.switchToBasis();
+        steps = DIAGONAL_STEPS + Math.abs(this.conjugateGradients(dy, target, this.maxSteps));
+      }
+    } else steps = Math.abs(this.conjugateGradients(dy, target, this.maxSteps));
+    this.stats.steps.push(steps);
+    for (let j = 0; j < n; j++) {
+      let s = rhat[j];
+      for (let k = Ap[j]; k < Ap[j + 1]; k++) s += Ax[k] * dy[Ai[k]];
+      dv[j] = thetaX[j] * s;
+    }
+    for (let i = 0; i < m; i++) dv[n + i] = thetaW[i] * (rhat[n + i] - dy[i]);
+  }
+
+  /** the diagonal of A Θ_x Aᵀ + Θ_w + δI */
+  private setDiagonal(): void {
+    const { n, m, A } = this.prob;
+    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
+    const d = this.diagonal;
+    for (let i = 0; i < m; i++) d[i] = this.weight[n + i];
+    for (let j = 0; j < n; j++) for (let p = Ap[j]; p < Ap[j + 1]; p++) d[Ai[p]] += this.thetaX[j] * Ax[p] * Ax[p];
+  }
+
+  private switchToBasis(): void {
+    this.mode = 'basis';
+    this.basis.build(this.weight);
+    this.basis.refactor();
+    this.stats.exchanges.push(0);
+  }
+
+  /** out ← (A Θ_x Aᵀ + Θ_w + δI) x */
+  private multiply(x: Float64Array, out: Float64Array): void {
+    const { n, m, A } = this.prob;
+    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
+    const { thetaX, weight } = this;
+    for (let i = 0; i < m; i++) out[i] = weight[n + i] * x[i];
+    for (let j = 0; j < n; j++) {
+      const p1 = Ap[j + 1];
+      let s = 0;
+      for (let p = Ap[j]; p < p1; p++) s += Ax[p] * x[Ai[p]];
+      s *= thetaX[j];
+      if (s === 0) continue;
+      for (let p = Ap[j]; p < p1; p++) out[Ai[p]] += Ax[p] * s;
+    }
+  }
+
+  /** z ← P⁻¹ r */
+  private precondition(r: Float64Array, z: Float64Array): void {
+    if (this.mode === 'diagonal') {
+      for (let i = 0; i < z.length; i++) z[i] = r[i] / this.diagonal[i];
+      return;
+    }
+    z.set(r);
+    this.basis.ftran(z);
+    const { basic } = this.basis;
+    for (let k = 0; k < z.length; k++) z[k] /= this.weight[basic[k]];
+    this.basis.btran(z);
+  }
+
+  /**
+   * dy ← the CG iterate with the smallest residual on (A Θ_x Aᵀ + Θ_w + δI) dy = rhs, started
+   * from P⁻¹ rhs (exact when N carries no weight). Returns the steps taken, negated when `limit`
+   * steps (or the deadline) came first.
+   */
+  private conjugateGradients(dy: Float64Array, target: number, limit: number): number {
+    const { m } = this.prob;
+    const { rhs, r, z, p, q, best } = this;
+    this.precondition(rhs, dy);
+    this.multiply(dy, q);
+    for (let i = 0; i < m; i++) r[i] = rhs[i] - q[i];
+    let bestNorm = maxAbs(r);
+    best.set(dy);
+    if (!(bestNorm > target)) return 0;
+    this.precondition(r, z);
+    p.set(z);
+    let rz = dot(r, z);
+    let steps = 0;
+    let converged = false;
+    while (steps < limit) {
+      steps++;
+      this.multiply(p, q);
+      const pq = dot(p, q);
+      if (!(pq > 0)) break;
+      const alpha = rz / pq;
+      for (let i = 0; i < m; i++) {
+        dy[i] += alpha * p[i];
+        r[i] -= alpha * q[i];
+      }
+      const norm = maxAbs(r);
+      if (norm < bestNorm) {
+        bestNorm = norm;
+        best.set(dy);
+      }
+      if (norm <= target) {
+        converged = true;
+        break;
+      }
+      if ((steps & 63) === 0 && performance.now() > this.deadline) break;
+      this.precondition(r, z);
+      const rzNext = dot(r, z);
+      const beta = rzNext / rz;
+      rz = rzNext;
+      for (let i = 0; i < m; i++) p[i] = z[i] + beta * p[i];
+    }
+    dy.set(best);
+    return converged ? steps : -steps;
+  }
+}
+
+function dot(a: Float64Array, b: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
+  return s;
+}
+
+function maxAbs(x: Float64Array): number {
+  let r = 0;
+  for (let i = 0; i < x.length; i++) {
+    const a = Math.abs(x[i]);
+    if (a > r || a !== a) r = a !== a ? Infinity : a;
+  }
+  return r;
+}

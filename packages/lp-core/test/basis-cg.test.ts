@@ -1,0 +1,132 @@
+/**
+ * Conjugate gradients with a basis preconditioner (ipm/basis-cg-solver.ts, ipm/basis-preconditioner.ts),
+ * alone ('basis-cg') and after six Cholesky iterations ('cholesky-then-basis-cg'):
+ *  - the Netlib problems reach the optima published for the collection (glpk-doc's table, as in
+ *    netlib.test.ts; e226 with its objective constant against HiGHS);
+ *  - seeded random LPs (feasible, degenerate, infeasible, unbounded) and a planning LP of the
+ *    benchmark's shape agree with HiGHS (npm `highs`) in status and objective;
+ *  - the basis after the maximum-volume exchanges has no scaled entry |W_kj| above the tolerance,
+ *    and its solves agree with ml-matrix's dense LU solve (a reference library).
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { Matrix, solve as denseSolve } from 'ml-matrix';
+import { readMps, solve, solveWithHighs } from '../src/index';
+import { BasisPreconditioner } from '../src/ipm/basis-preconditioner';
+import type { Problem } from '../src/problem/problem';
+import { PLANNING_SIZES, planningProblem } from '../bench/planning-lp';
+import { NETLIB_PROBLEMS, type NetlibTableEntry, netlibMps, netlibTable } from './support/netlib';
+import { type RandomKind, randomProblem } from './support/random-problems';
+import { SeededRandom } from './support/seeded-random';
+
+const TOLERANCE = 1e-6;
+const relativeError = (a: number, b: number) => Math.abs(a - b) / Math.max(1, Math.abs(b));
+const SOLVERS = ['basis-cg', 'cholesky-then-basis-cg'] as const;
+
+describe('Netlib problems with conjugate gradients', () => {
+  let table: Map<string, NetlibTableEntry>;
+  const problems = new Map<string, Problem>();
+  beforeAll(() => {
+    table = netlibTable();
+    for (const name of NETLIB_PROBLEMS) problems.set(name, readMps(netlibMps(name)));
+  }, 120_000);
+
+  const cases = SOLVERS.flatMap((s) => ['afiro', 'brandy', 'finnis'].map((name) => [s, name] as const));
+  it.each(cases)('%s: %s reaches the published optimum', (linearSolver, name) => {
+    const r = solve(problems.get(name)!, { linearSolver });
+    expect(r.status).toBe('optimal');
+    expect(relativeError(r.objective, table.get(name)!.optimum)).toBeLessThanOrEqual(TOLERANCE);
+    expect(r.certificate.primalResidual).toBeLessThanOrEqual(1e-6);
+    expect(r.certificate.relativeGap).toBeLessThanOrEqual(1e-6);
+  });
+
+  it.each(SOLVERS)('%s: e226 (objective constant 7.113) agrees with HiGHS and with −11.638929066', async (linearSolver) => {
+    const p = problems.get('e226')!;
+    const r = solve(p, { linearSolver });
+    const reference = await solveWithHighs(p);
+    expect(r.status).toBe('optimal');
+    expect(relativeError(r.objective, reference.objective)).toBeLessThanOrEqual(TOLERANCE);
+    expect(relativeError(r.objective, -11.638929066)).toBeLessThanOrEqual(TOLERANCE);
+  });
+});
+
+describe('random LPs with conjugate gradients against HiGHS', () => {
+  const KINDS: RandomKind[] = ['feasible', 'degenerate', 'infeasible', 'unbounded'];
+  const expected = (kind: RandomKind) => (kind === 'infeasible' || kind === 'unbounded' ? kind : 'optimal');
+  const cases = SOLVERS.flatMap((s) => KINDS.flatMap((kind) => [31, 32].map((seed) => [s, kind, seed] as const)));
+  it.each(cases)('%s: %s seed %i', async (linearSolver, kind, seed) => {
+    const problem = randomProblem(seed, { rows: 120, cols: 180, perColumn: 4, kind });
+    const ours = solve(problem, { linearSolver });
+    const reference = await solveWithHighs(problem);
+    expect(reference.status).toBe(expected(kind));
+    expect(ours.status).toBe(reference.status);
+    if (ours.status === 'optimal') expect(relativeError(ours.objective, reference.objective)).toBeLessThanOrEqual(TOLERANCE);
+  });
+});
+
+describe('a planning LP of the benchmark shape (M size, 2340 rows)', () => {
+  it.each(SOLVERS)('%s agrees with HiGHS', async (linearSolver) => {
+    const p = planningProblem(PLANNING_SIZES.M, 5, 'planning-M');
+    const ours = solve(p, { linearSolver });
+    const reference = await solveWithHighs(p, { method: 'ipm', crossover: false });
+    expect(ours.status).toBe('optimal');
+    expect(relativeError(ours.objective, reference.objective)).toBeLessThanOrEqual(TOLERANCE);
+    expect(ours.certificate.primalResidual).toBeLessThanOrEqual(1e-6);
+  }, 60_000);
+});
+
+describe('the basis preconditioner', () => {
+  /** dense B (columns of [A I] at the basis positions) */
+  function denseBasis(p: Problem, basic: Int32Array): Matrix {
+    const { m, n, colPtr, rowIdx, values } = p.A;
+    const B = Matrix.zeros(m, m);
+    basic.forEach((j, k) => {
+      if (j >= n) B.set(j - n, k, 1);
+      else for (let q = colPtr[j]; q < colPtr[j + 1]; q++) B.set(rowIdx[q], k, values[q]);
+    });
+    return B;
+  }
+
+  it('after the exchanges no scaled entry of B⁻¹N exceeds the tolerance, and B x = b, Bᵀ y = c match the dense solve', () => {
+    const p = randomProblem(41, { rows: 60, cols: 90, perColumn: 4, kind: 'feasible' });
+    const { m, n } = p.A;
+    const rng = new SeededRandom(5);
+    const weight = Float64Array.from({ length: n + m }, () => 10 ** rng.uniform(-6, 6));
+    const basis = new BasisPreconditioner(p.A, 20);
+    basis.build(weight);
+    const report = basis.improve(weight, 2, 10_000, 50);
+    expect(report.exchanges).toBeGreaterThan(0); // the greedy basis was not already the answer
+    const B = denseBasis(p, basis.basic);
+    // every nonbasic column: |(B⁻¹ â_j)_k| √(θ_j / θ_basic(k)) ≤ 2 (+ rounding)
+    let worst = 0;
+    for (let j = 0; j < n + m; j++) {
+      if (basis.position[j] >= 0) continue;
+      const a = Matrix.zeros(m, 1);
+      if (j >= n) a.set(j - n, 0, 1);
+      else for (let q = p.A.colPtr[j]; q < p.A.colPtr[j + 1]; q++) a.set(p.A.rowIdx[q], 0, p.A.values[q]);
+      const w = denseSolve(B, a).to1DArray();
+      w.forEach((v, k) => (worst = Math.max(worst, (Math.abs(v) * Math.sqrt(weight[j])) / Math.sqrt(weight[basis.basic[k]]))));
+    }
+    expect(worst).toBeLessThanOrEqual(2 + 1e-9);
+    // solves through the product-form updates
+    const b = Array.from({ length: m }, () => rng.uniform(-1, 1));
+    const x = Float64Array.from(b);
+    basis.ftran(x);
+    const refX = denseSolve(B, Matrix.columnVector(b)).to1DArray();
+    refX.forEach((v, i) => expect(x[i]).toBeCloseTo(v, 8));
+    const y = Float64Array.from(b);
+    basis.btran(y);
+    const refY = denseSolve(B.transpose(), Matrix.columnVector(b)).to1DArray();
+    refY.forEach((v, i) => expect(y[i]).toBeCloseTo(v, 8));
+  });
+
+  it('the greedy build takes the heaviest independent columns: with slacks heaviest, B is the identity', () => {
+    const p = randomProblem(42, { rows: 20, cols: 30, perColumn: 3, kind: 'feasible' });
+    const { m, n } = p.A;
+    const weight = new Float64Array(n + m);
+    for (let j = 0; j < n; j++) weight[j] = 1;
+    for (let i = 0; i < m; i++) weight[n + i] = 100;
+    const basis = new BasisPreconditioner(p.A);
+    basis.build(weight);
+    expect([...basis.basic].sort((a, b) => a - b)).toEqual(Array.from({ length: m }, (_, i) => n + i));
+  });
+});
