@@ -7,7 +7,8 @@
  * Preconditioners, in turn:
  *  - optionally a Cholesky factorisation for the first `directIterations` iterations (the
  *    solver is then a NormalEquations), while the weights θ are still alike and no basis stands
- *    out;
+ *    out; and again for the rest of the solve if an iteration of CG turns out to cost more than a
+ *    factorisation (SPARSE_OPERATION_COST);
  *  - else the diagonal of the matrix, until a solve needs more than DIAGONAL_STEPS steps;
  *  - then P = B Θ_B Bᵀ for a basis B of [A I] picked and improved by the weights
  *    (basis-preconditioner.ts), applied as P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r.
@@ -32,8 +33,14 @@ const CG_TOLERANCE = 1e-9;
 const INEXACT = 0.1;
 /** a diagonally preconditioned solve that needs more steps than this switches to the basis */
 const DIAGONAL_STEPS = 300;
-/** exchanges per iteration, and the scaled entry size they push under (Schork & Gondzio use 2) */
+/**
+ * exchanges per iteration: at least MAX_EXCHANGES and EXCHANGE_SHARE of the rows; the scaled entry
+ * size they push under (2, as Schork & Gondzio). Measured on plan-model's generated 200 × 26 plant
+ * (17281 rows): at most 400 exchanges a solve, the basis fell behind the moving weights and CG took
+ * 1000–3800 steps a solve in the last iterations (98 s); with up to 3000, 40–170 steps (30 s).
+ */
 const MAX_EXCHANGES = 400;
+const EXCHANGE_SHARE = 0.2;
 const VOLUME_TOLERANCE = 2;
 /**
  * Gondzio correctors per iteration while CG solves: each costs a whole CG solve (with a Cholesky
@@ -41,6 +48,16 @@ const VOLUME_TOLERANCE = 2;
  * 22 iterations and 8096 CG steps, 2: 25 and 6412, 1: 27 and 5452, 0: 37 and 5271.
  */
 export const CG_CORRECTORS = 1;
+
+/**
+ * When 'auto' chose Cholesky-then-CG, CG gives way to Cholesky again for the rest of the solve once an
+ * iteration's CG work, in sparse operations weighted by SPARSE_OPERATION_COST, exceeds one
+ * factorisation's multiply–adds. The weight is measured here: the supernodal kernels run ~6.6e9
+ * multiply–adds a second on two threads (bench L), CG's scattered products and solves ~3.4e8
+ * operations a second (one thread). Counting operations keeps the choice independent of how busy
+ * the machine is (a run repeats exactly).
+ */
+const SPARSE_OPERATION_COST = 20;
 
 export interface CgStatistics {
   /** CG steps of every solve */
@@ -63,9 +80,14 @@ export class BasisCgSolver implements KktSolver {
   private readonly q: Float64Array;
   private readonly best: Float64Array;
   private readonly maxSteps: number;
+  private readonly maxExchanges: number;
   private mode: 'direct' | 'diagonal' | 'basis';
   private iterations = 0;
   private deadline = Infinity;
+  /** sparse operations of CG in the current iteration */
+  private work = 0;
+  /** true once CG has given way to Cholesky for good */
+  private backToCholesky = false;
 
   constructor(
     private readonly prob: IpmProblem,
@@ -73,6 +95,8 @@ export class BasisCgSolver implements KktSolver {
     /** the Cholesky solver for the first `directIterations` iterations, or null */
     private direct: NormalEquations | null = null,
     private readonly directIterations = 0,
+    /** go back to Cholesky when CG costs more than a factorisation (see SPARSE_OPERATION_COST) */
+    private readonly fallBack = false,
   ) {
     const { n, m } = prob;
     this.basis = new BasisPreconditioner(prob.A);
@@ -87,6 +111,7 @@ export class BasisCgSolver implements KktSolver {
     this.q = new Float64Array(m);
     this.best = new Float64Array(m);
     this.maxSteps = Math.max(500, Math.min(5000, m));
+    this.maxExchanges = Math.max(MAX_EXCHANGES, Math.ceil(m * EXCHANGE_SHARE));
     this.mode = direct && directIterations > 0 ? 'direct' : 'diagonal';
   }
 
@@ -111,9 +136,13 @@ export class BasisCgSolver implements KktSolver {
   factorise(D: Float64Array, deadline = Infinity): KktStatus {
     this.iterations++;
     this.deadline = deadline;
+    if (this.fallBack && this.mode === 'basis' && this.direct && SPARSE_OPERATION_COST * this.work > this.direct.flops) {
+      this.mode = 'direct';
+      this.backToCholesky = true;
+    }
+    this.work = 0;
     if (this.mode === 'direct') {
-      if (this.iterations <= this.directIterations) return this.direct!.factorise(D, deadline);
-      this.direct = null;
+      if (this.iterations <= this.directIterations || this.backToCholesky) return this.direct!.factorise(D, deadline);
       this.mode = 'diagonal';
     }
     const { n, m } = this.prob;
@@ -124,7 +153,7 @@ export class BasisCgSolver implements KktSolver {
     for (let j = 0; j < n; j++) weight[j] = thetaX[j];
     for (let i = 0; i < m; i++) weight[n + i] = thetaW[i] + delta;
     for (let j = 0; j < n + m; j++) if (!(weight[j] < Infinity)) return 'numerical_trouble';
-    if (this.mode === 'basis') this.stats.exchanges.push(this.basis.improve(weight, VOLUME_TOLERANCE, MAX_EXCHANGES).exchanges);
+    if (this.mode === 'basis') this.improveBasis();
     else if (this.directIterations > 0) this.switchToBasis();
     else this.setDiagonal();
     return 'factorised';
@@ -154,6 +183,8 @@ export class BasisCgSolver implements KktSolver {
       }
     } else steps = Math.abs(this.conjugateGradients(dy, target, this.maxSteps));
     this.stats.steps.push(steps);
+    // per step: products with A and Aᵀ, the preconditioner, five vector operations
+    this.work += steps * (2 * Ap[n] + (this.mode === 'basis' ? 2 * this.basis.nonzeros : m) + 5 * m);
     for (let j = 0; j < n; j++) {
       let s = rhat[j];
       for (let k = Ap[j]; k < Ap[j + 1]; k++) s += Ax[k] * dy[Ai[k]];
@@ -175,7 +206,15 @@ export class BasisCgSolver implements KktSolver {
     this.mode = 'basis';
     this.basis.build(this.weight);
     this.basis.refactor();
-    this.stats.exchanges.push(0);
+    this.improveBasis();
+  }
+
+  private improveBasis(): void {
+    const { m, n } = this.prob;
+    const report = this.basis.improve(this.weight, VOLUME_TOLERANCE, this.maxExchanges);
+    this.stats.exchanges.push(report.exchanges);
+    // two estimate rounds over all columns, one solve and one scan per examined column
+    this.work += 2 * (this.prob.A.colPtr[n] + n + m) + report.examined * (this.basis.nonzeros + m);
   }
 
   /** out ← (A Θ_x Aᵀ + Θ_w + δI) x */

@@ -19,6 +19,12 @@
 import type { CscMatrix } from '../problem/problem';
 import { SparseLu } from '../sparse/sparse-lu';
 
+/**
+ * improve() ends a round after this many examined columns in a row without an exchange. Measured
+ * on plan-model's 200 × 26 plant: without it 2800–5400 columns were examined an iteration for
+ * 24–1276 exchanges; with 50, 230–4600 for 10–1431, CG steps alike.
+ */
+const MISS_LIMIT = 50;
 /** a column whose new pivot is below this fraction of its largest entry is taken as dependent */
 const DEPENDENCE_TOLERANCE = 1e-7;
 
@@ -136,12 +142,15 @@ export class BasisPreconditioner {
     const N = n + m;
     const u = new Float64Array(m);
     const est = new Float64Array(N);
+    /** 1 / √θ of the column at each basis position */
+    const inv = new Float64Array(m);
+    for (let k = 0; k < m; k++) inv[k] = 1 / Math.sqrt(weight[basic[k]]);
     const col = this.colWork;
     let exchanges = 0;
     let examined = 0;
     for (let round = 0; round < rounds && exchanges < maxExchanges; round++) {
       // est_j = |Σ_k r_k W_kj| for random signs r: u = B⁻ᵀ (r / √θ_B), est_j = √θ_j |â_jᵀu|
-      for (let k = 0; k < m; k++) u[k] = this.sign() / Math.sqrt(weight[basic[k]]);
+      for (let k = 0; k < m; k++) u[k] = this.sign() * inv[k];
       this.btran(u);
       const candidates: number[] = [];
       for (let j = 0; j < N; j++) {
@@ -156,8 +165,11 @@ export class BasisPreconditioner {
       }
       if (candidates.length === 0) break;
       candidates.sort((a, b) => est[b] - est[a]);
+      // the estimates are column norms, not largest entries: most of the promising columns come
+      // first, so a long run of columns without an entry above the tolerance ends the round
+      let misses = 0;
       for (const j of candidates) {
-        if (exchanges >= maxExchanges) break;
+        if (exchanges >= maxExchanges || misses >= MISS_LIMIT) break;
         if (position[j] >= 0) continue;
         this.column(j, col);
         this.ftran(col);
@@ -168,15 +180,22 @@ export class BasisPreconditioner {
         for (let k = 0; k < m; k++) {
           const v = col[k];
           if (v === 0) continue;
-          const scaled = (Math.abs(v) * sj) / Math.sqrt(weight[basic[k]]);
+          const scaled = Math.abs(v) * sj * inv[k];
           if (scaled > bestValue) {
             bestValue = scaled;
             best = k;
           }
         }
-        if (best < 0) continue;
+        if (best < 0) {
+          misses++;
+          continue;
+        }
+        misses = 0;
         this.exchange(best, j, col);
         exchanges++;
+        // a refactorisation renumbers the positions
+        if (this.etaCount === 0) for (let k = 0; k < m; k++) inv[k] = 1 / Math.sqrt(weight[basic[k]]);
+        else inv[best] = 1 / sj;
       }
     }
     return { exchanges, examined };

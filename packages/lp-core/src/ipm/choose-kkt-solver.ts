@@ -8,14 +8,18 @@
  *  - 'cholesky-then-basis-cg': Cholesky for the first CHOLESKY_ITERATIONS iterations, then
  *    conjugate gradients with the basis preconditioner (LPs only);
  *  - 'auto' (the default): 'cholesky', unless one factorisation takes at least HYBRID_MIN_FLOPS
- *    multiply–adds ('cholesky-then-basis-cg') or the factor would not fit in maxFactorMegabytes
+ *    multiply–adds ('cholesky-then-basis-cg', going back to Cholesky for good if an iteration of
+ *    CG costs more than a factorisation) or the factor would not fit in maxFactorMegabytes
  *    ('basis-cg').
  *
  * Measured on the bench's L planning model (12740 rows, one factorisation 7.3e9 multiply–adds,
  * 1.0–1.7 s on two threads): Cholesky throughout 23 iterations in 38–40 s; Cholesky for 4, 6, 8
  * iterations then CG: 21.6, 18.2, 24.6 s (same machine spell, objectives within 1e-9 of HiGHS);
  * CG from the start stalled its first iteration for 70 s (no basis stands out while all θ are
- * alike, and the diagonal preconditioner needs thousands of steps there).
+ * alike, and the diagonal preconditioner needs thousands of steps there). On plan-model's
+ * generated 200 × 26 plant (6e9 multiply–adds) CG needs hundreds of exchanges an iteration and
+ * cost more than Cholesky (28–37 s against 26 s); there 'auto' goes back to Cholesky after the
+ * first CG iteration.
  */
 import type { IpmSettings } from '../settings';
 import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
@@ -41,8 +45,7 @@ export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSol
     if (err instanceof FactorTooLargeError && choice === 'auto') return new BasisCgSolver(prob, settings);
     throw err;
   }
-  if (choice === 'cholesky-then-basis-cg' || (choice === 'auto' && direct.flops >= HYBRID_MIN_FLOPS)) {
-    return new BasisCgSolver(prob, settings, direct, CHOLESKY_ITERATIONS);
-  }
+  if (choice === 'cholesky-then-basis-cg') return new BasisCgSolver(prob, settings, direct, CHOLESKY_ITERATIONS);
+  if (choice === 'auto' && direct.flops >= HYBRID_MIN_FLOPS) return new BasisCgSolver(prob, settings, direct, CHOLESKY_ITERATIONS, true);
   return direct;
 }
