@@ -55,10 +55,17 @@ function denseTableauBytes(model: ReturnType<typeof toLpSolverModel>['model']): 
 async function warmUp(request: BenchRequest): Promise<void> {
   const tiny = planningProblem({ products: 3, weeks: 2, workCenters: 1, materials: 2 }, 7, 'warm-up');
   const small = planningProblem(PLANNING_SIZES.S, WARM_UP_SEED, 'warm-up');
-  if (request.solver === 'lp-core') solve(small);
+  if (request.solver === 'lp-core') solve(small, LP_CORE_AS_IN_THE_API);
   else if (request.solver === 'lp-solver') solver.Solve(toLpSolverModel(tiny).model);
   else await solveWithHighs(small, { method: request.solver === 'highs-ipm' ? 'ipm' : 'simplex', crossover: false });
 }
+
+/**
+ * lp-core runs as the API's solver thread runs it (apps/api/src/solver-jobs/compute-plan.ts):
+ * factorisations on two threads, the helper thread started once (here by the warm-up) and kept.
+ * HiGHS-wasm runs on one thread.
+ */
+const LP_CORE_AS_IN_THE_API = { parallelFactorisation: true } as const;
 
 /** seed of the warm-up LP, apart from the seeds the bench measures */
 const WARM_UP_SEED = 9001;
@@ -71,7 +78,7 @@ async function run(request: BenchRequest): Promise<BenchOutcome> {
   const finite = (v: number) => (Number.isFinite(v) ? v : null);
   switch (request.solver) {
     case 'lp-core': {
-      const r = solve(problem, { timeLimitSeconds: limit });
+      const r = solve(problem, { ...LP_CORE_AS_IN_THE_API, timeLimitSeconds: limit });
       return { ...dims, status: r.status, objective: finite(r.objective), iterations: r.iterations, seconds: r.seconds, maxRssKb: null, message: r.message };
     }
     case 'highs-simplex':
