@@ -10,11 +10,11 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { Matrix, solve as denseSolve } from 'ml-matrix';
-import { readMps, solve, solveWithHighs } from '../src/index';
+import { solve, solveWithHighs } from '../src/index';
 import { BasisPreconditioner } from '../src/ipm/basis-preconditioner';
 import type { Problem } from '../src/problem/problem';
 import { PLANNING_SIZES, planningProblem } from '../bench/planning-lp';
-import { NETLIB_PROBLEMS, type NetlibTableEntry, netlibMps, netlibTable } from './support/netlib';
+import { type NetlibTableEntry, loadNetlib } from './support/netlib';
 import { type RandomKind, randomProblem } from './support/random-problems';
 import { SeededRandom } from './support/seeded-random';
 
@@ -24,10 +24,9 @@ const SOLVERS = ['basis-cg', 'cholesky-then-basis-cg'] as const;
 
 describe('Netlib problems with conjugate gradients', () => {
   let table: Map<string, NetlibTableEntry>;
-  const problems = new Map<string, Problem>();
+  let problems: Map<string, Problem>;
   beforeAll(() => {
-    table = netlibTable();
-    for (const name of NETLIB_PROBLEMS) problems.set(name, readMps(netlibMps(name)));
+    ({ table, problems } = loadNetlib());
   }, 120_000);
 
   const cases = SOLVERS.flatMap((s) => ['afiro', 'brandy', 'finnis'].map((name) => [s, name] as const));

@@ -11,19 +11,18 @@
  * collection's own value −18.751928966 excludes the constant (from memory). Both are tested.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { readMps, solve, solveBarrier, solveWithHighs } from '../src/index';
+import { solve, solveBarrier, solveWithHighs } from '../src/index';
 import type { Problem } from '../src/problem/problem';
-import { NETLIB_PROBLEMS, type NetlibTableEntry, netlibMps, netlibTable } from './support/netlib';
+import { NETLIB_PROBLEMS, type NetlibTableEntry, loadNetlib } from './support/netlib';
 
 const TOLERANCE = 1e-6;
 const relativeError = (a: number, b: number) => Math.abs(a - b) / Math.max(1, Math.abs(b));
 
 let table: Map<string, NetlibTableEntry>;
-const problems = new Map<string, Problem>();
+let problems: Map<string, Problem>;
 
 beforeAll(() => {
-  table = netlibTable();
-  for (const name of NETLIB_PROBLEMS) problems.set(name, readMps(netlibMps(name)));
+  ({ table, problems } = loadNetlib());
 }, 120_000);
 
 describe('Netlib problems read as the glpk-doc table describes them', () => {

@@ -22,6 +22,7 @@ import { BasisPreconditioner } from './basis-preconditioner';
 import type { KktSolver, KktStatus } from './kkt-solver';
 import type { IpmProblem } from './ipm-problem';
 import type { NormalEquations } from './normal-equations';
+import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from './normal-matrix';
 
 /**
  * CG's relative residual target, and the fraction of the primal residual it may stop at.
@@ -70,6 +71,8 @@ export class BasisCgSolver implements KktSolver {
   readonly stats: CgStatistics = { steps: [], exchanges: [] };
   private readonly basis: BasisPreconditioner;
   private readonly weight: Float64Array;
+  /** the slacks' weights θ_w + δ: the diagonal added to A Θ_x Aᵀ (a view into weight) */
+  private readonly slackWeight: Float64Array;
   private readonly thetaX: Float64Array;
   private readonly thetaW: Float64Array;
   private readonly diagonal: Float64Array;
@@ -101,6 +104,7 @@ export class BasisCgSolver implements KktSolver {
     const { n, m } = prob;
     this.basis = new BasisPreconditioner(prob.A);
     this.weight = new Float64Array(n + m);
+    this.slackWeight = this.weight.subarray(n);
     this.thetaX = new Float64Array(n);
     this.thetaW = new Float64Array(m);
     this.diagonal = new Float64Array(m);
@@ -165,14 +169,8 @@ export class BasisCgSolver implements KktSolver {
       return;
     }
     const { n, m, A } = this.prob;
-    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
     const { thetaX, thetaW, rhs } = this;
-    for (let i = 0; i < m; i++) rhs[i] = rp[i] + thetaW[i] * rhat[n + i];
-    for (let j = 0; j < n; j++) {
-      const s = thetaX[j] * rhat[j];
-      if (s === 0) continue;
-      for (let k = Ap[j]; k < Ap[j + 1]; k++) rhs[Ai[k]] -= Ax[k] * s;
-    }
+    normalRightHandSide(A, thetaX, thetaW, rhat, rp, rhs);
     const target = Math.max(CG_TOLERANCE * (1 + maxAbs(rhs)), INEXACT * maxAbs(rp));
     let steps: number;
     if (this.mode === 'diagonal') {
@@ -184,13 +182,8 @@ export class BasisCgSolver implements KktSolver {
     } else steps = Math.abs(this.conjugateGradients(dy, target, this.maxSteps));
     this.stats.steps.push(steps);
     // per step: products with A and Aᵀ, the preconditioner, five vector operations
-    this.work += steps * (2 * Ap[n] + (this.mode === 'basis' ? 2 * this.basis.nonzeros : m) + 5 * m);
-    for (let j = 0; j < n; j++) {
-      let s = rhat[j];
-      for (let k = Ap[j]; k < Ap[j + 1]; k++) s += Ax[k] * dy[Ai[k]];
-      dv[j] = thetaX[j] * s;
-    }
-    for (let i = 0; i < m; i++) dv[n + i] = thetaW[i] * (rhat[n + i] - dy[i]);
+    this.work += steps * (2 * A.colPtr[n] + (this.mode === 'basis' ? 2 * this.basis.nonzeros : m) + 5 * m);
+    recoverDirection(A, thetaX, thetaW, rhat, dy, dv);
   }
 
   /** the diagonal of A Θ_x Aᵀ + Θ_w + δI */
@@ -219,18 +212,7 @@ export class BasisCgSolver implements KktSolver {
 
   /** out ← (A Θ_x Aᵀ + Θ_w + δI) x */
   private multiply(x: Float64Array, out: Float64Array): void {
-    const { n, m, A } = this.prob;
-    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
-    const { thetaX, weight } = this;
-    for (let i = 0; i < m; i++) out[i] = weight[n + i] * x[i];
-    for (let j = 0; j < n; j++) {
-      const p1 = Ap[j + 1];
-      let s = 0;
-      for (let p = Ap[j]; p < p1; p++) s += Ax[p] * x[Ai[p]];
-      s *= thetaX[j];
-      if (s === 0) continue;
-      for (let p = Ap[j]; p < p1; p++) out[Ai[p]] += Ax[p] * s;
-    }
+    multiplyNormal(this.prob.A, this.thetaX, this.slackWeight, x, out);
   }
 
   /** z ← P⁻¹ r */
@@ -300,13 +282,4 @@ function dot(a: Float64Array, b: Float64Array): number {
   let s = 0;
   for (let i = 0; i < a.length; i++) s += a[i] * b[i];
   return s;
-}
-
-function maxAbs(x: Float64Array): number {
-  let r = 0;
-  for (let i = 0; i < x.length; i++) {
-    const a = Math.abs(x[i]);
-    if (a > r || a !== a) r = a !== a ? Infinity : a;
-  }
-  return r;
 }

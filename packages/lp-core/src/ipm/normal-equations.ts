@@ -14,6 +14,7 @@ import { SymmetricFactorisation } from '../sparse/symmetric-factorisation';
 import { DenseColumnUpdate } from './dense-column-update';
 import type { KktSolver, KktStatus } from './kkt-solver';
 import { qDiagonal, type IpmProblem } from './ipm-problem';
+import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from './normal-matrix';
 
 /**
  * refinement stops once the residual is this small relative to the right-hand side. Measured on
@@ -33,7 +34,6 @@ export class NormalEquations implements KktSolver {
   private readonly rhs: Float64Array;
   private readonly resid: Float64Array;
   private readonly corr: Float64Array;
-  private readonly tmpN: Float64Array;
   private readonly best: Float64Array;
   private readonly delta: number;
   replacedPivots = 0;
@@ -84,7 +84,6 @@ export class NormalEquations implements KktSolver {
     this.resid = new Float64Array(m);
     this.corr = new Float64Array(m);
     this.best = new Float64Array(m);
-    this.tmpN = new Float64Array(n);
     this.delta = settings.regDual;
   }
 
@@ -132,18 +131,7 @@ export class NormalEquations implements KktSolver {
 
   /** out ← (A Θ_x Aᵀ + Θ_w) x, dense columns included and without the regularisation δ, so refinement removes its error */
   private multiply(x: Float64Array, out: Float64Array): void {
-    const { n, m, A } = this.prob;
-    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
-    const { thetaX, thetaW } = this;
-    for (let i = 0; i < m; i++) out[i] = thetaW[i] * x[i];
-    for (let j = 0; j < n; j++) {
-      const p1 = Ap[j + 1];
-      let s = 0;
-      for (let p = Ap[j]; p < p1; p++) s += Ax[p] * x[Ai[p]];
-      s *= thetaX[j];
-      if (s === 0) continue;
-      for (let p = Ap[j]; p < p1; p++) out[Ai[p]] += Ax[p] * s;
-    }
+    multiplyNormal(this.prob.A, this.thetaX, this.thetaW, x, out);
   }
 
   private applyInverse(x: Float64Array): void {
@@ -152,16 +140,9 @@ export class NormalEquations implements KktSolver {
   }
 
   solve(rhat: Float64Array, rp: Float64Array, dv: Float64Array, dy: Float64Array): void {
-    const { n, m, A } = this.prob;
-    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
+    const { m, A } = this.prob;
     const { thetaX, thetaW, rhs, resid, corr, best } = this;
-    // rhs = rp − A Θ_x r̂_x + Θ_w r̂_w
-    for (let i = 0; i < m; i++) rhs[i] = rp[i] + thetaW[i] * rhat[n + i];
-    for (let j = 0; j < n; j++) {
-      const s = thetaX[j] * rhat[j];
-      if (s === 0) continue;
-      for (let p = Ap[j]; p < Ap[j + 1]; p++) rhs[Ai[p]] -= Ax[p] * s;
-    }
+    normalRightHandSide(A, thetaX, thetaW, rhat, rp, rhs);
     dy.set(rhs);
     this.applyInverse(dy);
     // iterative refinement: keep the iterate with the smallest residual
@@ -180,23 +161,6 @@ export class NormalEquations implements KktSolver {
       for (let i = 0; i < m; i++) dy[i] += corr[i];
     }
     dy.set(best);
-    // dv = Θ (r̂ + Âᵀ dy)
-    const tmp = this.tmpN;
-    for (let j = 0; j < n; j++) {
-      let s = rhat[j];
-      for (let p = Ap[j]; p < Ap[j + 1]; p++) s += Ax[p] * dy[Ai[p]];
-      tmp[j] = s;
-      dv[j] = thetaX[j] * s;
-    }
-    for (let i = 0; i < m; i++) dv[n + i] = thetaW[i] * (rhat[n + i] - dy[i]);
+    recoverDirection(A, thetaX, thetaW, rhat, dy, dv);
   }
-}
-
-function maxAbs(x: Float64Array): number {
-  let r = 0;
-  for (let i = 0; i < x.length; i++) {
-    const a = Math.abs(x[i]);
-    if (a > r || a !== a) r = a !== a ? Infinity : a;
-  }
-  return r;
 }

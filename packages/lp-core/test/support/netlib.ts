@@ -8,6 +8,8 @@ import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { gunzipSync } from 'node:zlib';
+import { readMps } from '../../src/mps/read-mps';
+import type { Problem } from '../../src/problem/problem';
 
 const here = dirname(fileURLToPath(import.meta.url));
 
@@ -49,3 +51,10 @@ export function netlibTable(): Map<string, NetlibTableEntry> {
 }
 
 export const NETLIB_PROBLEMS = ['afiro', 'brandy', 'e226', 'finnis'] as const;
+
+/** the four problems read with lp-core's MPS reader, and the published table (fetched on first use) */
+export function loadNetlib(): { table: Map<string, NetlibTableEntry>; problems: Map<string, Problem> } {
+  const problems = new Map<string, Problem>();
+  for (const name of NETLIB_PROBLEMS) problems.set(name, readMps(netlibMps(name)));
+  return { table: netlibTable(), problems };
+}
