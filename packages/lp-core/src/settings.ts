@@ -49,7 +49,7 @@ export interface IpmSettings {
   /**
    * how the Newton systems of an LP are solved (ipm/choose-kkt-solver.ts): 'cholesky' (sparse
    * Cholesky of the normal equations), 'basis-cg' (conjugate gradients with a diagonal, then a
-   * basis preconditioner; no factorisation), 'cholesky-then-basis-cg' (Cholesky for the first four
+   * basis preconditioner; no factorisation), 'cholesky-then-basis-cg' (Cholesky for the first six
    * iterations, then basis-preconditioned CG), or 'auto': Cholesky unless one factorisation takes
    * at least 2e9 multiply–adds (then 'cholesky-then-basis-cg') or the factor does not fit in
    * maxFactorMegabytes (then 'basis-cg'). QPs always use a factorisation.

@@ -1,6 +1,6 @@
 /**
  * Conjugate gradients with a basis preconditioner (ipm/basis-cg-solver.ts, ipm/basis-preconditioner.ts),
- * alone ('basis-cg') and after four Cholesky iterations ('cholesky-then-basis-cg'):
+ * alone ('basis-cg') and after six Cholesky iterations ('cholesky-then-basis-cg'):
  *  - the Netlib problems reach the optima published for the collection (glpk-doc's table, as in
  *    netlib.test.ts; e226 with its objective constant against HiGHS);
  *  - seeded random LPs (feasible, degenerate, infeasible, unbounded) and a planning LP of the

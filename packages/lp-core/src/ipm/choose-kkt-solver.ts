@@ -15,9 +15,10 @@
  * Measured on the bench's L planning model (12740 rows, one factorisation 7.3e9 multiply–adds,
  * 1.0–1.7 s on two threads): Cholesky throughout 23 iterations in 38–40 s; Cholesky for 4, 6, 8
  * iterations then CG: 21.6, 18.2, 24.6 s (same machine spell, objectives within 1e-9 of HiGHS).
- * Counted on the final code (times were disturbed by other work): Cholesky for 3, 4, 5, 6, 8
- * iterations then 28, 25, 26, 27, 26 iterations in all with 5737, 3677, 3366, 5152, 4556 CG steps;
- * at ~1.1 s a factorisation and ~1.3 ms a CG step, 4 is the cheapest;
+ * Counted: Cholesky for 3, 4, 5, 6, 8 iterations then 28, 25, 26, 27, 26 iterations in all with
+ * 5737, 3677, 3366, 5152, 4556 CG steps; yet timed in the benchmark, interleaved, 4 took 20.8 and
+ * 18.0 s, 6 took 17.4 and 16.4 s (the early CG iterations after 4 make many more exchanges on a
+ * fuller basis), so 6 it is;
  * CG from the start stalled its first iteration for 70 s (no basis stands out while all θ are
  * alike, and the diagonal preconditioner needs thousands of steps there). On plan-model's
  * generated 200 × 26 plant (6e9 multiply–adds) CG needs hundreds of exchanges an iteration and
@@ -32,7 +33,7 @@ import { hasOffDiagonalQ, type IpmProblem } from './ipm-problem';
 import type { KktSolver } from './kkt-solver';
 import { NormalEquations } from './normal-equations';
 
-export const CHOLESKY_ITERATIONS = 4;
+export const CHOLESKY_ITERATIONS = 6;
 /** 'auto' keeps Cholesky throughout below this many multiply–adds per factorisation */
 export const HYBRID_MIN_FLOPS = 2e9;
 
