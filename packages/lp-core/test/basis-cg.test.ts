@@ -12,6 +12,10 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { Matrix, solve as denseSolve } from 'ml-matrix';
 import { solve, solveWithHighs } from '../src/index';
 import { BasisPreconditioner } from '../src/ipm/basis-preconditioner';
+import { BasisCgSolver } from '../src/ipm/basis-cg-solver';
+import type { IpmProblem } from '../src/ipm/ipm-problem';
+import { NormalEquations } from '../src/ipm/normal-equations';
+import { resolveSettings } from '../src/settings';
 import type { Problem } from '../src/problem/problem';
 import { PLANNING_SIZES, planningProblem } from '../bench/planning-lp';
 import { type NetlibTableEntry, loadNetlib } from './support/netlib';
@@ -71,6 +75,64 @@ describe('a planning LP of the benchmark shape (M size, 2340 rows)', () => {
     expect(relativeError(ours.objective, reference.objective)).toBeLessThanOrEqual(TOLERANCE);
     expect(ours.certificate.primalResidual).toBeLessThanOrEqual(1e-6);
   }, 60_000);
+});
+
+describe('one Newton system solved both ways', () => {
+  /** the IPM form of a random LP, unscaled: v = (x, w), w = A x with the row bounds */
+  function ipmForm(p: Problem): IpmProblem {
+    const { m, n } = p.A;
+    return {
+      n,
+      m,
+      A: p.A,
+      c: p.c,
+      c0: p.c0,
+      lower: Float64Array.from([...p.colLower, ...p.rowLower]),
+      upper: Float64Array.from([...p.colUpper, ...p.rowUpper]),
+      colScale: new Float64Array(n).fill(1),
+      rowScale: new Float64Array(m).fill(1),
+    };
+  }
+
+  it('CG with the basis preconditioner gives the Cholesky solver\'s direction; with fall-back set it goes back to Cholesky once CG costs more', () => {
+    const p = randomProblem(43, { rows: 50, cols: 80, perColumn: 4, kind: 'feasible' });
+    const prob = ipmForm(p);
+    const { m, n } = p.A;
+    const settings = resolveSettings();
+    const rng = new SeededRandom(9);
+    // barrier diagonals spread over twelve orders of magnitude, as late in a solve
+    const D = Float64Array.from({ length: n + m }, () => 10 ** rng.uniform(-6, 6));
+    const rhat = Float64Array.from({ length: n + m }, () => rng.uniform(-1, 1));
+    // rp = 0: a feasible iterate, where CG must solve to its tight target (1e-9 of the right-hand side)
+    const rp = new Float64Array(m);
+    const direct = new NormalEquations(prob, settings);
+    expect(direct.factorise(D)).toBe('factorised');
+    const dvRef = new Float64Array(n + m);
+    const dyRef = new Float64Array(m);
+    direct.solve(rhat, rp, dvRef, dyRef);
+
+    // Cholesky for one iteration, then CG; a tiny model's factorisation is cheap, so CG costs more
+    const cg = new BasisCgSolver(prob, settings, new NormalEquations(prob, settings), 1, true);
+    expect(cg.factorise(D)).toBe('factorised');
+    expect(cg.preconditioner).toBe('direct');
+    expect(cg.factorise(D)).toBe('factorised');
+    expect(cg.preconditioner).toBe('basis');
+    const dv = new Float64Array(n + m);
+    const dy = new Float64Array(m);
+    cg.solve(rhat, rp, dv, dy);
+    const scale = Math.max(...dyRef.map(Math.abs));
+    dyRef.forEach((v, i) => expect(Math.abs(dy[i] - v)).toBeLessThanOrEqual(1e-6 * scale));
+    expect(cg.stats.steps.at(-1)).toBeGreaterThan(0);
+    expect(cg.factorise(D)).toBe('factorised');
+    expect(cg.preconditioner).toBe('direct');
+    // without fall-back it stays on CG
+    const stay = new BasisCgSolver(prob, settings, new NormalEquations(prob, settings), 1, false);
+    stay.factorise(D);
+    stay.factorise(D);
+    stay.solve(rhat, rp, dv, dy);
+    stay.factorise(D);
+    expect(stay.preconditioner).toBe('basis');
+  });
 });
 
 describe('the basis preconditioner', () => {
