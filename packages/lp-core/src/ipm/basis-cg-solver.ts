@@ -70,10 +70,11 @@ export interface CgStatistics {
 export class BasisCgSolver implements KktSolver {
   readonly stats: CgStatistics = { steps: [], exchanges: [] };
   private readonly basis: BasisPreconditioner;
+  /** the weights of the columns of [A I]: θ_x, then the slacks' θ_w + δ */
   private readonly weight: Float64Array;
-  /** the slacks' weights θ_w + δ: the diagonal added to A Θ_x Aᵀ (a view into weight) */
-  private readonly slackWeight: Float64Array;
+  /** views into weight: θ_x, and θ_w + δ (the diagonal added to A Θ_x Aᵀ) */
   private readonly thetaX: Float64Array;
+  private readonly slackWeight: Float64Array;
   private readonly thetaW: Float64Array;
   private readonly diagonal: Float64Array;
   private readonly rhs: Float64Array;
@@ -104,8 +105,8 @@ export class BasisCgSolver implements KktSolver {
     const { n, m } = prob;
     this.basis = new BasisPreconditioner(prob.A);
     this.weight = new Float64Array(n + m);
+    this.thetaX = this.weight.subarray(0, n);
     this.slackWeight = this.weight.subarray(n);
-    this.thetaX = new Float64Array(n);
     this.thetaW = new Float64Array(m);
     this.diagonal = new Float64Array(m);
     this.rhs = new Float64Array(m);
@@ -154,7 +155,6 @@ export class BasisCgSolver implements KktSolver {
     const delta = this.settings.regDual;
     for (let j = 0; j < n; j++) thetaX[j] = D[j] === Infinity ? 0 : 1 / D[j];
     for (let i = 0; i < m; i++) thetaW[i] = D[n + i] === Infinity ? 0 : 1 / D[n + i];
-    for (let j = 0; j < n; j++) weight[j] = thetaX[j];
     for (let i = 0; i < m; i++) weight[n + i] = thetaW[i] + delta;
     for (let j = 0; j < n + m; j++) if (!(weight[j] < Infinity)) return 'numerical_trouble';
     if (this.mode === 'basis') this.improveBasis();
@@ -188,10 +188,10 @@ export class BasisCgSolver implements KktSolver {
 
   /** the diagonal of A Θ_x Aᵀ + Θ_w + δI */
   private setDiagonal(): void {
-    const { n, m, A } = this.prob;
+    const { n, A } = this.prob;
     const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
     const d = this.diagonal;
-    for (let i = 0; i < m; i++) d[i] = this.weight[n + i];
+    d.set(this.slackWeight);
     for (let j = 0; j < n; j++) for (let p = Ap[j]; p < Ap[j + 1]; p++) d[Ai[p]] += this.thetaX[j] * Ax[p] * Ax[p];
   }
 

@@ -17,7 +17,7 @@
  *    afresh, slacks and short columns first (fewer fill-ins).
  */
 import type { CscMatrix } from '../problem/problem';
-import { SparseLu } from '../sparse/sparse-lu';
+import { SparseLu, grow, growF } from '../sparse/sparse-lu';
 
 /**
  * improve() ends a round after this many examined columns in a row without an exchange. Measured
@@ -54,10 +54,10 @@ export class BasisPreconditioner {
   private etaVal: Float64Array;
   /** xorshift state for the random signs (fixed seed: runs repeat exactly) */
   private seed = 0x2545f491;
-  /** product-form updates made since the last factorisation, and the most allowed */
-  get updates(): number {
-    return this.etaCount;
-  }
+  // improve()'s work arrays: B⁻ᵀ(r/√θ_B), the estimates by column, 1/√θ by basis position
+  private readonly u: Float64Array;
+  private readonly est: Float64Array;
+  private readonly inv: Float64Array;
 
   constructor(
     private readonly A: CscMatrix,
@@ -70,6 +70,9 @@ export class BasisPreconditioner {
     this.lu = new SparseLu(this.m);
     this.work = new Float64Array(this.m);
     this.colWork = new Float64Array(this.m);
+    this.u = new Float64Array(this.m);
+    this.est = new Float64Array(this.n + this.m);
+    this.inv = new Float64Array(this.m);
     this.etaPos = new Int32Array(maxUpdates);
     this.etaPivot = new Float64Array(maxUpdates);
     this.etaPtr = new Int32Array(maxUpdates + 1);
@@ -140,10 +143,7 @@ export class BasisPreconditioner {
     const { m, n, A, basic, position } = this;
     const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
     const N = n + m;
-    const u = new Float64Array(m);
-    const est = new Float64Array(N);
-    /** 1 / √θ of the column at each basis position */
-    const inv = new Float64Array(m);
+    const { u, est, inv } = this;
     for (let k = 0; k < m; k++) inv[k] = 1 / Math.sqrt(weight[basic[k]]);
     const col = this.colWork;
     let exchanges = 0;
@@ -236,12 +236,8 @@ export class BasisPreconditioner {
     const need = nz + this.m;
     if (need > this.etaIdx.length) {
       const cap = Math.max(need, 2 * this.etaIdx.length);
-      const idx = new Int32Array(cap);
-      idx.set(this.etaIdx);
-      const val = new Float64Array(cap);
-      val.set(this.etaVal);
-      this.etaIdx = idx;
-      this.etaVal = val;
+      this.etaIdx = grow(this.etaIdx, cap);
+      this.etaVal = growF(this.etaVal, cap);
     }
     for (let i = 0; i < this.m; i++) {
       if (i === k || w[i] === 0) continue;

@@ -106,13 +106,12 @@ export class SparseLu {
       return false;
     }
     this.reserve(this.Lp[k] + lCount, this.Up[k] + uCount + 1);
-    const { Ui, Ux } = this;
-    const L = { i: this.Li, x: this.Lx };
+    const { Ui, Ux, Li: Lrow, Lx: Lval } = this;
     let unz = this.Up[k];
     let lnz = this.Lp[k];
     const pivot = x[ipiv];
-    L.i[lnz] = ipiv;
-    L.x[lnz++] = 1;
+    Lrow[lnz] = ipiv;
+    Lval[lnz++] = 1;
     for (let q = top; q < this.m; q++) {
       const i = reach[q];
       const v = x[i];
@@ -125,8 +124,8 @@ export class SparseLu {
           Ux[unz++] = v;
         }
       } else if (v !== 0) {
-        L.i[lnz] = i;
-        L.x[lnz++] = v / pivot;
+        Lrow[lnz] = i;
+        Lval[lnz++] = v / pivot;
       }
     }
     Ui[unz] = k;
@@ -229,13 +228,15 @@ export class SparseLu {
   }
 }
 
-function grow(a: Int32Array, cap: number): Int32Array {
+/** a copy of a with room for cap entries */
+export function grow(a: Int32Array, cap: number): Int32Array {
   const b = new Int32Array(cap);
   b.set(a);
   return b;
 }
 
-function growF(a: Float64Array, cap: number): Float64Array {
+/** a copy of a with room for cap entries */
+export function growF(a: Float64Array, cap: number): Float64Array {
   const b = new Float64Array(cap);
   b.set(a);
   return b;
