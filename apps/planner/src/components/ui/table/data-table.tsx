@@ -170,7 +170,7 @@ export function DataTable<T>({ label, columns, data, empty, getRowId, maxHeightP
         {toolbar ? <div className="ml-auto flex gap-2">{toolbar}</div> : null}
       </div>
       <p role="status" aria-live="polite" className="text-sm text-ink-soft">
-        {rows.length === data.length ? `${data.length} rows` : `${rows.length} of ${data.length} rows match`}
+        {rows.length === data.length ? `${data.length} ${data.length === 1 ? 'row' : 'rows'}` : `${rows.length} of ${data.length} ${data.length === 1 ? 'row matches' : 'rows match'}`}
       </p>
       <div ref={scrollRef} className="overflow-auto rounded border border-line bg-panel" style={{ maxHeight: maxHeightPx }}>
         <table aria-label={label} aria-rowcount={rows.length + 1} className="w-full border-collapse text-sm">

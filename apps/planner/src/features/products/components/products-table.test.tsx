@@ -33,6 +33,13 @@ describe('products table (view kept in the URL)', () => {
     expect(screen.getByRole('columnheader', { name: /Name/ })).toHaveAttribute('aria-sort', 'descending');
   });
 
+  it('when there is one product, then the count reads "1 row"', async () => {
+    mockApi({ 'GET /api/me': () => json(people.supervisor), 'GET /api/products': () => json({ ...page, items: products.slice(0, 1), total: 1 }) });
+    renderApp('/products');
+    await screen.findByRole('table', { name: 'Products' });
+    expect(screen.getByText('1 row')).toBeInTheDocument();
+  });
+
   it('when the person sorts, filters and hides a column, then the address records it', async () => {
     mockApi({ 'GET /api/me': () => json(people.planner), 'GET /api/products': () => json(page) });
     const view = renderApp('/products');
