@@ -75,6 +75,41 @@ describe('sparse LU', () => {
     for (let i = 0; i < m; i++) expect(y[i]).toBeCloseTo(refT[i], 8);
   });
 
+  it('with a cost per row, pivots in the cheapest row within a tenth of the largest candidate, and still solves exactly', () => {
+    // threshold partial pivoting (the 0.1 threshold is common practice, no source)
+    const rng = new SeededRandom(5);
+    const m = 200;
+    const cols: SparseColumn[] = [];
+    for (let k = 0; k < 2 * m; k++) cols.push(randomColumn(rng, m, rng.integer(1, 4)));
+    for (let i = 0; i < m; i++) cols.push({ rows: [i], vals: [1] });
+    const cost = Int32Array.from({ length: m }, () => rng.integer(1, 30));
+    const lu = new SparseLu(m, 4 * m, cost);
+    const taken: SparseColumn[] = [];
+    for (const c of cols) {
+      const k = lu.rank;
+      // the candidates of this column: x = L⁻¹b at the rows not yet pivoted, known after the offer
+      if (!lu.offer(c.rows, c.vals, 0, c.rows.length, 1e-9)) continue;
+      taken.push(c);
+      const row = lu.pivotRow[k];
+      expect(lu.pinv[row]).toBe(k);
+    }
+    expect(lu.rank).toBe(m);
+    const B = dense(m, taken);
+    // P B = L U: every pivot |U_kk| is at least a tenth of the largest entry of L's column k times |U_kk|,
+    // i.e. no multiplier of L exceeds 10 in size
+    for (let k = 0; k < m; k++) for (let p = lu.Lp[k] + 1; p < lu.Lp[k + 1]; p++) expect(Math.abs(lu.Lx[p])).toBeLessThanOrEqual(10 + 1e-12);
+    const b = Array.from({ length: m }, () => rng.uniform(-1, 1));
+    const x = Float64Array.from(b);
+    lu.solve(x, new Float64Array(m));
+    const ref = denseSolve(B, Matrix.columnVector(b)).to1DArray();
+    for (let i = 0; i < m; i++) expect(x[i]).toBeCloseTo(ref[i], 8);
+    // and the costs steered the pivots: cheaper rows on average than plain partial pivoting picks
+    const plain = new SparseLu(m);
+    for (const c of taken) plain.offer(c.rows, c.vals, 0, c.rows.length, 1e-9);
+    const meanCost = (f: SparseLu) => Array.from(f.pivotRow).reduce((s, i) => s + cost[i], 0) / m;
+    expect(meanCost(lu)).toBeLessThanOrEqual(meanCost(plain));
+  });
+
   it('refuses columns in the span of those taken, and the rank it reaches is the matrix rank', () => {
     const rng = new SeededRandom(11);
     const m = 40;

@@ -17,6 +17,7 @@
  *    afresh, slacks and short columns first (fewer fill-ins).
  */
 import type { CscMatrix } from '../problem/problem';
+import { columnOrder } from '../sparse/column-ordering';
 import { SparseLu, grow, growF } from '../sparse/sparse-lu';
 
 /**
@@ -58,6 +59,8 @@ export class BasisPreconditioner {
   private readonly u: Float64Array;
   private readonly est: Float64Array;
   private readonly inv: Float64Array;
+  /** nonzeros of each row of A: the LU pivots in short rows where it can (less fill) */
+  private readonly rowCount: Int32Array;
 
   constructor(
     private readonly A: CscMatrix,
@@ -73,6 +76,8 @@ export class BasisPreconditioner {
     this.u = new Float64Array(this.m);
     this.est = new Float64Array(this.n + this.m);
     this.inv = new Float64Array(this.m);
+    this.rowCount = new Int32Array(this.m);
+    for (let p = 0; p < A.colPtr[this.n]; p++) this.rowCount[A.rowIdx[p]]++;
     this.etaPos = new Int32Array(maxUpdates);
     this.etaPivot = new Float64Array(maxUpdates);
     this.etaPtr = new Int32Array(maxUpdates + 1);
@@ -91,23 +96,34 @@ export class BasisPreconditioner {
     const order = new Int32Array(N);
     for (let j = 0; j < N; j++) order[j] = j;
     order.sort((a, b) => weight[b] - weight[a]);
-    const lu = new SparseLu(this.m, 4 * this.m);
+    const lu = new SparseLu(this.m, 4 * this.m, this.rowCount);
     this.position.fill(-1);
     for (let q = 0; q < N && lu.rank < this.m; q++) this.offer(lu, order[q]);
     this.install(lu);
   }
 
-  /** Factorises the current basis afresh (slacks, then structural columns shortest first). */
+  /** Factorises the current basis afresh, its columns in a fill-reducing order. */
   refactor(): void {
-    const cols = Array.from(this.basic);
-    const count = (j: number) => (j >= this.n ? 0 : this.A.colPtr[j + 1] - this.A.colPtr[j]);
-    cols.sort((a, b) => count(a) - count(b));
-    const lu = new SparseLu(this.m, Math.max(4 * this.m, this.lu.nonzeros));
+    const cols = this.fillReducingOrder(Array.from(this.basic));
+    const lu = new SparseLu(this.m, Math.max(4 * this.m, this.lu.nonzeros), this.rowCount);
     this.position.fill(-1);
     for (const j of cols) this.offer(lu, j);
     // columns refused as dependent (rounding after many exchanges) give way to slacks
     for (let i = 0; i < this.m && lu.rank < this.m; i++) if (lu.pinv[i] < 0) this.offer(lu, this.n + i);
     this.install(lu);
+  }
+
+  /** columns of Â in the order of columnOrder (slacks first: they cause no fill) */
+  private fillReducingOrder(cols: number[]): number[] {
+    const slacks = cols.filter((j) => j >= this.n);
+    const structural = cols.filter((j) => j < this.n);
+    const { colPtr, rowIdx } = this.A;
+    const start = new Int32Array(structural.length + 1);
+    structural.forEach((j, k) => (start[k + 1] = start[k] + colPtr[j + 1] - colPtr[j]));
+    const rows = new Int32Array(start[structural.length]);
+    structural.forEach((j, k) => rows.set(rowIdx.subarray(colPtr[j], colPtr[j + 1]), start[k]));
+    const order = columnOrder(this.m, structural.length, start, rows);
+    return [...slacks, ...Array.from(order, (k) => structural[k])];
   }
 
   /** x ← B⁻¹x (x by row in, by basis position out) */

@@ -16,6 +16,9 @@
  * entry the pivot row); U is upper triangular, stored by column with step numbers (the diagonal
  * last).
  */
+/** threshold partial pivoting: a pivot may be this fraction of the column's largest candidate */
+const PIVOT_THRESHOLD = 0.1;
+
 export class SparseLu {
   readonly m: number;
   /** number of accepted columns (the rank so far) */
@@ -36,7 +39,15 @@ export class SparseLu {
   private readonly mark: Int32Array;
   private stamp = 0;
 
-  constructor(m: number, expectedNonzeros = 4 * m) {
+  constructor(
+    m: number,
+    expectedNonzeros = 4 * m,
+    /**
+     * optional cost of pivoting in each row (e.g. its nonzeros in the whole matrix): the pivot is
+     * then the cheapest row among those within PIVOT_THRESHOLD of the largest candidate
+     */
+    private readonly rowCost: Int32Array | null = null,
+  ) {
     this.m = m;
     this.pinv = new Int32Array(m).fill(-1);
     this.pivotRow = new Int32Array(m).fill(-1);
@@ -104,6 +115,18 @@ export class SparseLu {
     if (ipiv < 0 || !(amax > dependenceTolerance * bmax)) {
       for (let q = top; q < this.m; q++) x[reach[q]] = 0;
       return false;
+    }
+    const cost = this.rowCost;
+    if (cost) {
+      const floor = PIVOT_THRESHOLD * amax;
+      let best = cost[ipiv];
+      for (let q = top; q < this.m; q++) {
+        const i = reach[q];
+        if (pinv[i] < 0 && cost[i] < best && Math.abs(x[i]) >= floor) {
+          best = cost[i];
+          ipiv = i;
+        }
+      }
     }
     this.reserve(this.Lp[k] + lCount, this.Up[k] + uCount + 1);
     const { Ui, Ux, Li: Lrow, Lx: Lval } = this;
