@@ -13,6 +13,7 @@ import { Matrix, solve as denseSolve } from 'ml-matrix';
 import { solve, solveWithHighs } from '../src/index';
 import { BasisPreconditioner } from '../src/ipm/basis-preconditioner';
 import { BasisCgSolver } from '../src/ipm/basis-cg-solver';
+import { chooseKktSolver } from '../src/ipm/choose-kkt-solver';
 import type { IpmProblem } from '../src/ipm/ipm-problem';
 import { NormalEquations } from '../src/ipm/normal-equations';
 import { resolveSettings } from '../src/settings';
@@ -67,7 +68,7 @@ describe('random LPs with conjugate gradients against HiGHS', () => {
 });
 
 describe('a planning LP of the benchmark shape (M size, 2340 rows)', () => {
-  it.each(SOLVERS)('%s agrees with HiGHS', async (linearSolver) => {
+  it.each([...SOLVERS, 'auto'] as const)('%s agrees with HiGHS', async (linearSolver) => {
     const p = planningProblem(PLANNING_SIZES.M, 5, 'planning-M');
     const ours = solve(p, { linearSolver });
     const reference = await solveWithHighs(p, { method: 'ipm', crossover: false });
@@ -77,23 +78,23 @@ describe('a planning LP of the benchmark shape (M size, 2340 rows)', () => {
   }, 60_000);
 });
 
-describe('one Newton system solved both ways', () => {
-  /** the IPM form of a random LP, unscaled: v = (x, w), w = A x with the row bounds */
-  function ipmForm(p: Problem): IpmProblem {
-    const { m, n } = p.A;
-    return {
-      n,
-      m,
-      A: p.A,
-      c: p.c,
-      c0: p.c0,
-      lower: Float64Array.from([...p.colLower, ...p.rowLower]),
-      upper: Float64Array.from([...p.colUpper, ...p.rowUpper]),
-      colScale: new Float64Array(n).fill(1),
-      rowScale: new Float64Array(m).fill(1),
-    };
-  }
+/** the IPM form of a random LP, unscaled: v = (x, w), w = A x with the row bounds */
+function ipmForm(p: Problem): IpmProblem {
+  const { m, n } = p.A;
+  return {
+    n,
+    m,
+    A: p.A,
+    c: p.c,
+    c0: p.c0,
+    lower: Float64Array.from([...p.colLower, ...p.rowLower]),
+    upper: Float64Array.from([...p.colUpper, ...p.rowUpper]),
+    colScale: new Float64Array(n).fill(1),
+    rowScale: new Float64Array(m).fill(1),
+  };
+}
 
+describe('one Newton system solved both ways', () => {
   it('CG with the basis preconditioner gives the Cholesky solver\'s direction; with fall-back set it goes back to Cholesky once CG costs more', () => {
     const p = randomProblem(43, { rows: 50, cols: 80, perColumn: 4, kind: 'feasible' });
     const prob = ipmForm(p);
@@ -132,6 +133,50 @@ describe('one Newton system solved both ways', () => {
     stay.solve(rhat, rp, dv, dy);
     stay.factorise(D);
     expect(stay.preconditioner).toBe('basis');
+  });
+
+  it('a second solve in the same iteration starts from the first one\'s dy: the same system again takes no step', () => {
+    const p = randomProblem(44, { rows: 50, cols: 80, perColumn: 4, kind: 'feasible' });
+    const prob = ipmForm(p);
+    const { m, n } = p.A;
+    const rng = new SeededRandom(10);
+    const D = Float64Array.from({ length: n + m }, () => 10 ** rng.uniform(-4, 4));
+    const rhat = Float64Array.from({ length: n + m }, () => rng.uniform(-1, 1));
+    const rp = new Float64Array(m);
+    const cg = new BasisCgSolver(prob, resolveSettings(), new NormalEquations(prob, resolveSettings()), 1);
+    cg.factorise(D);
+    cg.factorise(D);
+    const dv = new Float64Array(n + m);
+    const dy = new Float64Array(m);
+    cg.solve(rhat, rp, dv, dy);
+    expect(cg.stats.steps.at(-1)).toBeGreaterThan(0);
+    const dy2 = new Float64Array(m);
+    cg.solve(rhat, rp, dv, dy2);
+    expect(cg.stats.steps.at(-1)).toBe(0);
+    expect([...dy2]).toEqual([...dy]);
+    // a new iteration does not reuse it
+    cg.factorise(D);
+    cg.solve(rhat, rp, dv, dy2);
+    expect(cg.stats.steps.at(-1)).toBeGreaterThan(0);
+  });
+});
+
+describe("'auto' picks the linear solver by what a factorisation costs", () => {
+  // thresholds: CG_MIN_FLOPS and CG_FLOPS_PER_NONZERO in choose-kkt-solver.ts
+  it('planning LP of the benchmark\'s S size (5.8e5 multiply–adds a factorisation): Cholesky', () => {
+    const kkt = chooseKktSolver(ipmForm(planningProblem(PLANNING_SIZES.S, 1, 'S')), resolveSettings());
+    expect(kkt).toBeInstanceOf(NormalEquations);
+  });
+
+  it('M size (1.4e8 multiply–adds, 8500 per nonzero of [A I]): conjugate gradients, falling back on the factorisation', () => {
+    const kkt = chooseKktSolver(ipmForm(planningProblem(PLANNING_SIZES.M, 1, 'M')), resolveSettings());
+    expect(kkt).toBeInstanceOf(BasisCgSolver);
+    expect((kkt as BasisCgSolver).preconditioner).toBe('diagonal');
+  });
+
+  it("'cholesky' keeps the factorisation for M", () => {
+    const kkt = chooseKktSolver(ipmForm(planningProblem(PLANNING_SIZES.M, 1, 'M')), resolveSettings({ linearSolver: 'cholesky' }));
+    expect(kkt).toBeInstanceOf(NormalEquations);
   });
 });
 

@@ -6,10 +6,11 @@
  *
  * Preconditioners, in turn:
  *  - optionally a Cholesky factorisation for the first `directIterations` iterations (the
- *    solver is then a NormalEquations), while the weights θ are still alike and no basis stands
- *    out; and again for the rest of the solve if an iteration of CG turns out to cost more than a
- *    factorisation (SPARSE_OPERATION_COST);
- *  - else the diagonal of the matrix, until a solve needs more than DIAGONAL_STEPS steps;
+ *    solver is then a NormalEquations); and, with `fallBack`, for the rest of the solve once an
+ *    iteration of CG turns out to cost more than a factorisation (SPARSE_OPERATION_COST);
+ *  - else the diagonal of the matrix, until a solve needs more than DIAGONAL_STEPS steps (at the
+ *    starting point, where all weights are alike, a solve that needs more keeps its inexact
+ *    direction instead: no basis would stand out yet);
  *  - then P = B Θ_B Bᵀ for a basis B of [A I] picked and improved by the weights
  *    (basis-preconditioner.ts), applied as P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r.
  * A step costs one product with A, one with Aᵀ and the preconditioner. CG stops when
@@ -87,6 +88,9 @@ export class BasisCgSolver implements KktSolver {
   private readonly maxExchanges: number;
   private mode: 'direct' | 'diagonal' | 'basis';
   private iterations = 0;
+  /** dy of the last solve, valid (warm) until the next factorise */
+  private readonly warmDy: Float64Array;
+  private warm = false;
   private deadline = Infinity;
   /** sparse operations of CG in the current iteration */
   private work = 0;
@@ -115,6 +119,7 @@ export class BasisCgSolver implements KktSolver {
     this.p = new Float64Array(m);
     this.q = new Float64Array(m);
     this.best = new Float64Array(m);
+    this.warmDy = new Float64Array(m);
     this.maxSteps = Math.max(500, Math.min(5000, m));
     this.maxExchanges = Math.max(MAX_EXCHANGES, Math.ceil(m * EXCHANGE_SHARE));
     this.mode = direct && directIterations > 0 ? 'direct' : 'diagonal';
@@ -141,11 +146,12 @@ export class BasisCgSolver implements KktSolver {
   factorise(D: Float64Array, deadline = Infinity): KktStatus {
     this.iterations++;
     this.deadline = deadline;
-    if (this.fallBack && this.mode === 'basis' && this.direct && SPARSE_OPERATION_COST * this.work > this.direct.flops) {
+    if (this.fallBack && this.mode !== 'direct' && this.direct && SPARSE_OPERATION_COST * this.work > this.direct.flops) {
       this.mode = 'direct';
       this.backToCholesky = true;
     }
     this.work = 0;
+    this.warm = false;
     if (this.mode === 'direct') {
       if (this.iterations <= this.directIterations || this.backToCholesky) return this.direct!.factorise(D, deadline);
       this.mode = 'diagonal';
@@ -175,7 +181,10 @@ export class BasisCgSolver implements KktSolver {
     let steps: number;
     if (this.mode === 'diagonal') {
       steps = this.conjugateGradients(dy, target, DIAGONAL_STEPS);
-      if (steps < 0) {
+      // at the starting point all weights are alike and no basis stands out: keep the inexact
+      // direction (its error stays in the primal residual) and switch only later
+      if (steps < 0 && this.iterations === 1) steps = -steps;
+      else if (steps < 0) {
         this.switchToBasis();
         steps = DIAGONAL_STEPS + Math.abs(this.conjugateGradients(dy, target, this.maxSteps));
       }
@@ -184,6 +193,8 @@ export class BasisCgSolver implements KktSolver {
     // per step: products with A and Aᵀ, the preconditioner, five vector operations
     this.work += steps * (2 * A.colPtr[n] + (this.mode === 'basis' ? 2 * this.basis.nonzeros : m) + 5 * m);
     recoverDirection(A, thetaX, thetaW, rhat, dy, dv);
+    this.warmDy.set(dy);
+    this.warm = true;
   }
 
   /** the diagonal of A Θ_x Aᵀ + Θ_w + δI */
@@ -230,7 +241,8 @@ export class BasisCgSolver implements KktSolver {
 
   /**
    * dy ← the CG iterate with the smallest residual on (A Θ_x Aᵀ + Θ_w + δI) dy = rhs, started
-   * from P⁻¹ rhs (exact when N carries no weight). Returns the steps taken, negated when `limit`
+   * from P⁻¹ rhs (exact when N carries no weight) or from the previous solve's dy of the same
+   * iteration, whichever leaves the smaller residual. Returns the steps taken, negated when `limit`
    * steps (or the deadline) came first.
    */
   private conjugateGradients(dy: Float64Array, target: number, limit: number): number {
@@ -240,6 +252,17 @@ export class BasisCgSolver implements KktSolver {
     this.multiply(dy, q);
     for (let i = 0; i < m; i++) r[i] = rhs[i] - q[i];
     let bestNorm = maxAbs(r);
+    if (this.warm) {
+      // the previous solve of this iteration (predictor, corrector) is often closer
+      this.multiply(this.warmDy, q);
+      for (let i = 0; i < m; i++) q[i] = rhs[i] - q[i];
+      const warmNorm = maxAbs(q);
+      if (warmNorm < bestNorm) {
+        bestNorm = warmNorm;
+        r.set(q);
+        dy.set(this.warmDy);
+      }
+    }
     best.set(dy);
     if (!(bestNorm > target)) return 0;
     this.precondition(r, z);

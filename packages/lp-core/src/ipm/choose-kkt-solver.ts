@@ -7,23 +7,22 @@
  *    (basis-cg-solver.ts; LPs only);
  *  - 'cholesky-then-basis-cg': Cholesky for the first CHOLESKY_ITERATIONS iterations, then
  *    conjugate gradients with the basis preconditioner (LPs only);
- *  - 'auto' (the default): 'cholesky', unless one factorisation takes at least HYBRID_MIN_FLOPS
- *    multiply–adds ('cholesky-then-basis-cg', going back to Cholesky for good if an iteration of
- *    CG costs more than a factorisation) or the factor would not fit in maxFactorMegabytes
- *    ('basis-cg').
+ *  - 'auto' (the default): 'cholesky', unless one factorisation takes at least CG_MIN_FLOPS
+ *    multiply–adds and CG_FLOPS_PER_NONZERO per nonzero of [A I]: then 'basis-cg', going back to
+ *    Cholesky for good if an iteration of CG costs more than a factorisation; and 'basis-cg' when
+ *    the factor would not fit in maxFactorMegabytes.
  *
- * Measured on the bench's L planning model (12740 rows, one factorisation 7.3e9 multiply–adds,
- * 1.0–1.7 s on two threads): Cholesky throughout 23 iterations in 38–40 s; Cholesky for 4, 6, 8
- * iterations then CG: 21.6, 18.2, 24.6 s (same machine spell, objectives within 1e-9 of HiGHS).
- * Counted: Cholesky for 3, 4, 5, 6, 8 iterations then 28, 25, 26, 27, 26 iterations in all with
- * 5737, 3677, 3366, 5152, 4556 CG steps; yet timed in the benchmark, interleaved, 4 took 20.8 and
- * 18.0 s, 6 took 17.4 and 16.4 s (the early CG iterations after 4 make many more exchanges on a
- * fuller basis), so 6 it is;
- * CG from the start stalled its first iteration for 70 s (no basis stands out while all θ are
- * alike, and the diagonal preconditioner needs thousands of steps there). On plan-model's
- * generated 200 × 26 plant (6e9 multiply–adds) CG needs hundreds of exchanges an iteration and
- * cost more than Cholesky (28–37 s against 26 s); there 'auto' goes back to Cholesky after the
- * first CG iteration.
+ * Measured on the bench's planning models (lp-core's bench, one machine, interleaved runs):
+ *  - S (328 rows, 5.8e5 multiply–adds, 280 per nonzero): Cholesky 0.035–0.046 s, CG 0.086 s;
+ *  - M (2340 rows, 1.4e8, 8500 per nonzero): Cholesky 0.55–0.75 s, CG 0.40–0.46 s;
+ *  - L (12729 rows, 7.3e9): Cholesky throughout 38–40 s; six Cholesky iterations then CG 13.8 s;
+ *    CG from the start 7.5 s (26 iterations, 7434 CG steps);
+ *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 17.3 s.
+ * CG from the start used to stall (70 s for L's first iteration): the diagonal preconditioner
+ * gave up at the starting point, where all weights are alike, and the basis then picked filled its
+ * LU with millions of nonzeros. Now the first iteration keeps its inexact directions, the
+ * diagonal preconditioner carries the next few (8 on L), and the basis is factorised in a
+ * fill-reducing column order (45–100 thousand nonzeros on L).
  */
 import type { IpmSettings } from '../settings';
 import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
@@ -34,8 +33,16 @@ import type { KktSolver } from './kkt-solver';
 import { NormalEquations } from './normal-equations';
 
 export const CHOLESKY_ITERATIONS = 6;
-/** 'auto' keeps Cholesky throughout below this many multiply–adds per factorisation */
-export const HYBRID_MIN_FLOPS = 2e9;
+/**
+ * 'auto' takes CG when a factorisation costs at least CG_MIN_FLOPS multiply–adds and at least
+ * CG_FLOPS_PER_NONZERO per nonzero of [A I] (what one CG step costs, roughly).
+ */
+export const CG_MIN_FLOPS = 1e7;
+export const CG_FLOPS_PER_NONZERO = 2000;
+
+function prefersCg(prob: IpmProblem, flops: number): boolean {
+  return flops >= Math.max(CG_MIN_FLOPS, CG_FLOPS_PER_NONZERO * (prob.A.colPtr[prob.n] + prob.m));
+}
 
 export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSolver {
   if (hasOffDiagonalQ(prob.Q)) return new AugmentedSystem(prob, settings);
@@ -50,6 +57,6 @@ export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSol
     throw err;
   }
   if (choice === 'cholesky-then-basis-cg') return new BasisCgSolver(prob, settings, direct, CHOLESKY_ITERATIONS);
-  if (choice === 'auto' && direct.flops >= HYBRID_MIN_FLOPS) return new BasisCgSolver(prob, settings, direct, CHOLESKY_ITERATIONS, true);
+  if (choice === 'auto' && prefersCg(prob, direct.flops)) return new BasisCgSolver(prob, settings, direct, 0, true);
   return direct;
 }
