@@ -223,6 +223,26 @@ describe('the basis preconditioner', () => {
     basis.btran(y);
     const refY = denseSolve(B.transpose(), Matrix.columnVector(b)).to1DArray();
     refY.forEach((v, i) => expect(y[i]).toBeCloseTo(v, 8));
+    // the sparse solve with a column of Â (through L, U and the updates) gives the dense answer,
+    // and its pattern holds every nonzero
+    let checked = 0;
+    for (let j = 0; j < n + m; j++) {
+      if (basis.position[j] >= 0) continue;
+      const a = Matrix.zeros(m, 1);
+      if (j >= n) a.set(j - n, 0, 1);
+      else for (let q = p.A.colPtr[j]; q < p.A.colPtr[j + 1]; q++) a.set(p.A.rowIdx[q], 0, p.A.values[q]);
+      const ref = denseSolve(B, a).to1DArray();
+      const w = new Float64Array(m);
+      const pattern = new Int32Array(m);
+      const count = basis.ftranColumn(j, w, pattern);
+      const inPattern = new Set(pattern.subarray(0, count));
+      ref.forEach((v, k) => {
+        expect(w[k]).toBeCloseTo(v, 8);
+        if (Math.abs(v) > 1e-12) expect(inPattern.has(k)).toBe(true);
+      });
+      checked++;
+    }
+    expect(checked).toBe(n);
   });
 
   it('the greedy build takes the heaviest independent columns: with slacks heaviest, B is the identity', () => {

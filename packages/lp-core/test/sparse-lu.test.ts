@@ -110,6 +110,32 @@ describe('sparse LU', () => {
     expect(meanCost(lu)).toBeLessThanOrEqual(meanCost(plain));
   });
 
+  it('a sparse right-hand side: the sparse solve matches the dense one, touches only its pattern, and its pattern holds every nonzero', () => {
+    const rng = new SeededRandom(8);
+    const m = 300;
+    const cols: SparseColumn[] = [];
+    for (let k = 0; k < 2 * m; k++) cols.push(randomColumn(rng, m, rng.integer(1, 3)));
+    for (let i = 0; i < m; i++) cols.push({ rows: [i], vals: [1] });
+    const lu = new SparseLu(m);
+    const B = dense(m, offerAll(lu, cols));
+    const x = new Float64Array(m);
+    const pattern = new Int32Array(m);
+    for (let trial = 0; trial < 20; trial++) {
+      const b = randomColumn(rng, m, rng.integer(1, 3));
+      const count = lu.solveSparse(b.rows, b.vals, 0, b.rows.length, x, pattern);
+      const bDense = new Array(m).fill(0);
+      b.rows.forEach((i, p) => (bDense[i] = b.vals[p]));
+      const ref = denseSolve(B, Matrix.columnVector(bDense)).to1DArray();
+      const inPattern = new Set(pattern.subarray(0, count));
+      for (let k = 0; k < m; k++) {
+        expect(x[k]).toBeCloseTo(ref[k], 8);
+        if (!inPattern.has(k)) expect(x[k]).toBe(0);
+        if (Math.abs(ref[k]) > 1e-12) expect(inPattern.has(k)).toBe(true);
+      }
+      for (let q = 0; q < count; q++) x[pattern[q]] = 0;
+    }
+  });
+
   it('refuses columns in the span of those taken, and the rank it reaches is the matrix rank', () => {
     const rng = new SeededRandom(11);
     const m = 40;

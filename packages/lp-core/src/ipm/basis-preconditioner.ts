@@ -45,7 +45,9 @@ export class BasisPreconditioner {
   readonly position: Int32Array;
   private lu: SparseLu;
   private readonly work: Float64Array;
+  /** B⁻¹â_j of the column examined (zero between uses) and its nonzero positions */
   private readonly colWork: Float64Array;
+  private readonly colPattern: Int32Array;
   // product-form updates
   private etaCount = 0;
   private readonly etaPos: Int32Array;
@@ -59,6 +61,9 @@ export class BasisPreconditioner {
   private readonly u: Float64Array;
   private readonly est: Float64Array;
   private readonly inv: Float64Array;
+  /** ftranColumn's marks of the positions in its pattern */
+  private readonly seen: Int32Array;
+  private seenStamp = 0;
   /** nonzeros of each row of A: the LU pivots in short rows where it can (less fill) */
   private readonly rowCount: Int32Array;
 
@@ -73,10 +78,12 @@ export class BasisPreconditioner {
     this.lu = new SparseLu(this.m);
     this.work = new Float64Array(this.m);
     this.colWork = new Float64Array(this.m);
+    this.colPattern = new Int32Array(this.m);
     this.u = new Float64Array(this.m);
     this.est = new Float64Array(this.n + this.m);
     this.inv = new Float64Array(this.m);
     this.rowCount = new Int32Array(this.m);
+    this.seen = new Int32Array(this.m);
     for (let p = 0; p < A.colPtr[this.n]; p++) this.rowCount[A.rowIdx[p]]++;
     this.etaPos = new Int32Array(maxUpdates);
     this.etaPivot = new Float64Array(maxUpdates);
@@ -139,6 +146,40 @@ export class BasisPreconditioner {
     }
   }
 
+  /**
+   * x ← B⁻¹â_j, sparse: x (by position) must be zero on entry; its nonzero positions are left in
+   * pattern[0..count), count returned. Costs what the nonzeros cost, not a sweep over all rows.
+   */
+  ftranColumn(j: number, x: Float64Array, pattern: Int32Array): number {
+    let count: number;
+    if (j >= this.n) {
+      UNIT_ROW[0] = j - this.n;
+      count = this.lu.solveSparse(UNIT_ROW, UNIT_VALUE, 0, 1, x, pattern);
+    } else {
+      const { colPtr, rowIdx, values } = this.A;
+      count = this.lu.solveSparse(rowIdx, values, colPtr[j], colPtr[j + 1], x, pattern);
+    }
+    if (this.etaCount === 0) return count;
+    const { etaPos, etaPivot, etaPtr, etaIdx, etaVal, seen } = this;
+    const stamp = ++this.seenStamp;
+    for (let q = 0; q < count; q++) seen[pattern[q]] = stamp;
+    for (let e = 0; e < this.etaCount; e++) {
+      const k = etaPos[e];
+      const xk = x[k] / etaPivot[e];
+      x[k] = xk;
+      if (xk === 0) continue;
+      for (let p = etaPtr[e]; p < etaPtr[e + 1]; p++) {
+        const i = etaIdx[p];
+        x[i] -= etaVal[p] * xk;
+        if (seen[i] !== stamp) {
+          seen[i] = stamp;
+          pattern[count++] = i;
+        }
+      }
+    }
+    return count;
+  }
+
   /** x ← B⁻ᵀx (x by basis position in, by row out) */
   btran(x: Float64Array): void {
     const { etaPos, etaPivot, etaPtr, etaIdx, etaVal } = this;
@@ -162,6 +203,7 @@ export class BasisPreconditioner {
     const { u, est, inv } = this;
     for (let k = 0; k < m; k++) inv[k] = 1 / Math.sqrt(weight[basic[k]]);
     const col = this.colWork;
+    const colPattern = this.colPattern;
     let exchanges = 0;
     let examined = 0;
     for (let round = 0; round < rounds && exchanges < maxExchanges; round++) {
@@ -187,27 +229,26 @@ export class BasisPreconditioner {
       for (const j of candidates) {
         if (exchanges >= maxExchanges || misses >= MISS_LIMIT) break;
         if (position[j] >= 0) continue;
-        this.column(j, col);
-        this.ftran(col);
+        const count = this.ftranColumn(j, col, colPattern);
         examined++;
         const sj = Math.sqrt(weight[j]);
         let best = -1;
         let bestValue = volumeTolerance;
-        for (let k = 0; k < m; k++) {
-          const v = col[k];
-          if (v === 0) continue;
-          const scaled = Math.abs(v) * sj * inv[k];
+        for (let q = 0; q < count; q++) {
+          const k = colPattern[q];
+          const scaled = Math.abs(col[k]) * sj * inv[k];
           if (scaled > bestValue) {
             bestValue = scaled;
             best = k;
           }
         }
+        if (best >= 0) this.exchange(best, j, col, colPattern, count);
+        for (let q = 0; q < count; q++) col[colPattern[q]] = 0;
         if (best < 0) {
           misses++;
           continue;
         }
         misses = 0;
-        this.exchange(best, j, col);
         exchanges++;
         // a refactorisation renumbers the positions
         if (this.etaCount === 0) for (let k = 0; k < m; k++) inv[k] = 1 / Math.sqrt(weight[basic[k]]);
@@ -226,19 +267,8 @@ export class BasisPreconditioner {
     return x & 1 ? 1 : -1;
   }
 
-  /** column j of Â, dense by row, into x */
-  private column(j: number, x: Float64Array): void {
-    x.fill(0);
-    if (j >= this.n) {
-      x[j - this.n] = 1;
-      return;
-    }
-    const { colPtr, rowIdx, values } = this.A;
-    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) x[rowIdx[p]] = values[p];
-  }
-
-  /** column j enters at position k; w = B⁻¹â_j (by position) */
-  private exchange(k: number, j: number, w: Float64Array): void {
+  /** column j enters at position k; w = B⁻¹â_j (by position), nonzero at pattern[0..count) */
+  private exchange(k: number, j: number, w: Float64Array, pattern: Int32Array, count: number): void {
     // refactorise once the updates cost more to apply than the factors themselves
     if (this.etaCount === this.maxUpdates || this.etaPtr[this.etaCount] > Math.max(this.lu.nonzeros, this.m)) {
       this.position[this.basic[k]] = -1;
@@ -249,13 +279,14 @@ export class BasisPreconditioner {
     }
     const e = this.etaCount;
     let nz = this.etaPtr[e];
-    const need = nz + this.m;
+    const need = nz + count;
     if (need > this.etaIdx.length) {
       const cap = Math.max(need, 2 * this.etaIdx.length);
       this.etaIdx = grow(this.etaIdx, cap);
       this.etaVal = growF(this.etaVal, cap);
     }
-    for (let i = 0; i < this.m; i++) {
+    for (let q = 0; q < count; q++) {
+      const i = pattern[q];
       if (i === k || w[i] === 0) continue;
       this.etaIdx[nz] = i;
       this.etaVal[nz++] = w[i];

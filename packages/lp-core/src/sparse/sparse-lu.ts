@@ -38,6 +38,9 @@ export class SparseLu {
   private readonly reach: Int32Array;
   private readonly mark: Int32Array;
   private stamp = 0;
+  // solveSparse's work: L⁻¹b by row, the steps reached in U's graph
+  private readonly y: Float64Array;
+  private readonly uReach: Int32Array;
 
   constructor(
     m: number,
@@ -63,6 +66,8 @@ export class SparseLu {
     this.pstack = new Int32Array(m);
     this.reach = new Int32Array(m);
     this.mark = new Int32Array(m);
+    this.y = new Float64Array(m);
+    this.uReach = new Int32Array(m);
   }
 
   /** nonzeros stored in L and U */
@@ -181,6 +186,45 @@ export class SparseLu {
     }
   }
 
+  /**
+   * x ← B⁻¹b for a sparse b (rows bi[start..end), values bx[start..end)), in time proportional to
+   * the arithmetic (Gilbert & Peierls): depth-first searches in L's and U's graphs find where the
+   * result can be nonzero. x (by position) must be zero on entry; the positions written are left in
+   * pattern[0..count), count returned. Requires rank = m.
+   */
+  solveSparse(bi: Int32Array | number[], bx: Float64Array | number[], start: number, end: number, x: Float64Array, pattern: Int32Array): number {
+    const { m, y, reach, pinv, Lp, Li, Lx, Up, Ui, Ux } = this;
+    // L y = P b over the rows reachable from b
+    const top = this.reachOf(bi, start, end);
+    for (let p = start; p < end; p++) y[bi[p]] = bx[p];
+    for (let q = top; q < m; q++) {
+      const i = reach[q];
+      const v = y[i];
+      if (v === 0) continue;
+      const s = pinv[i];
+      for (let p = Lp[s] + 1; p < Lp[s + 1]; p++) y[Li[p]] -= Lx[p] * v;
+    }
+    // U z = y (by step) over the steps reachable in U's graph, z into x by position
+    for (let q = top; q < m; q++) {
+      const i = reach[q];
+      x[pinv[i]] = y[i];
+      y[i] = 0;
+    }
+    const uTop = this.uReachOf(top);
+    let count = 0;
+    const { uReach } = this;
+    for (let q = uTop; q < m; q++) {
+      const k = uReach[q];
+      const last = Up[k + 1] - 1;
+      const zk = x[k] / Ux[last];
+      x[k] = zk;
+      pattern[count++] = k;
+      if (zk === 0) continue;
+      for (let p = Up[k]; p < last; p++) x[Ui[p]] -= Ux[p] * zk;
+    }
+    return count;
+  }
+
   /** x ← B⁻ᵀx: x comes in by column position, leaves by row (requires rank = m) */
   solveTransposed(x: Float64Array, work: Float64Array): void {
     const { m, Lp, Li, Lx, Up, Ui, Ux, pivotRow } = this;
@@ -231,6 +275,44 @@ export class SparseLu {
         if (done) {
           head--;
           reach[--top] = j;
+        }
+      }
+    }
+    return top;
+  }
+
+  /**
+   * steps reachable in U's graph (step k → the steps of U's column k above the diagonal) from the
+   * steps of reach[lTop..m), in topological order: uReach[top..m)
+   */
+  private uReachOf(lTop: number): number {
+    const { m, pinv, reach, stack, pstack, mark, Up, Ui, uReach } = this;
+    const stamp = ++this.stamp;
+    let top = m;
+    for (let q = lTop; q < m; q++) {
+      const root = pinv[reach[q]];
+      if (mark[root] === stamp) continue;
+      let head = 0;
+      stack[0] = root;
+      while (head >= 0) {
+        const k = stack[head];
+        if (mark[k] !== stamp) {
+          mark[k] = stamp;
+          pstack[head] = Up[k];
+        }
+        let done = true;
+        const last = Up[k + 1] - 1;
+        for (let p = pstack[head]; p < last; p++) {
+          const t = Ui[p];
+          if (mark[t] === stamp) continue;
+          pstack[head] = p + 1;
+          stack[++head] = t;
+          done = false;
+          break;
+        }
+        if (done) {
+          head--;
+          uReach[--top] = k;
         }
       }
     }
