@@ -14,15 +14,17 @@
  *  - then P = B Θ_B Bᵀ for a basis B of [A I] picked and improved by the weights
  *    (basis-preconditioner.ts), applied as P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r.
  * A step costs one product with A, one with Aᵀ and the preconditioner. CG stops when
- * ‖r‖∞ ≤ max(CG_TOLERANCE · (1 + ‖rhs‖∞), INEXACT · ‖rp‖∞), keeping the iterate with the smallest
- * residual: the residual left is the direction's error in Â dv = rp, which need only be small
- * against rp while the iterate is far from feasible (an inexact Newton step).
+ * ‖r‖∞ ≤ max(CG_TOLERANCE · (1 + ‖rhs‖∞), INEXACT · ‖rp‖∞, MU_TOLERANCE · √μ), keeping the
+ * iterate with the smallest residual: the residual left is the direction's error in Â dv = rp,
+ * which need only be small against rp and √μ while the iterate is far from feasible and optimal
+ * (an inexact Newton step).
  */
 import type { IpmSettings } from '../settings';
 import { BasisPreconditioner } from './basis-preconditioner';
 import type { KktSolver, KktStatus } from './kkt-solver';
 import type { IpmProblem } from './ipm-problem';
 import type { NormalEquations } from './normal-equations';
+import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
 import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from './normal-matrix';
 
 /**
@@ -33,6 +35,15 @@ import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from '.
  */
 const CG_TOLERANCE = 1e-9;
 const INEXACT = 0.1;
+/**
+ * CG may also stop at MU_TOLERANCE·√μ: while the iterate is far from optimal the direction need
+ * not be more exact than the neighbourhood of the central path it aims at (the error is left in
+ * the primal residual, which the termination test checks on the original problem). Measured from
+ * the start with 'basis-cg': on L, 0 (off) took 7486 CG steps in 26 iterations (8.4–9.3 s),
+ * 0.1 5239 in 27, 1 4891 in 27 (5.5 s), 3 4547 in 28 (5.6 s); on M, 1 took 2883 steps against 2974
+ * with 0. Objectives within 1e-9 of each other throughout.
+ */
+const MU_TOLERANCE = 1;
 /** a diagonally preconditioned solve that needs more steps than this switches to the basis */
 const DIAGONAL_STEPS = 300;
 /**
@@ -44,6 +55,8 @@ const DIAGONAL_STEPS = 300;
 const MAX_EXCHANGES = 400;
 const EXCHANGE_SHARE = 0.2;
 const VOLUME_TOLERANCE = 2;
+/** after the exchanges, B is factorised afresh if its updates hold more than this share of the LU's nonzeros */
+const UPDATE_SHARE = 0.1;
 /**
  * Gondzio correctors per iteration while CG solves: each costs a whole CG solve (with a Cholesky
  * factor, two triangular solves). Measured on L (six Cholesky iterations first): 4 correctors
@@ -52,14 +65,24 @@ const VOLUME_TOLERANCE = 2;
 export const CG_CORRECTORS = 1;
 
 /**
- * When 'auto' chose Cholesky-then-CG, CG gives way to Cholesky again for the rest of the solve once an
- * iteration's CG work, in sparse operations weighted by SPARSE_OPERATION_COST, exceeds one
- * factorisation's multiply–adds. The weight is measured here: the supernodal kernels run ~6.6e9
- * multiply–adds a second on two threads (bench L), CG's scattered products and solves ~3.4e8
- * operations a second (one thread). Counting operations keeps the choice independent of how busy
- * the machine is (a run repeats exactly).
+ * With `fallBack` (as 'auto' sets it), CG gives way to Cholesky for the rest of the solve once the
+ * CG work per iteration so far, in sparse operations weighted by SPARSE_OPERATION_COST, exceeds
+ * one factorisation's multiply–adds. Averaged over the iterations, not per iteration: the
+ * iteration that builds the basis costs several (on the bench's M model, where CG takes 0.40 s
+ * and Cholesky 0.55 s, that one iteration alone would send the solve back to Cholesky).
+ * The weight is measured: the supernodal kernels run ~6.6e9 multiply–adds a second on two
+ * threads (bench L), CG's scattered products and solves ~3.4e8 operations a second (one thread).
+ * Counting operations keeps the choice independent of how busy the machine is (a run repeats
+ * exactly).
  */
 const SPARSE_OPERATION_COST = 20;
+
+/** a Cholesky solver of the same normal equations, built only if it is used */
+export interface CholeskyOption {
+  /** multiply–adds of one factorisation (exact or estimated) */
+  flops: number;
+  create: () => NormalEquations;
+}
 
 export interface CgStatistics {
   /** CG steps of every solve */
@@ -92,19 +115,21 @@ export class BasisCgSolver implements KktSolver {
   private readonly warmDy: Float64Array;
   private warm = false;
   private deadline = Infinity;
-  /** sparse operations of CG in the current iteration */
+  private mu = 0;
+  /** sparse operations of CG so far */
   private work = 0;
+  private direct: NormalEquations | null = null;
   /** true once CG has given way to Cholesky for good */
   private backToCholesky = false;
 
   constructor(
     private readonly prob: IpmProblem,
     private readonly settings: IpmSettings,
-    /** the Cholesky solver for the first `directIterations` iterations, or null */
-    private direct: NormalEquations | null = null,
+    /** the Cholesky solver for the first `directIterations` iterations and the fall-back, or null */
+    private readonly cholesky: CholeskyOption | null = null,
     private readonly directIterations = 0,
     /** go back to Cholesky when CG costs more than a factorisation (see SPARSE_OPERATION_COST) */
-    private readonly fallBack = false,
+    private fallBack = false,
   ) {
     const { n, m } = prob;
     this.basis = new BasisPreconditioner(prob.A);
@@ -122,15 +147,15 @@ export class BasisCgSolver implements KktSolver {
     this.warmDy = new Float64Array(m);
     this.maxSteps = Math.max(500, Math.min(5000, m));
     this.maxExchanges = Math.max(MAX_EXCHANGES, Math.ceil(m * EXCHANGE_SHARE));
-    this.mode = direct && directIterations > 0 ? 'direct' : 'diagonal';
+    this.mode = cholesky && directIterations > 0 ? 'direct' : 'diagonal';
   }
 
   get nnzL(): number {
-    return this.mode === 'direct' ? this.direct!.nnzL : this.basis.nonzeros;
+    return this.mode === 'direct' ? this.directSolver().nnzL : this.basis.nonzeros;
   }
 
   get replacedPivots(): number {
-    return this.mode === 'direct' ? this.direct!.replacedPivots : 0;
+    return this.mode === 'direct' ? this.directSolver().replacedPivots : 0;
   }
 
   /** correctors worth their cost: as many as asked while the Cholesky factor solves */
@@ -143,17 +168,15 @@ export class BasisCgSolver implements KktSolver {
     return this.mode;
   }
 
-  factorise(D: Float64Array, deadline = Infinity): KktStatus {
+  factorise(D: Float64Array, deadline = Infinity, mu = 0): KktStatus {
     this.iterations++;
+    this.mu = mu;
     this.deadline = deadline;
-    if (this.fallBack && this.mode !== 'direct' && this.direct && SPARSE_OPERATION_COST * this.work > this.direct.flops) {
-      this.mode = 'direct';
-      this.backToCholesky = true;
-    }
-    this.work = 0;
+    const cgIterations = this.iterations - 1 - this.directIterations;
+    if (this.fallBack && this.mode === 'basis' && this.cholesky && SPARSE_OPERATION_COST * this.work > cgIterations * this.cholesky.flops) this.fallBackToCholesky();
     this.warm = false;
     if (this.mode === 'direct') {
-      if (this.iterations <= this.directIterations || this.backToCholesky) return this.direct!.factorise(D, deadline);
+      if (this.iterations <= this.directIterations || this.backToCholesky) return this.directSolver().factorise(D, deadline);
       this.mode = 'diagonal';
     }
     const { n, m } = this.prob;
@@ -171,13 +194,13 @@ export class BasisCgSolver implements KktSolver {
 
   solve(rhat: Float64Array, rp: Float64Array, dv: Float64Array, dy: Float64Array): void {
     if (this.mode === 'direct') {
-      this.direct!.solve(rhat, rp, dv, dy);
+      this.directSolver().solve(rhat, rp, dv, dy);
       return;
     }
     const { n, m, A } = this.prob;
     const { thetaX, thetaW, rhs } = this;
     normalRightHandSide(A, thetaX, thetaW, rhat, rp, rhs);
-    const target = Math.max(CG_TOLERANCE * (1 + maxAbs(rhs)), INEXACT * maxAbs(rp));
+    const target = Math.max(CG_TOLERANCE * (1 + maxAbs(rhs)), INEXACT * maxAbs(rp), MU_TOLERANCE * Math.sqrt(this.mu));
     let steps: number;
     if (this.mode === 'diagonal') {
       steps = this.conjugateGradients(dy, target, DIAGONAL_STEPS);
@@ -195,6 +218,24 @@ export class BasisCgSolver implements KktSolver {
     recoverDirection(A, thetaX, thetaW, rhat, dy, dv);
     this.warmDy.set(dy);
     this.warm = true;
+  }
+
+  /** the Cholesky solver, built when first needed */
+  private directSolver(): NormalEquations {
+    return (this.direct ??= this.cholesky!.create());
+  }
+
+  /** Cholesky for the rest of the solve, unless its factor turns out not to fit after all */
+  private fallBackToCholesky(): void {
+    try {
+      this.directSolver();
+    } catch (err) {
+      if (!(err instanceof FactorTooLargeError)) throw err;
+      this.fallBack = false;
+      return;
+    }
+    this.mode = 'direct';
+    this.backToCholesky = true;
   }
 
   /** the diagonal of A Θ_x Aᵀ + Θ_w + δI */
@@ -216,6 +257,7 @@ export class BasisCgSolver implements KktSolver {
   private improveBasis(): void {
     const { m, n } = this.prob;
     const report = this.basis.improve(this.weight, VOLUME_TOLERANCE, this.maxExchanges);
+    this.basis.compact(UPDATE_SHARE);
     this.stats.exchanges.push(report.exchanges);
     // two estimate rounds over all columns, one solve and one scan per examined column
     this.work += 2 * (this.prob.A.colPtr[n] + n + m) + report.examined * (this.basis.nonzeros + m);

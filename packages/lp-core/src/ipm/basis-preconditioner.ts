@@ -133,6 +133,14 @@ export class BasisPreconditioner {
     return [...slacks, ...Array.from(order, (k) => structural[k])];
   }
 
+  /**
+   * Factorises afresh when the updates hold more than `share` of the factors' nonzeros: before a
+   * round of CG, where every step applies them twice.
+   */
+  compact(share: number): void {
+    if (this.etaCount > 0 && this.etaPtr[this.etaCount] > share * this.lu.nonzeros) this.refactor();
+  }
+
   /** x ← B⁻¹x (x by row in, by basis position out) */
   ftran(x: Float64Array): void {
     this.lu.solve(x, this.work);

@@ -10,12 +10,16 @@
  *  - 'auto' (the default): 'cholesky', unless one factorisation takes at least CG_MIN_FLOPS
  *    multiply–adds and CG_FLOPS_PER_NONZERO per nonzero of [A I]: then 'basis-cg', going back to
  *    Cholesky for good if an iteration of CG costs more than a factorisation; and 'basis-cg' when
- *    the factor would not fit in maxFactorMegabytes.
+ *    the factor would not fit in maxFactorMegabytes. The cost is estimated in the approximate
+ *    minimum degree order from the elimination tree alone (NormalEquations.estimateFlops), so
+ *    choosing CG builds no factorisation: on L the full symbolic analysis took 0.4–0.7 s.
  *
  * Measured on the bench's planning models (lp-core's bench, one machine, interleaved runs):
- *  - S (328 rows, 5.8e5 multiply–adds, 280 per nonzero): Cholesky 0.035–0.046 s, CG 0.086 s;
- *  - M (2340 rows, 1.4e8, 8500 per nonzero): Cholesky 0.55–0.75 s, CG 0.40–0.46 s;
- *  - L (12729 rows, 7.3e9): Cholesky throughout 38–40 s; six Cholesky iterations then CG 13.8 s;
+ *  - S (328 rows, estimated 4.3e5 multiply–adds, 210 per nonzero): Cholesky 0.035–0.046 s, CG 0.086 s;
+ *  - M (2340 rows, estimated 3.6e8, 22000 per nonzero; 1.4e8 in the order the factorisation
+ *    picks): Cholesky 0.55–0.75 s, CG 0.40–0.46 s;
+ *  - L (12729 rows, 7.3e9 in the factorisation's order): Cholesky throughout 38–40 s; six
+ *    Cholesky iterations then CG 13.8 s;
  *    CG from the start 7.5 s (26 iterations, 7434 CG steps);
  *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 17.3 s.
  * CG from the start used to stall (70 s for L's first iteration): the diagonal preconditioner
@@ -49,6 +53,10 @@ export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSol
   const lp = !prob.Q;
   const choice = lp ? settings.linearSolver : 'cholesky';
   if (choice === 'basis-cg') return new BasisCgSolver(prob, settings);
+  if (choice === 'auto') {
+    const flops = NormalEquations.estimateFlops(prob, settings);
+    if (prefersCg(prob, flops)) return new BasisCgSolver(prob, settings, { flops, create: () => new NormalEquations(prob, settings) }, 0, true);
+  }
   let direct: NormalEquations;
   try {
     direct = new NormalEquations(prob, settings);
@@ -56,7 +64,6 @@ export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSol
     if (err instanceof FactorTooLargeError && choice === 'auto') return new BasisCgSolver(prob, settings);
     throw err;
   }
-  if (choice === 'cholesky-then-basis-cg') return new BasisCgSolver(prob, settings, direct, CHOLESKY_ITERATIONS);
-  if (choice === 'auto' && prefersCg(prob, direct.flops)) return new BasisCgSolver(prob, settings, direct, 0, true);
+  if (choice === 'cholesky-then-basis-cg') return new BasisCgSolver(prob, settings, { flops: direct.flops, create: () => direct }, CHOLESKY_ITERATIONS);
   return direct;
 }

@@ -197,7 +197,7 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
       if (hasUpper(k)) d += it.zu[j] / (upper[j] - it.v[j]);
       D[j] = d;
     }
-    const fs = timed('factorise', () => kkt.factorise(D, clock.deadline));
+    const fs = timed('factorise', () => kkt.factorise(D, clock.deadline, mu));
     if (fs === 'interrupted') return restoreBest('time_limit', iter, `time limit of ${settings.timeLimitSeconds} s reached during a factorisation`);
     if (fs !== 'factorised') return restoreBest('numerical_trouble', iter, 'the Newton system could not be factorised');
 

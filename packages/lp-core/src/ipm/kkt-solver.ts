@@ -17,7 +17,10 @@ export interface KktSolver {
   readonly replacedPivots: number;
   /** Gondzio correctors worth their cost with this solver (undefined: as many as the settings allow) */
   readonly correctorLimit?: number;
-  /** deadline: performance.now() value after which the factorisation gives up ('interrupted') */
-  factorise(D: Float64Array, deadline?: number): KktStatus;
+  /**
+   * deadline: performance.now() value after which the factorisation gives up ('interrupted');
+   * mu: the iterate's complementarity (an iterative solver may stop sooner while it is large)
+   */
+  factorise(D: Float64Array, deadline?: number, mu?: number): KktStatus;
   solve(rhat: Float64Array, rp: Float64Array, dv: Float64Array, dy: Float64Array): void;
 }

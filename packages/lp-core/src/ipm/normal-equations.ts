@@ -10,7 +10,7 @@
  * Each solve is polished by iterative refinement against the unfactorised operator.
  */
 import type { IpmSettings } from '../settings';
-import { SymmetricFactorisation } from '../sparse/symmetric-factorisation';
+import { SymmetricFactorisation, estimateFactorFlops } from '../sparse/symmetric-factorisation';
 import { DenseColumnUpdate } from './dense-column-update';
 import type { KktSolver, KktStatus } from './kkt-solver';
 import { qDiagonal, type IpmProblem } from './ipm-problem';
@@ -43,38 +43,9 @@ export class NormalEquations implements KktSolver {
     private readonly settings: IpmSettings,
   ) {
     const { n, m, A } = prob;
-    const { colPtr: Ap, rowIdx: Ai } = A;
-    const limit = Math.max(settings.denseColumnMin, settings.denseColumnRatio * m);
-    const denseCols: number[] = [];
-    for (let j = 0; j < n; j++) if (Ap[j + 1] - Ap[j] > limit) denseCols.push(j);
-    denseCols.sort((a, b) => Ap[b + 1] - Ap[b] - (Ap[a + 1] - Ap[a]));
-    denseCols.length = Math.min(denseCols.length, settings.maxDenseColumns);
+    const { rows, cols, denseCols } = normalPattern(prob, settings);
     this.isDense = new Uint8Array(n);
     for (const j of denseCols) this.isDense[j] = 1;
-    let T = m;
-    for (let j = 0; j < n; j++) {
-      if (this.isDense[j]) continue;
-      const c = Ap[j + 1] - Ap[j];
-      T += (c * (c + 1)) / 2;
-    }
-    const rows = new Int32Array(T);
-    const cols = new Int32Array(T);
-    let t = 0;
-    for (let j = 0; j < n; j++) {
-      if (this.isDense[j]) continue;
-      for (let p = Ap[j]; p < Ap[j + 1]; p++) {
-        for (let q = p; q < Ap[j + 1]; q++) {
-          rows[t] = Ai[q];
-          cols[t] = Ai[p];
-          t++;
-        }
-      }
-    }
-    for (let i = 0; i < m; i++) {
-      rows[t] = i;
-      cols[t] = i;
-      t++;
-    }
     this.F = new SymmetricFactorisation(m, rows, cols, settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8, settings.parallelFactorisation);
     this.dense = denseCols.length > 0 ? new DenseColumnUpdate(m, A, Int32Array.from(denseCols)) : null;
     this.qdiag = qDiagonal(n, prob.Q);
@@ -85,6 +56,15 @@ export class NormalEquations implements KktSolver {
     this.corr = new Float64Array(m);
     this.best = new Float64Array(m);
     this.delta = settings.regDual;
+  }
+
+  /**
+   * Multiply–adds of one factorisation in the approximate-minimum-degree order, without building
+   * the factorisation (what the constructor's ordering reaches is at most this).
+   */
+  static estimateFlops(prob: IpmProblem, settings: IpmSettings): number {
+    const { rows, cols } = normalPattern(prob, settings);
+    return estimateFactorFlops(prob.m, rows, cols);
   }
 
   get nnzL(): number {
@@ -163,4 +143,45 @@ export class NormalEquations implements KktSolver {
     dy.set(best);
     recoverDirection(A, thetaX, thetaW, rhat, dy, dv);
   }
+}
+
+/**
+ * The pattern of A Aᵀ + I as a list of entries (lower triangle, with the diagonal), without the
+ * dense columns, which are split off (at most settings.maxDenseColumns, longest first).
+ */
+function normalPattern(prob: IpmProblem, settings: IpmSettings): { rows: Int32Array; cols: Int32Array; denseCols: number[] } {
+  const { n, m, A } = prob;
+  const { colPtr: Ap, rowIdx: Ai } = A;
+  const limit = Math.max(settings.denseColumnMin, settings.denseColumnRatio * m);
+  const denseCols: number[] = [];
+  for (let j = 0; j < n; j++) if (Ap[j + 1] - Ap[j] > limit) denseCols.push(j);
+  denseCols.sort((a, b) => Ap[b + 1] - Ap[b] - (Ap[a + 1] - Ap[a]));
+  denseCols.length = Math.min(denseCols.length, settings.maxDenseColumns);
+  const isDense = new Uint8Array(n);
+  for (const j of denseCols) isDense[j] = 1;
+  let T = m;
+  for (let j = 0; j < n; j++) {
+    if (isDense[j]) continue;
+    const c = Ap[j + 1] - Ap[j];
+    T += (c * (c + 1)) / 2;
+  }
+  const rows = new Int32Array(T);
+  const cols = new Int32Array(T);
+  let t = 0;
+  for (let j = 0; j < n; j++) {
+    if (isDense[j]) continue;
+    for (let p = Ap[j]; p < Ap[j + 1]; p++) {
+      for (let q = p; q < Ap[j + 1]; q++) {
+        rows[t] = Ai[q];
+        cols[t] = Ai[p];
+        t++;
+      }
+    }
+  }
+  for (let i = 0; i < m; i++) {
+    rows[t] = i;
+    cols[t] = i;
+    t++;
+  }
+  return { rows, cols, denseCols };
 }

@@ -182,6 +182,21 @@ export class SymmetricFactorisation {
   }
 }
 
+/**
+ * Multiply–adds of factorising the pattern (entries (rows[t], cols[t])) in the approximate minimum
+ * degree order, from the elimination tree's column counts alone: no symbolic factor, no arrays for
+ * values. The constructor's 'auto' ordering needs at most this many.
+ */
+export function estimateFactorFlops(n: number, rows: Int32Array, cols: Int32Array): number {
+  const [Ap, Ai] = patternCsc(n, rows, cols);
+  const up = permutedPattern(n, rows, cols, approximateMinimumDegree(n, Ap, Ai), 'upper');
+  const { colCount } = eliminationTree(n, up.Cp, up.Ci);
+  // as the supernodal symbolic factor counts them: (entries of column j with its diagonal)²
+  let f = 0;
+  for (let j = 0; j < n; j++) f += (colCount[j] + 1) * (colCount[j] + 1);
+  return f;
+}
+
 /** the upper-triangle pattern (CSC) of a lower-triangle pattern, i.e. its transpose */
 export function upperPattern(n: number, Lp: Int32Array, Li: Int32Array): { Cp: Int32Array; Ci: Int32Array } {
   const Cp = new Int32Array(n + 1);
