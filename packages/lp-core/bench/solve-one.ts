@@ -50,12 +50,18 @@ function denseTableauBytes(model: ReturnType<typeof toLpSolverModel>['model']): 
  * WebAssembly start-up is timed: the steady state a long-lived solver process (the API's solver
  * thread) runs in. A size-S planning LP of its own seed for the solvers that finish it (a tiny LP
  * of 3 products × 2 weeks left lp-core's kernels unoptimised: M's first solve took 1.3 s, its
- * second 0.97–1.05 s); javascript-lp-solver, which does not finish S, warms up on the tiny one.
+ * second 0.97–1.05 s); lp-core solves it twice, by Cholesky and by conjugate gradients (M, solved
+ * by CG, took 0.9–1.25 s after a Cholesky-only warm-up, 0.5–0.74 s when solved again);
+ * javascript-lp-solver, which does not finish S, warms up on the tiny one.
  */
 async function warmUp(request: BenchRequest): Promise<void> {
   const tiny = planningProblem({ products: 3, weeks: 2, workCenters: 1, materials: 2 }, 7, 'warm-up');
   const small = planningProblem(PLANNING_SIZES.S, WARM_UP_SEED, 'warm-up');
-  if (request.solver === 'lp-core') solve(small, LP_CORE_AS_IN_THE_API);
+  if (request.solver === 'lp-core') {
+    // both of its linear solvers: S itself is factorised; larger models take conjugate gradients
+    solve(small, LP_CORE_AS_IN_THE_API);
+    solve(small, { ...LP_CORE_AS_IN_THE_API, linearSolver: 'basis-cg' });
+  }
   else if (request.solver === 'lp-solver') solver.Solve(toLpSolverModel(tiny).model);
   else await solveWithHighs(small, { method: request.solver === 'highs-ipm' ? 'ipm' : 'simplex', crossover: false });
 }

@@ -14,9 +14,9 @@
  *  - then P = B Θ_B Bᵀ for a basis B of [A I] picked and improved by the weights
  *    (basis-preconditioner.ts), applied as P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r.
  * A step costs one product with A, one with Aᵀ and the preconditioner. CG stops when
- * ‖r‖∞ ≤ max(CG_TOLERANCE · (1 + ‖rhs‖∞), INEXACT · ‖rp‖∞, MU_TOLERANCE · √μ), keeping the
+ * ‖r‖∞ ≤ max(CG_TOLERANCE · (1 + ‖rhs‖∞), INEXACT · ‖rp‖∞, min(√μ, MU_TOLERANCE · μ/√μ₀)), keeping the
  * iterate with the smallest residual: the residual left is the direction's error in Â dv = rp,
- * which need only be small against rp and √μ while the iterate is far from feasible and optimal
+ * which need only be small against rp and μ while the iterate is far from feasible and optimal
  * (an inexact Newton step).
  */
 import type { IpmSettings } from '../settings';
@@ -36,14 +36,17 @@ import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from '.
 const CG_TOLERANCE = 1e-9;
 const INEXACT = 0.1;
 /**
- * CG may also stop at MU_TOLERANCE·√μ: while the iterate is far from optimal the direction need
- * not be more exact than the neighbourhood of the central path it aims at (the error is left in
- * the primal residual, which the termination test checks on the original problem). Measured from
- * the start with 'basis-cg': on L, 0 (off) took 7486 CG steps in 26 iterations (8.4–9.3 s),
- * 0.1 5239 in 27, 1 4891 in 27 (5.5 s), 3 4547 in 28 (5.6 s); on M, 1 took 2883 steps against 2974
- * with 0. Objectives within 1e-9 of each other throughout.
+ * CG may also stop at min(√μ, MU_TOLERANCE·μ/√μ₀) (μ₀ the first iterate's): while the iterate is
+ * far from optimal the direction need not be exact (its error is left in the primal residual,
+ * which the termination test checks on the original problem); the allowance shrinks with μ, so the
+ * primal residual keeps pace with the gap. Measured from the start with 'basis-cg' (CG steps,
+ * iterations): L without it 7486 in 26; with √μ alone 4891 in 27, but on XL the primal residual
+ * then lagged (gap 1e-8, residual 1e-7) and the solve ran on to μ = 1e-11, where the last
+ * iteration cost 29 s of exchanges (170 s in all); with 10·μ/√μ₀ alone L 4139 in 29 and XL 10928
+ * in 37 (158 s), but small random LPs ran into the iteration limit (the allowance is 10·√μ₀ at the
+ * start); with the minimum of both L 5441 in 27. Objectives within 1e-8 of each other.
  */
-const MU_TOLERANCE = 1;
+const MU_TOLERANCE = 10;
 /** a diagonally preconditioned solve that needs more steps than this switches to the basis */
 const DIAGONAL_STEPS = 300;
 /**
@@ -115,7 +118,9 @@ export class BasisCgSolver implements KktSolver {
   private readonly warmDy: Float64Array;
   private warm = false;
   private deadline = Infinity;
+  /** μ of this iteration and of the first */
   private mu = 0;
+  private mu0 = 0;
   /** sparse operations of CG so far */
   private work = 0;
   private direct: NormalEquations | null = null;
@@ -171,6 +176,7 @@ export class BasisCgSolver implements KktSolver {
   factorise(D: Float64Array, deadline = Infinity, mu = 0): KktStatus {
     this.iterations++;
     this.mu = mu;
+    if (this.mu0 === 0) this.mu0 = mu;
     this.deadline = deadline;
     const cgIterations = this.iterations - 1 - this.directIterations;
     if (this.fallBack && this.mode === 'basis' && this.cholesky && SPARSE_OPERATION_COST * this.work > cgIterations * this.cholesky.flops) this.fallBackToCholesky();
@@ -200,7 +206,8 @@ export class BasisCgSolver implements KktSolver {
     const { n, m, A } = this.prob;
     const { thetaX, thetaW, rhs } = this;
     normalRightHandSide(A, thetaX, thetaW, rhat, rp, rhs);
-    const target = Math.max(CG_TOLERANCE * (1 + maxAbs(rhs)), INEXACT * maxAbs(rp), MU_TOLERANCE * Math.sqrt(this.mu));
+    const muAllowance = this.mu0 > 0 ? Math.min(Math.sqrt(this.mu), (MU_TOLERANCE * this.mu) / Math.sqrt(this.mu0)) : 0;
+    const target = Math.max(CG_TOLERANCE * (1 + maxAbs(rhs)), INEXACT * maxAbs(rp), muAllowance);
     let steps: number;
     if (this.mode === 'diagonal') {
       steps = this.conjugateGradients(dy, target, DIAGONAL_STEPS);
@@ -213,6 +220,7 @@ export class BasisCgSolver implements KktSolver {
       }
     } else steps = Math.abs(this.conjugateGradients(dy, target, this.maxSteps));
     this.stats.steps.push(steps);
+
     // per step: products with A and Aᵀ, the preconditioner, five vector operations
     this.work += steps * (2 * A.colPtr[n] + (this.mode === 'basis' ? 2 * this.basis.nonzeros : m) + 5 * m);
     recoverDirection(A, thetaX, thetaW, rhat, dy, dv);
