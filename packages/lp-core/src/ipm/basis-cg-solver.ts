@@ -47,8 +47,13 @@ const INEXACT = 0.1;
  * start); with the minimum of both L 5441 in 27. Objectives within 1e-8 of each other.
  */
 const MU_TOLERANCE = 10;
-/** a diagonally preconditioned solve that needs more steps than this switches to the basis */
-const DIAGONAL_STEPS = 300;
+/**
+ * a diagonally preconditioned solve that needs more steps than this switches to the basis.
+ * Measured with CG from the start, 300 → 150: L 5441 → 3976 CG steps (time alike, more
+ * exchanges); M 3734 → 1816 steps (a second solve 0.75 → 0.58 s); XL 135 → 110 s; plan-model's
+ * 200 × 26 plant 18.4 → 19.2 s.
+ */
+const DIAGONAL_STEPS = 150;
 /**
  * exchanges per iteration: at least MAX_EXCHANGES and EXCHANGE_SHARE of the rows; the scaled entry
  * size they push under (2, as Schork & Gondzio). Measured on plan-model's generated 200 × 26 plant
@@ -57,6 +62,15 @@ const DIAGONAL_STEPS = 300;
  */
 const MAX_EXCHANGES = 400;
 const EXCHANGE_SHARE = 0.2;
+/**
+ * ... and, above MAX_EXCHANGES, at most this many per CG step of the previous iteration: an
+ * exchange costs a sparse solve with B and a share of the next fresh LU, on XL several times a CG
+ * step. Measured (whole solve): XL with up to a fifth of the rows 184 s (improving the basis 59 s,
+ * up to 2900 exchanges an iteration), with up to 1519 129 s (25 s), with 4 per step 135 s;
+ * plan-model's 200 × 26 plant with up to 400 27.6 s, 864 18.3 s, 3456 (a fifth) 16.4 s, 4 per
+ * step 18.4 s; L and M never reach the limits.
+ */
+const EXCHANGES_PER_STEP = 4;
 const VOLUME_TOLERANCE = 2;
 /** after the exchanges, B is factorised afresh if its updates hold more than this share of the LU's nonzeros */
 const UPDATE_SHARE = 0.1;
@@ -112,6 +126,9 @@ export class BasisCgSolver implements KktSolver {
   private readonly best: Float64Array;
   private readonly maxSteps: number;
   private readonly maxExchanges: number;
+  /** CG steps of the previous iteration's solves, and of this one's so far */
+  private lastIterationSteps = 0;
+  private iterationSteps = 0;
   private mode: 'direct' | 'diagonal' | 'basis';
   private iterations = 0;
   /** dy of the last solve, valid (warm) until the next factorise */
@@ -177,6 +194,8 @@ export class BasisCgSolver implements KktSolver {
     this.iterations++;
     this.mu = mu;
     if (this.mu0 === 0) this.mu0 = mu;
+    this.lastIterationSteps = this.iterationSteps;
+    this.iterationSteps = 0;
     this.deadline = deadline;
     const cgIterations = this.iterations - 1 - this.directIterations;
     if (this.fallBack && this.mode === 'basis' && this.cholesky && SPARSE_OPERATION_COST * this.work > cgIterations * this.cholesky.flops) this.fallBackToCholesky();
@@ -220,6 +239,7 @@ export class BasisCgSolver implements KktSolver {
       }
     } else steps = Math.abs(this.conjugateGradients(dy, target, this.maxSteps));
     this.stats.steps.push(steps);
+    this.iterationSteps += steps;
 
     // per step: products with A and Aᵀ, the preconditioner, five vector operations
     this.work += steps * (2 * A.colPtr[n] + (this.mode === 'basis' ? 2 * this.basis.nonzeros : m) + 5 * m);
@@ -264,7 +284,9 @@ export class BasisCgSolver implements KktSolver {
 
   private improveBasis(): void {
     const { m, n } = this.prob;
-    const report = this.basis.improve(this.weight, VOLUME_TOLERANCE, this.maxExchanges);
+    // exchanges are bought to save CG steps: at most EXCHANGES_PER_STEP per step of the last iteration
+    const limit = Math.min(this.maxExchanges, Math.max(MAX_EXCHANGES, EXCHANGES_PER_STEP * this.lastIterationSteps));
+    const report = this.basis.improve(this.weight, VOLUME_TOLERANCE, limit);
     this.basis.compact(UPDATE_SHARE);
     this.stats.exchanges.push(report.exchanges);
     // two estimate rounds over all columns, one solve and one scan per examined column
