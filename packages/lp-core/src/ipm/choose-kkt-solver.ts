@@ -19,9 +19,9 @@
  *  - M (2340 rows, estimated 3.6e8, 22000 per nonzero; 1.4e8 in the order the factorisation
  *    picks): Cholesky 0.55–0.75 s, CG 0.40–0.46 s;
  *  - L (12729 rows, 7.3e9 in the factorisation's order): Cholesky throughout 38–40 s; six
- *    Cholesky iterations then CG 13.8 s;
- *    CG from the start 7.5 s (26 iterations, 7434 CG steps);
- *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 17.3 s.
+ *    Cholesky iterations then CG 13.8 s; CG from the start 4.8–5.3 s (26 iterations, 3976 steps);
+ *  - XL (75920 rows): the first factorisation did not end within 300 s; CG from the start 110 s;
+ *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 16–19 s.
  * CG from the start used to stall (70 s for L's first iteration): the diagonal preconditioner
  * gave up at the starting point, where all weights are alike, and the basis then picked filled its
  * LU with millions of nonzeros. Now the first iteration keeps its inexact directions, the
