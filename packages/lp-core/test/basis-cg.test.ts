@@ -198,6 +198,15 @@ describe('the basis preconditioner', () => {
     return B;
   }
 
+  /** column j of Â = [A I], dense */
+  function denseColumn(p: Problem, j: number): Matrix {
+    const { m, n, colPtr, rowIdx, values } = p.A;
+    const a = Matrix.zeros(m, 1);
+    if (j >= n) a.set(j - n, 0, 1);
+    else for (let q = colPtr[j]; q < colPtr[j + 1]; q++) a.set(rowIdx[q], 0, values[q]);
+    return a;
+  }
+
   it('after the exchanges no scaled entry of B⁻¹N exceeds the tolerance, and B x = b, Bᵀ y = c match the dense solve', () => {
     const p = randomProblem(41, { rows: 60, cols: 90, perColumn: 4, kind: 'feasible' });
     const { m, n } = p.A;
@@ -212,9 +221,7 @@ describe('the basis preconditioner', () => {
     let worst = 0;
     for (let j = 0; j < n + m; j++) {
       if (basis.position[j] >= 0) continue;
-      const a = Matrix.zeros(m, 1);
-      if (j >= n) a.set(j - n, 0, 1);
-      else for (let q = p.A.colPtr[j]; q < p.A.colPtr[j + 1]; q++) a.set(p.A.rowIdx[q], 0, p.A.values[q]);
+      const a = denseColumn(p, j);
       const w = denseSolve(B, a).to1DArray();
       w.forEach((v, k) => (worst = Math.max(worst, (Math.abs(v) * Math.sqrt(weight[j])) / Math.sqrt(weight[basis.basic[k]]))));
     }
@@ -234,9 +241,7 @@ describe('the basis preconditioner', () => {
     let checked = 0;
     for (let j = 0; j < n + m; j++) {
       if (basis.position[j] >= 0) continue;
-      const a = Matrix.zeros(m, 1);
-      if (j >= n) a.set(j - n, 0, 1);
-      else for (let q = p.A.colPtr[j]; q < p.A.colPtr[j + 1]; q++) a.set(p.A.rowIdx[q], 0, p.A.values[q]);
+      const a = denseColumn(p, j);
       const ref = denseSolve(B, a).to1DArray();
       const w = new Float64Array(m);
       const pattern = new Int32Array(m);
