@@ -21,7 +21,10 @@
  *  - L (12729 rows, 7.3e9 in the factorisation's order): Cholesky throughout 38–40 s; six
  *    Cholesky iterations then CG 13.8 s; CG from the start 4.8–5.3 s (26 iterations, 3976 steps);
  *  - XL (75920 rows): the first factorisation did not end within 300 s; CG from the start 110 s;
- *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 16–19 s.
+ *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 16–19 s;
+ *  - the demo plant's 12-week plan (1142 rows, estimated 1.2e7, about 2000 per nonzero):
+ *    Cholesky 0.14–0.15 s, CG 0.18–0.21 s (steady state), hence CG_MIN_FLOPS 1e8, not 1e7 (with
+ *    1e7 the solve started on CG and fell back to Cholesky halfway).
  * CG from the start used to stall (70 s for L's first iteration): the diagonal preconditioner
  * gave up at the starting point, where all weights are alike, and the basis then picked filled its
  * LU with millions of nonzeros. Now the first iteration keeps its inexact directions, the
@@ -41,7 +44,7 @@ export const CHOLESKY_ITERATIONS = 6;
  * 'auto' takes CG when a factorisation costs at least CG_MIN_FLOPS multiply–adds and at least
  * CG_FLOPS_PER_NONZERO per nonzero of [A I] (what one CG step costs, roughly).
  */
-export const CG_MIN_FLOPS = 1e7;
+export const CG_MIN_FLOPS = 1e8;
 export const CG_FLOPS_PER_NONZERO = 2000;
 
 function prefersCg(prob: IpmProblem, flops: number): boolean {
