@@ -50,8 +50,9 @@ export interface IpmSettings {
    * how the Newton systems of an LP are solved (ipm/choose-kkt-solver.ts): 'cholesky' (sparse
    * Cholesky of the normal equations), 'basis-cg' (conjugate gradients with a diagonal, then a
    * basis preconditioner; no factorisation), 'cholesky-then-basis-cg' (Cholesky for the first six
-   * iterations, then basis-preconditioned CG), or 'auto': Cholesky unless one factorisation takes
-   * at least 2e9 multiply–adds (then 'cholesky-then-basis-cg') or the factor does not fit in
+   * iterations, then basis-preconditioned CG), or 'auto': Cholesky unless one factorisation,
+   * estimated in AMD order, takes at least 1e8 multiply–adds and 2000 per nonzero of [A I] (then
+   * 'basis-cg', back to Cholesky if CG costs more per iteration) or the factor does not fit in
    * maxFactorMegabytes (then 'basis-cg'). QPs always use a factorisation.
    */
   linearSolver: 'auto' | 'cholesky' | 'basis-cg' | 'cholesky-then-basis-cg';
