@@ -21,6 +21,7 @@
 import type { BarrierForm } from './barrier-form';
 import type { BarrierSettings } from './barrier-settings';
 import { DenseLu } from './dense-lu';
+import { dot } from '../vectors';
 
 export type CenteringOutcome = 'centred' | 'stopped' | 'stalled' | 'singular' | 'step_limit' | 'time_limit';
 
@@ -229,10 +230,4 @@ function symmetricTimes(P: Float64Array, n: number, v: Float64Array, out: Float6
     for (let j = 0; j < n; j++) s += P[i * n + j] * v[j];
     out[i] = s;
   }
-}
-
-export function dot(a: ArrayLike<number>, b: ArrayLike<number>): number {
-  let s = 0;
-  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
-  return s;
 }

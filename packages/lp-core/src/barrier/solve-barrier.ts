@@ -17,7 +17,8 @@ import { validateProblem } from '../validate';
 import type { SolveResult, SolveStatus } from '../solution/result';
 import { type BarrierForm, barrierForm, expandToColumns } from './barrier-form';
 import { type BarrierSettings, resolveBarrierSettings } from './barrier-settings';
-import { Centering, type CenteringOutcome, type NewtonBudget, dot } from './centering';
+import { Centering, type CenteringOutcome, type NewtonBudget } from './centering';
+import { dot } from '../vectors';
 import { findStrictlyFeasible } from './phase-one';
 
 export function solveBarrier(problem: Problem, overrides: Partial<BarrierSettings> = {}): SolveResult {

@@ -6,8 +6,8 @@
  *
  * Preconditioners, in turn:
  *  - optionally a Cholesky factorisation for the first `directIterations` iterations (the
- *    solver is then a NormalEquations); and, with `fallBack`, for the rest of the solve once an
- *    iteration of CG turns out to cost more than a factorisation (SPARSE_OPERATION_COST);
+ *    solver is then a NormalEquations); and, with `fallBack`, for the rest of the solve once CG
+ *    turns out to cost more per iteration than a factorisation (SPARSE_OPERATION_COST);
  *  - else the diagonal of the matrix, until a solve needs more than DIAGONAL_STEPS steps (at the
  *    starting point, where all weights are alike, a solve that needs more keeps its inexact
  *    direction instead: no basis would stand out yet);
@@ -26,6 +26,7 @@ import type { IpmProblem } from './ipm-problem';
 import type { NormalEquations } from './normal-equations';
 import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
 import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from './normal-matrix';
+import { dot } from '../vectors';
 
 /**
  * CG's relative residual target, and the fraction of the primal residual it may stop at.
@@ -240,7 +241,6 @@ export class BasisCgSolver implements KktSolver {
     } else steps = Math.abs(this.conjugateGradients(dy, target, this.maxSteps));
     this.stats.steps.push(steps);
     this.iterationSteps += steps;
-
     // per step: products with A and Aᵀ, the preconditioner, five vector operations
     this.work += steps * (2 * A.colPtr[n] + (this.mode === 'basis' ? 2 * this.basis.nonzeros : m) + 5 * m);
     recoverDirection(A, thetaX, thetaW, rhat, dy, dv);
@@ -371,10 +371,4 @@ export class BasisCgSolver implements KktSolver {
     dy.set(best);
     return converged ? steps : -steps;
   }
-}
-
-function dot(a: Float64Array, b: Float64Array): number {
-  let s = 0;
-  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
-  return s;
 }
