@@ -5,7 +5,7 @@
  */
 import { beforeEach, describe, expect, it } from 'vitest';
 import { Matrix, solve as denseSolve } from 'ml-matrix';
-import { SymmetricFactorisation, type Kernel, type Ordering } from '../src/sparse/symmetric-factorisation';
+import { SymmetricFactorisation, estimateFactorFlops, type Kernel, type Ordering } from '../src/sparse/symmetric-factorisation';
 import { cscFromTriplets, transpose, multiplyAx, multiplyATy } from '../src/sparse/csc';
 import { approximateMinimumDegree } from '../src/sparse/amd';
 import { nestedDissection } from '../src/sparse/nested-dissection';
@@ -248,5 +248,18 @@ describe('nested dissection (fill against the natural order; common practice, no
     const amd = new SymmetricFactorisation(n, rows, cols, 'amd');
     const nd = new SymmetricFactorisation(n, rows, cols, 'nd');
     expect(auto.flops).toBe(Math.min(amd.flops, nd.flops));
+  });
+  it('the flops estimate in AMD order needs no factorisation, and its order, handed on, gives the factorisation AMD itself gives', () => {
+    const rows = Int32Array.from(edges.map((e) => e[0]).concat(Array.from({ length: n }, (_, i) => i)));
+    const cols = Int32Array.from(edges.map((e) => e[1]).concat(Array.from({ length: n }, (_, i) => i)));
+    const estimate = estimateFactorFlops(n, rows, cols);
+    expect([...estimate.order].sort((a, b) => a - b)).toEqual([...Array(n).keys()]);
+    const amd = new SymmetricFactorisation(n, rows, cols, 'amd');
+    const reused = new SymmetricFactorisation(n, rows, cols, 'amd', 'supernodal', Infinity, false, estimate.order);
+    expect([...reused.perm]).toEqual([...amd.perm]);
+    expect(reused.flops).toBe(amd.flops);
+    // column counts squared with the diagonal: no more than the supernodal count, which may add explicit zeros
+    expect(estimate.flops).toBeGreaterThan(0);
+    expect(estimate.flops).toBeLessThanOrEqual(amd.flops);
   });
 });

@@ -56,13 +56,14 @@ export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSol
   const lp = !prob.Q;
   const choice = lp ? settings.linearSolver : 'cholesky';
   if (choice === 'basis-cg') return new BasisCgSolver(prob, settings);
-  if (choice === 'auto') {
-    const flops = NormalEquations.estimateFlops(prob, settings);
-    if (prefersCg(prob, flops)) return new BasisCgSolver(prob, settings, { flops, create: () => new NormalEquations(prob, settings) }, 0, true);
+  const estimate = choice === 'auto' ? NormalEquations.estimateFlops(prob, settings) : null;
+  const order = estimate?.order ?? null;
+  if (estimate && prefersCg(prob, estimate.flops)) {
+    return new BasisCgSolver(prob, settings, { flops: estimate.flops, create: () => new NormalEquations(prob, settings, order) }, 0, true);
   }
   let direct: NormalEquations;
   try {
-    direct = new NormalEquations(prob, settings);
+    direct = new NormalEquations(prob, settings, order);
   } catch (err) {
     if (err instanceof FactorTooLargeError && choice === 'auto') return new BasisCgSolver(prob, settings);
     throw err;

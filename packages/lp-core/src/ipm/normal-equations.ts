@@ -41,12 +41,14 @@ export class NormalEquations implements KktSolver {
   constructor(
     private readonly prob: IpmProblem,
     private readonly settings: IpmSettings,
+    /** the AMD order of the normal matrix's pattern, if estimateFlops already computed it */
+    amdOrder: Int32Array | null = null,
   ) {
     const { n, m, A } = prob;
     const { rows, cols, denseCols } = normalPattern(prob, settings);
     this.isDense = new Uint8Array(n);
     for (const j of denseCols) this.isDense[j] = 1;
-    this.F = new SymmetricFactorisation(m, rows, cols, settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8, settings.parallelFactorisation);
+    this.F = new SymmetricFactorisation(m, rows, cols, settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8, settings.parallelFactorisation, amdOrder);
     this.dense = denseCols.length > 0 ? new DenseColumnUpdate(m, A, Int32Array.from(denseCols)) : null;
     this.qdiag = qDiagonal(n, prob.Q);
     this.thetaX = new Float64Array(n);
@@ -59,10 +61,10 @@ export class NormalEquations implements KktSolver {
   }
 
   /**
-   * Multiply–adds of one factorisation in the approximate-minimum-degree order, without building
-   * the factorisation (what the constructor's ordering reaches is at most this).
+   * Multiply–adds of one factorisation, estimated in the approximate-minimum-degree order without
+   * building the factorisation (see estimateFactorFlops), and that order for the constructor.
    */
-  static estimateFlops(prob: IpmProblem, settings: IpmSettings): number {
+  static estimateFlops(prob: IpmProblem, settings: IpmSettings): { flops: number; order: Int32Array } {
     const { rows, cols } = normalPattern(prob, settings);
     return estimateFactorFlops(prob.m, rows, cols);
   }
