@@ -14,7 +14,8 @@
  *    then an exact column (one solve with B) picks the position;
  *  - exchanges are kept as product-form updates (B_new⁻¹ = E⁻¹B⁻¹, one eta column each) until
  *    `maxUpdates`, or until the updates hold more nonzeros than the factors, then B is factorised
- *    afresh, slacks and short columns first (fewer fill-ins).
+ *    afresh: slacks first, the structural columns in a fill-reducing order (column-ordering.ts),
+ *    pivots in short rows where threshold pivoting allows.
  */
 import type { CscMatrix } from '../problem/problem';
 import { columnOrder } from '../sparse/column-ordering';

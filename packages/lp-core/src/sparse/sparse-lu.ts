@@ -6,7 +6,8 @@
  *
  * Column k is offered as a sparse vector b; x = L⁻¹b is computed by a sparse triangular solve that
  * visits only the rows reachable from b's pattern (a depth-first search in L's graph); the largest
- * entry of x in a row not yet pivoted becomes the pivot. A column whose candidates are all below
+ * entry of x in a row not yet pivoted becomes the pivot, or, given a cost per row, the cheapest row
+ * whose entry is within PIVOT_THRESHOLD of the largest (threshold pivoting). A column whose candidates are all below
  * `dependenceTolerance` · ‖b‖∞ lies (numerically) in the span of the columns already taken and is
  * refused, which leaves the factorisation as it was: offering columns in order of preference
  * therefore picks the preferred basis greedily.
@@ -14,7 +15,8 @@
  * With the accepted columns as B (column k = the k-th accepted one) and P the row permutation,
  * P B = L U. L is unit lower triangular, stored by column with original row numbers (its first
  * entry the pivot row); U is upper triangular, stored by column with step numbers (the diagonal
- * last).
+ * last). solveSparse solves with a sparse right-hand side the same way, by reach in L's and U's
+ * graphs.
  */
 /** threshold partial pivoting: a pivot may be this fraction of the column's largest candidate */
 const PIVOT_THRESHOLD = 0.1;
