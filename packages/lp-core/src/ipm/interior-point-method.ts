@@ -310,6 +310,18 @@ export function interiorPointMethod(prob: IpmProblem, settings: IpmSettings, clo
       d.zl[j] = hasLower(k) ? (rl[j] - it.zl[j] * d.v[j]) / (it.v[j] - lower[j]) : 0;
       d.zu[j] = hasUpper(k) ? (ru[j] + it.zu[j] * d.v[j]) / (upper[j] - it.v[j]) : 0;
     }
+    const shift = kkt.complementarityShift;
+    if (shift) {
+      // the dual equation dz_l − dz_u = … holds again; the error goes to the bound whose
+      // complementarity product matters more (the nearer one)
+      for (let j = 0; j < N; j++) {
+        const e = shift[j];
+        const k = kind[j];
+        if (e === 0 || k === FIXED) continue;
+        if (hasLower(k) && (!hasUpper(k) || it.zl[j] * (upper[j] - it.v[j]) >= it.zu[j] * (it.v[j] - lower[j]))) d.zl[j] += e;
+        else if (hasUpper(k)) d.zu[j] -= e;
+      }
+    }
   }
 
   /** average complementarity after steps aP, aD along d */

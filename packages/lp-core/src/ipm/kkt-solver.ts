@@ -18,6 +18,12 @@ export interface KktSolver {
   /** Gondzio correctors worth their cost with this solver (undefined: as many as the settings allow) */
   readonly correctorLimit?: number;
   /**
+   * After solve(): per column, e_j = D_j dv_j − (r̂_j + Âᵀ_j dy) where the solver chose dv_j to
+   * satisfy Â dv = rp exactly instead of the first block equation (null or absent: none). The
+   * caller adds e_j to dz_j, which moves the error into the complementarity equation.
+   */
+  readonly complementarityShift?: Float64Array | null;
+  /**
    * deadline: performance.now() value after which the factorisation gives up ('interrupted');
    * mu: the iterate's complementarity (an iterative solver may stop sooner while it is large)
    */
