@@ -167,6 +167,57 @@ describe('one Newton system solved both ways', () => {
   });
 });
 
+describe('a step with the basis preconditioner is primal-feasible however early CG stops', () => {
+  it('Â dv = rp to rounding, and the complementarity shift is D dv − (r̂ + Âᵀdy) on the basic columns only', () => {
+    const p = randomProblem(45, { rows: 60, cols: 90, perColumn: 4, kind: 'feasible' });
+    const prob = ipmForm(p);
+    const { m, n, colPtr, rowIdx, values } = p.A;
+    const rng = new SeededRandom(11);
+    const D = Float64Array.from({ length: n + m }, () => 10 ** rng.uniform(-4, 4));
+    const rhat = Float64Array.from({ length: n + m }, () => rng.uniform(-1, 1));
+    const rp = Float64Array.from({ length: m }, () => rng.uniform(-1, 1));
+    const cg = new BasisCgSolver(prob, resolveSettings(), choleskyOf(prob), 1);
+    cg.factorise(D);
+    // a large μ: CG may stop at 0.3·√μ on the scaled residual, far from the exact solution
+    cg.factorise(D, Infinity, 100);
+    expect(cg.preconditioner).toBe('basis');
+    const dv = new Float64Array(n + m);
+    const dy = new Float64Array(m);
+    cg.solve(rhat, rp, dv, dy);
+    const shift = cg.complementarityShift!;
+    expect(shift).not.toBeNull();
+    // Â = [A −I]: the primal residual of the step
+    const primal = (v: Float64Array) => {
+      const r = Float64Array.from(rp, (b, i) => b + v[n + i]);
+      for (let j = 0; j < n; j++) for (let q = colPtr[j]; q < colPtr[j + 1]; q++) r[rowIdx[q]] -= values[q] * v[j];
+      return Math.max(...r.map(Math.abs));
+    };
+    expect(primal(dv)).toBeLessThanOrEqual(1e-10);
+    // the first block equation's error e_j = D_j dv_j − (r̂_j + Âᵀ_j dy), column by column
+    const firstBlock = Float64Array.from({ length: n + m }, (_, j) => {
+      if (j >= n) return D[j] * dv[j] - (rhat[j] - dy[j - n]);
+      let s = rhat[j];
+      for (let q = colPtr[j]; q < colPtr[j + 1]; q++) s += values[q] * dy[rowIdx[q]];
+      return D[j] * dv[j] - s;
+    });
+    let basic = 0;
+    for (let j = 0; j < n + m; j++) {
+      expect(Math.abs(shift[j] - firstBlock[j])).toBeLessThanOrEqual(1e-8 * (1 + Math.abs(firstBlock[j])));
+      if (shift[j] !== 0) basic++;
+    }
+    expect(basic).toBeGreaterThan(0);
+    expect(basic).toBeLessThanOrEqual(m);
+    // the test means something only if CG did stop early: dv from dy alone misses rp
+    const fromDy = Float64Array.from({ length: n + m }, (_, j) => (firstBlock[j] === 0 ? dv[j] : dv[j] - firstBlock[j] / D[j]));
+    expect(primal(fromDy)).toBeGreaterThan(1e-6);
+    // a Cholesky solve leaves no shift
+    const direct = new BasisCgSolver(prob, resolveSettings(), choleskyOf(prob), 5);
+    direct.factorise(D);
+    direct.solve(rhat, rp, dv, dy);
+    expect(direct.complementarityShift).toBeNull();
+  });
+});
+
 describe("'auto' picks the linear solver by what a factorisation costs", () => {
   // thresholds: CG_MIN_FLOPS and CG_FLOPS_PER_NONZERO in choose-kkt-solver.ts
   it('planning LP of the benchmark\'s S size (about 4e5 multiply–adds a factorisation): Cholesky', () => {
