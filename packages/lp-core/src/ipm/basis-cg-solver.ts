@@ -12,9 +12,11 @@
  *    starting point, where all weights are alike, a solve that needs more keeps its inexact
  *    direction instead: no basis would stand out yet);
  *  - then P = B Θ_B Bᵀ for a basis B of [A I] picked and improved by the weights
- *    (basis-preconditioner.ts), applied as P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r.
- * A step costs one product with A, one with Aᵀ and the preconditioner. CG keeps the iterate with
- * the smallest residual r and stops
+ *    (basis-preconditioner.ts); CG then runs on the split system I + W Wᵀ, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2}
+ *    (the same iterates as with P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r on the normal equations).
+ * A step costs one product with A and one with Aᵀ and the diagonal, or, with the basis, one with N
+ * and one with Nᵀ and a solve with B and with Bᵀ (measured on L: 0.54–0.76 ms against 0.77–0.97 ms
+ * for the normal equations and P⁻¹). CG keeps the iterate with the smallest residual r and stops
  *  - with the diagonal preconditioner when ‖r‖∞ ≤ max(CG_TOLERANCE · (1 + ‖rhs‖∞), INEXACT · ‖rp‖∞,
  *    min(√μ, MU_TOLERANCE · μ/√μ₀)): the residual left is the direction's error in Â dv = rp, which
  *    need only be small against rp and μ while the iterate is far from feasible and optimal (an
@@ -144,6 +146,14 @@ export class BasisCgSolver implements KktSolver {
   /** see complementarityShift */
   private readonly shift: Float64Array;
   private shifted = false;
+  // the split system: CG's iterate u (by position), B⁻ᵀ work by row, the nonbasic structural
+  // columns, the nonbasic slacks' weights (0 for basic ones), and N's nonzeros
+  private readonly u: Float64Array;
+  private readonly warmU: Float64Array;
+  private readonly splitRow: Float64Array;
+  private nonbasic: Int32Array = new Int32Array(0);
+  private readonly nonbasicSlackWeight: Float64Array;
+  private nonbasicNonzeros = 0;
   private readonly maxSteps: number;
   private readonly maxExchanges: number;
   /** CG steps of the previous iteration's solves, and of this one's so far */
@@ -154,6 +164,8 @@ export class BasisCgSolver implements KktSolver {
   /** dy of the last solve, valid (warm) until the next factorise */
   private readonly warmDy: Float64Array;
   private warm = false;
+  /** the mode of the solve that left warmDy (diagonal) or warmU (basis) */
+  private warmMode: 'direct' | 'diagonal' | 'basis' = 'diagonal';
   private deadline = Infinity;
   /** μ of this iteration and of the first */
   private mu = 0;
@@ -189,6 +201,10 @@ export class BasisCgSolver implements KktSolver {
     this.invSqrtBasic = new Float64Array(m);
     this.gap = new Float64Array(m);
     this.shift = new Float64Array(n + m);
+    this.u = new Float64Array(m);
+    this.warmU = new Float64Array(m);
+    this.splitRow = new Float64Array(m);
+    this.nonbasicSlackWeight = new Float64Array(m);
     this.warmDy = new Float64Array(m);
     this.maxSteps = Math.max(500, Math.min(5000, m));
     this.maxExchanges = Math.max(MAX_EXCHANGES, Math.ceil(m * EXCHANGE_SHARE));
@@ -269,26 +285,18 @@ export class BasisCgSolver implements KktSolver {
       if (steps < 0 && this.iterations === 1) steps = -steps;
       else if (steps < 0) {
         this.switchToBasis();
-        steps = DIAGONAL_STEPS + Math.abs(this.conjugateGradients(dy, this.basisTarget(), this.maxSteps));
+        steps = DIAGONAL_STEPS + Math.abs(this.splitConjugateGradients(dy, this.maxSteps));
       }
-    } else steps = Math.abs(this.conjugateGradients(dy, this.basisTarget(), this.maxSteps));
+    } else steps = Math.abs(this.splitConjugateGradients(dy, this.maxSteps));
     this.stats.steps.push(steps);
     this.iterationSteps += steps;
-    // per step: products with A and Aᵀ, the preconditioner, five vector operations
-    this.work += steps * (2 * A.colPtr[n] + (this.mode === 'basis' ? 2 * this.basis.nonzeros : m) + 5 * m);
+    // per step: products with A and Aᵀ (with the basis: N and Nᵀ and solves with B), vector operations
+    this.work += steps * (this.mode === 'basis' ? 2 * this.nonbasicNonzeros + 2 * this.basis.nonzeros + 5 * m : 2 * A.colPtr[n] + 6 * m);
     recoverDirection(A, thetaX, thetaW, rhat, dy, dv);
     if (this.mode === 'basis') this.exactPrimal(rp, dv);
     this.warmDy.set(dy);
     this.warm = true;
-  }
-
-  /**
-   * CG's target with the basis preconditioner, on the scaled residual ‖Θ_B^{-1/2} B⁻¹ r‖∞ (the
-   * error exactPrimal moves into the complementarity equations, relative to √(x z)): KKT_TOLERANCE·√μ
-   * as in Schork & Gondzio's implementation, but not below CG_TOLERANCE of the scaled right-hand side.
-   */
-  private basisTarget(): number {
-    return Math.max(KKT_TOLERANCE * Math.sqrt(this.mu), CG_TOLERANCE * (1 + this.scaledNorm(this.rhs)));
+    this.warmMode = this.mode;
   }
 
   /**
@@ -365,8 +373,21 @@ export class BasisCgSolver implements KktSolver {
     const limit = Math.min(this.maxExchanges, Math.max(MAX_EXCHANGES, EXCHANGES_PER_STEP * this.lastIterationSteps));
     const report = this.basis.improve(this.weight, VOLUME_TOLERANCE, limit);
     this.basis.compact(UPDATE_SHARE);
-    const { basic } = this.basis;
+    const { basic, position } = this.basis;
     for (let k = 0; k < m; k++) this.invSqrtBasic[k] = 1 / Math.sqrt(this.weight[basic[k]]);
+    const { colPtr } = this.prob.A;
+    let count = 0;
+    let nonzeros = 0;
+    for (let j = 0; j < n; j++) if (position[j] < 0 && this.weight[j] > 0) count++;
+    if (this.nonbasic.length !== count) this.nonbasic = new Int32Array(count);
+    count = 0;
+    for (let j = 0; j < n; j++) {
+      if (position[j] >= 0 || !(this.weight[j] > 0)) continue;
+      this.nonbasic[count++] = j;
+      nonzeros += colPtr[j + 1] - colPtr[j];
+    }
+    this.nonbasicNonzeros = nonzeros;
+    for (let i = 0; i < m; i++) this.nonbasicSlackWeight[i] = position[n + i] < 0 ? this.weight[n + i] : 0;
     this.stats.exchanges.push(report.exchanges);
     // two estimate rounds over all columns, one solve and one scan per examined column
     this.work += 2 * (this.prob.A.colPtr[n] + n + m) + report.examined * (this.basis.nonzeros + m);
@@ -377,60 +398,29 @@ export class BasisCgSolver implements KktSolver {
     multiplyNormal(this.prob.A, this.thetaX, this.slackWeight, x, out);
   }
 
-  /** z ← P⁻¹ r; with the basis, returns the scaled residual ‖Θ_B^{-1/2} B⁻¹ r‖∞ on the way */
-  private precondition(r: Float64Array, z: Float64Array): number {
-    if (this.mode === 'diagonal') {
-      for (let i = 0; i < z.length; i++) z[i] = r[i] / this.diagonal[i];
-      return NaN;
-    }
-    z.set(r);
-    this.basis.ftran(z);
-    const { invSqrtBasic } = this;
-    let norm = 0;
-    for (let k = 0; k < z.length; k++) {
-      const s = z[k] * invSqrtBasic[k];
-      const a = Math.abs(s);
-      if (a > norm || a !== a) norm = a !== a ? Infinity : a;
-      z[k] = s * invSqrtBasic[k];
-    }
-    this.basis.btran(z);
-    return norm;
-  }
-
-  /** ‖Θ_B^{-1/2} B⁻¹ r‖∞ */
-  private scaledNorm(r: Float64Array): number {
-    const { gap, invSqrtBasic } = this;
-    gap.set(r);
-    this.basis.ftran(gap);
-    let norm = 0;
-    for (let k = 0; k < gap.length; k++) {
-      const a = Math.abs(gap[k] * invSqrtBasic[k]);
-      if (a > norm || a !== a) norm = a !== a ? Infinity : a;
-    }
-    return norm;
+  /** z ← P⁻¹ r, P the diagonal of the matrix */
+  private precondition(r: Float64Array, z: Float64Array): void {
+    for (let i = 0; i < z.length; i++) z[i] = r[i] / this.diagonal[i];
   }
 
   /**
-   * dy ← the CG iterate with the smallest residual on (A Θ_x Aᵀ + Θ_w + δI) dy = rhs, started
-   * from P⁻¹ rhs (exact when N carries no weight) or from the previous solve's dy of the same
+   * Diagonally preconditioned CG: dy ← the iterate with the smallest residual ‖r‖∞ on
+   * (A Θ_x Aᵀ + Θ_w + δI) dy = rhs, started from P⁻¹ rhs or from the previous solve's dy of the same
    * iteration, whichever leaves the smaller residual. Returns the steps taken, negated when `limit`
    * steps (or the deadline) came first.
    */
   private conjugateGradients(dy: Float64Array, target: number, limit: number): number {
     const { m } = this.prob;
     const { rhs, r, z, p, q, best } = this;
-    // with the basis the residual is measured scaled (basisTarget), else as it is
-    const scaled = this.mode === 'basis';
-    const measure = (v: Float64Array) => (scaled ? this.scaledNorm(v) : maxAbs(v));
     this.precondition(rhs, dy);
     this.multiply(dy, q);
     for (let i = 0; i < m; i++) r[i] = rhs[i] - q[i];
-    let bestNorm = measure(r);
-    if (this.warm) {
+    let bestNorm = maxAbs(r);
+    if (this.warm && this.warmMode === 'diagonal') {
       // the previous solve of this iteration (predictor, corrector) is often closer
       this.multiply(this.warmDy, q);
       for (let i = 0; i < m; i++) q[i] = rhs[i] - q[i];
-      const warmNorm = measure(q);
+      const warmNorm = maxAbs(q);
       if (warmNorm < bestNorm) {
         bestNorm = warmNorm;
         r.set(q);
@@ -454,8 +444,7 @@ export class BasisCgSolver implements KktSolver {
         dy[i] += alpha * p[i];
         r[i] -= alpha * q[i];
       }
-      // the scaled norm comes with the preconditioner's solve with B; the plain one before it
-      const norm = scaled ? this.precondition(r, z) : maxAbs(r);
+      const norm = maxAbs(r);
       if (norm < bestNorm) {
         bestNorm = norm;
         best.set(dy);
@@ -465,7 +454,7 @@ export class BasisCgSolver implements KktSolver {
         break;
       }
       if ((steps & 63) === 0 && performance.now() > this.deadline) break;
-      if (!scaled) this.precondition(r, z);
+      this.precondition(r, z);
       const rzNext = dot(r, z);
       const beta = rzNext / rz;
       rz = rzNext;
@@ -473,5 +462,100 @@ export class BasisCgSolver implements KktSolver {
     }
     dy.set(best);
     return converged ? steps : -steps;
+  }
+
+  /**
+   * CG with the basis, on the split system (I + W Wᵀ) u = Θ_B^{-1/2} B⁻¹ rhs, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2},
+   * u = Θ_B^{1/2} Bᵀ dy: the same iterates as CG on the normal equations preconditioned by B Θ_B Bᵀ,
+   * but a step multiplies by N and Nᵀ only (the basic columns' share of A is left out: a third of
+   * L's nonzeros), and the residual is the scaled one the stopping rule measures. Starts from
+   * u = Θ_B^{-1/2} B⁻¹ rhs (exact when N carries no weight) or from the previous solve's u of this
+   * iteration, whichever leaves the smaller residual; stops at
+   * max(KKT_TOLERANCE·√μ, CG_TOLERANCE·(1 + ‖Θ_B^{-1/2} B⁻¹ rhs‖∞)). dy ← B⁻ᵀ Θ_B^{-1/2} u of the
+   * iterate with the smallest residual. Returns the steps taken, negated when `limit` steps (or the
+   * deadline) came first.
+   */
+  private splitConjugateGradients(dy: Float64Array, limit: number): number {
+    const { m } = this.prob;
+    const { rhs, r, p, q, best, u, invSqrtBasic } = this;
+    const rhsSplit = this.gap;
+    rhsSplit.set(rhs);
+    this.basis.ftran(rhsSplit);
+    for (let k = 0; k < m; k++) rhsSplit[k] *= invSqrtBasic[k];
+    const target = Math.max(KKT_TOLERANCE * Math.sqrt(this.mu), CG_TOLERANCE * (1 + maxAbs(rhsSplit)));
+    u.set(rhsSplit);
+    this.applySplit(u, q);
+    for (let k = 0; k < m; k++) r[k] = rhsSplit[k] - q[k];
+    let bestNorm = maxAbs(r);
+    if (this.warm && this.warmMode === 'basis') {
+      this.applySplit(this.warmU, q);
+      for (let k = 0; k < m; k++) q[k] = rhsSplit[k] - q[k];
+      const warmNorm = maxAbs(q);
+      if (warmNorm < bestNorm) {
+        bestNorm = warmNorm;
+        r.set(q);
+        u.set(this.warmU);
+      }
+    }
+    best.set(u);
+    let steps = 0;
+    let converged = !(bestNorm > target);
+    if (!converged) {
+      p.set(r);
+      let rr = dot(r, r);
+      while (steps < limit) {
+        steps++;
+        this.applySplit(p, q);
+        const pq = dot(p, q);
+        if (!(pq > 0)) break;
+        const alpha = rr / pq;
+        for (let k = 0; k < m; k++) {
+          u[k] += alpha * p[k];
+          r[k] -= alpha * q[k];
+        }
+        const norm = maxAbs(r);
+        if (norm < bestNorm) {
+          bestNorm = norm;
+          best.set(u);
+        }
+        if (norm <= target) {
+          converged = true;
+          break;
+        }
+        if ((steps & 63) === 0 && performance.now() > this.deadline) break;
+        const rrNext = dot(r, r);
+        const beta = rrNext / rr;
+        rr = rrNext;
+        for (let k = 0; k < m; k++) p[k] = r[k] + beta * p[k];
+      }
+    }
+    this.warmU.set(best);
+    for (let k = 0; k < m; k++) dy[k] = best[k] * invSqrtBasic[k];
+    this.basis.btran(dy);
+    return converged ? steps : -steps;
+  }
+
+  /** out ← (I + W Wᵀ) x, x and out by basis position */
+  private applySplit(x: Float64Array, out: Float64Array): void {
+    const { m, A } = this.prob;
+    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
+    const { splitRow: g, weight, invSqrtBasic, nonbasic } = this;
+    // g = B⁻ᵀ Θ_B^{-1/2} x (by row), then out = N Θ_N Nᵀ g (by row)
+    for (let k = 0; k < m; k++) g[k] = x[k] * invSqrtBasic[k];
+    this.basis.btran(g);
+    const slackWeight = this.nonbasicSlackWeight;
+    for (let i = 0; i < m; i++) out[i] = slackWeight[i] * g[i];
+    for (let c = 0; c < nonbasic.length; c++) {
+      const j = nonbasic[c];
+      const p1 = Ap[j + 1];
+      let s = 0;
+      for (let q = Ap[j]; q < p1; q++) s += Ax[q] * g[Ai[q]];
+      s *= weight[j];
+      if (s === 0) continue;
+      for (let q = Ap[j]; q < p1; q++) out[Ai[q]] += Ax[q] * s;
+    }
+    // out = x + Θ_B^{-1/2} B⁻¹ out (by position)
+    this.basis.ftran(out);
+    for (let k = 0; k < m; k++) out[k] = x[k] + out[k] * invSqrtBasic[k];
   }
 }
