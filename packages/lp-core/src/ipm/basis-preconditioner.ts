@@ -43,6 +43,12 @@ const CANDIDATE_FACTOR = 2;
  * factorisation (AMD on BᵀB, then the LU: ~0.28 s) every 100 of them, 8 s of the iteration.
  */
 const MAX_UPDATES = 1000;
+/**
+ * a fresh LU keeps the columns' positions while it has at most this many times the nonzeros it had
+ * in the last fill-reducing order (computing that order, AMD on BᵀB, cost bench L 263 of the 352 ms
+ * its 37 refactorisations took)
+ */
+const REORDER_GROWTH = 1.2;
 /** a column whose new pivot is below this fraction of its largest entry is taken as dependent */
 const DEPENDENCE_TOLERANCE = 1e-7;
 
@@ -81,6 +87,8 @@ export class BasisPreconditioner {
   /** ftranColumn's marks of the positions in its pattern */
   private readonly seen: Int32Array;
   private seenStamp = 0;
+  /** the LU's nonzeros when the columns were last put in a fill-reducing order (0: never) */
+  private orderedNonzeros = 0;
   /** nonzeros of each row of A: the LU pivots in short rows where it can (less fill) */
   private readonly rowCount: Int32Array;
 
@@ -124,17 +132,36 @@ export class BasisPreconditioner {
     this.position.fill(-1);
     for (let q = 0; q < N && lu.rank < this.m; q++) this.offer(lu, order[q]);
     this.install(lu);
+    this.orderedNonzeros = 0;
   }
 
-  /** Factorises the current basis afresh, its columns in a fill-reducing order. */
+  /**
+   * Factorises the current basis afresh. The columns keep their positions (the last fill-reducing
+   * order, exchanged columns in the place of the ones they replaced) while the LU stays within
+   * REORDER_GROWTH of the nonzeros it had in that order; past that, or the first time, they are
+   * put in a fill-reducing order again.
+   */
   refactor(): void {
-    const cols = this.fillReducingOrder(Array.from(this.basic));
+    if (this.orderedNonzeros > 0) {
+      const lu = this.factorIn(Array.from(this.basic));
+      if (lu.nonzeros <= REORDER_GROWTH * this.orderedNonzeros) {
+        this.install(lu);
+        return;
+      }
+    }
+    const lu = this.factorIn(this.fillReducingOrder(Array.from(this.basic)));
+    this.orderedNonzeros = Math.max(lu.nonzeros, this.m);
+    this.install(lu);
+  }
+
+  /** an LU of the basis with its columns in the given order, positions assigned as they are taken */
+  private factorIn(cols: number[]): SparseLu {
     const lu = new SparseLu(this.m, Math.max(4 * this.m, this.lu.nonzeros), this.rowCount);
     this.position.fill(-1);
     for (const j of cols) this.offer(lu, j);
     // columns refused as dependent (rounding after many exchanges) give way to slacks
     for (let i = 0; i < this.m && lu.rank < this.m; i++) if (lu.pinv[i] < 0) this.offer(lu, this.n + i);
-    this.install(lu);
+    return lu;
   }
 
   /** columns of Â in the order of columnOrder (slacks first: they cause no fill) */
