@@ -44,11 +44,13 @@ const CANDIDATE_FACTOR = 2;
  */
 const MAX_UPDATES = 1000;
 /**
- * a fresh LU keeps the columns' positions while it has at most this many times the nonzeros it had
- * in the last fill-reducing order (computing that order, AMD on BᵀB, cost bench L 263 of the 352 ms
- * its 37 refactorisations took)
+ * a fresh LU keeps the columns' positions until this share of them has been exchanged since the
+ * last fill-reducing order (computing that order, AMD on BᵀB, took bench L 263 of the 352 ms of its
+ * 37 refactorisations). Measured with a bound on the LU's growth instead (reorder past 1.2× the
+ * nonzeros): L's refactorisations 352 → 169–195 ms, but XL's LU grew from 0.5 M to 0.67 M nonzeros
+ * in the last iterations and each failed attempt cost a second LU.
  */
-const REORDER_GROWTH = 1.2;
+const REORDER_SHARE = 0.05;
 /** a column whose new pivot is below this fraction of its largest entry is taken as dependent */
 const DEPENDENCE_TOLERANCE = 1e-7;
 
@@ -87,8 +89,8 @@ export class BasisPreconditioner {
   /** ftranColumn's marks of the positions in its pattern */
   private readonly seen: Int32Array;
   private seenStamp = 0;
-  /** the LU's nonzeros when the columns were last put in a fill-reducing order (0: never) */
-  private orderedNonzeros = 0;
+  /** columns exchanged since the columns were last put in a fill-reducing order (−1: never) */
+  private exchangedSinceOrder = -1;
   /** nonzeros of each row of A: the LU pivots in short rows where it can (less fill) */
   private readonly rowCount: Int32Array;
 
@@ -132,26 +134,20 @@ export class BasisPreconditioner {
     this.position.fill(-1);
     for (let q = 0; q < N && lu.rank < this.m; q++) this.offer(lu, order[q]);
     this.install(lu);
-    this.orderedNonzeros = 0;
+    this.exchangedSinceOrder = -1;
   }
 
   /**
    * Factorises the current basis afresh. The columns keep their positions (the last fill-reducing
-   * order, exchanged columns in the place of the ones they replaced) while the LU stays within
-   * REORDER_GROWTH of the nonzeros it had in that order; past that, or the first time, they are
-   * put in a fill-reducing order again.
+   * order, exchanged columns in the place of the ones they replaced) until more than
+   * REORDER_SHARE of them have been exchanged since that order was computed, or the first time;
+   * then they are put in a fill-reducing order again.
    */
   refactor(): void {
-    if (this.orderedNonzeros > 0) {
-      const lu = this.factorIn(Array.from(this.basic));
-      if (lu.nonzeros <= REORDER_GROWTH * this.orderedNonzeros) {
-        this.install(lu);
-        return;
-      }
-    }
-    const lu = this.factorIn(this.fillReducingOrder(Array.from(this.basic)));
-    this.orderedNonzeros = Math.max(lu.nonzeros, this.m);
-    this.install(lu);
+    if (this.exchangedSinceOrder < 0 || this.exchangedSinceOrder > REORDER_SHARE * this.m) {
+      this.install(this.factorIn(this.fillReducingOrder(Array.from(this.basic))));
+      this.exchangedSinceOrder = 0;
+    } else this.install(this.factorIn(Array.from(this.basic)));
   }
 
   /** an LU of the basis with its columns in the given order, positions assigned as they are taken */
@@ -321,6 +317,7 @@ export class BasisPreconditioner {
 
   /** column j enters at position k; w = B⁻¹â_j (by position), nonzero at pattern[0..count) */
   private exchange(k: number, j: number, w: Float64Array, pattern: Int32Array, count: number): void {
+    if (this.exchangedSinceOrder >= 0) this.exchangedSinceOrder++;
     // refactorise once the updates cost more to apply than the factors themselves
     if (this.etaCount === this.maxUpdates || this.etaPtr[this.etaCount] > Math.max(this.lu.nonzeros, this.m)) {
       this.position[this.basic[k]] = -1;
