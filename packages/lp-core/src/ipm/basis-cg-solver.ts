@@ -92,7 +92,10 @@ const UPDATE_SHARE = 0.1;
 /**
  * Gondzio correctors per iteration while CG solves: each costs a whole CG solve (with a Cholesky
  * factor, two triangular solves). Measured on L (six Cholesky iterations first): 4 correctors
- * 22 iterations and 8096 CG steps, 2: 25 and 6412, 1: 27 and 5452, 0: 37 and 5271.
+ * 22 iterations and 8096 CG steps, 2: 25 and 6412, 1: 27 and 5452, 0: 37 and 5271. With the
+ * split system and its stopping rule, from the start (CG steps, iterations, seconds): L 1: 2678,
+ * 27, 4.0–4.1 s; 0: 2407, 33, 4.0–4.4 s; XL 1: 9270, 40; 0: 9137, 49 (time alike); M alike;
+ * plan-model's 200 × 26 plant 1: 18.2 s, 0: 15.4 s (one run each). Kept at 1.
  */
 export const CG_CORRECTORS = 1;
 
@@ -505,15 +508,21 @@ export class BasisCgSolver implements KktSolver {
       let rr = dot(r, r);
       while (steps < limit) {
         steps++;
-        this.applySplit(p, q);
-        const pq = dot(p, q);
+        const pq = this.applySplit(p, q);
         if (!(pq > 0)) break;
         const alpha = rr / pq;
+        // one pass: the update, ‖r‖∞ and rᵀr
+        let norm = 0;
+        let rrNext = 0;
         for (let k = 0; k < m; k++) {
           u[k] += alpha * p[k];
-          r[k] -= alpha * q[k];
+          const rk = r[k] - alpha * q[k];
+          r[k] = rk;
+          const a = Math.abs(rk);
+          if (a > norm) norm = a;
+          rrNext += rk * rk;
         }
-        const norm = maxAbs(r);
+        if (!(rrNext < Infinity)) norm = Infinity;
         if (norm < bestNorm) {
           bestNorm = norm;
           best.set(u);
@@ -523,7 +532,6 @@ export class BasisCgSolver implements KktSolver {
           break;
         }
         if ((steps & 63) === 0 && performance.now() > this.deadline) break;
-        const rrNext = dot(r, r);
         const beta = rrNext / rr;
         rr = rrNext;
         for (let k = 0; k < m; k++) p[k] = r[k] + beta * p[k];
@@ -535,8 +543,8 @@ export class BasisCgSolver implements KktSolver {
     return converged ? steps : -steps;
   }
 
-  /** out ← (I + W Wᵀ) x, x and out by basis position */
-  private applySplit(x: Float64Array, out: Float64Array): void {
+  /** out ← (I + W Wᵀ) x, x and out by basis position; returns xᵀ out */
+  private applySplit(x: Float64Array, out: Float64Array): number {
     const { m, A } = this.prob;
     const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
     const { splitRow: g, weight, invSqrtBasic, nonbasic } = this;
@@ -556,6 +564,12 @@ export class BasisCgSolver implements KktSolver {
     }
     // out = x + Θ_B^{-1/2} B⁻¹ out (by position)
     this.basis.ftran(out);
-    for (let k = 0; k < m; k++) out[k] = x[k] + out[k] * invSqrtBasic[k];
+    let xOut = 0;
+    for (let k = 0; k < m; k++) {
+      const v = x[k] + out[k] * invSqrtBasic[k];
+      out[k] = v;
+      xOut += x[k] * v;
+    }
+    return xOut;
   }
 }
