@@ -38,15 +38,16 @@ import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from '.
 import { dot } from '../vectors';
 
 /**
- * CG's relative residual target, and the fraction of the primal residual it may stop at.
- * Measured on the bench's L model (Cholesky for six iterations, then CG): 1e-9 and 0.1 took
+ * CG's relative residual target (both preconditioners), and the fraction of the primal residual
+ * the diagonally preconditioned CG may stop at. Measured on the bench's L model (Cholesky for six iterations, then CG): 1e-9 and 0.1 took
  * 22 iterations and 8096 CG steps, 1e-8 22 and 7522, INEXACT 0.01 24 and 8954; objectives within
  * 1e-9 of HiGHS. The stricter target is kept: it costs 7 % more steps.
  */
 const CG_TOLERANCE = 1e-9;
 const INEXACT = 0.1;
 /**
- * CG may also stop at min(√μ, MU_TOLERANCE·μ/√μ₀) (μ₀ the first iterate's): while the iterate is
+ * Diagonally preconditioned CG may also stop at min(√μ, MU_TOLERANCE·μ/√μ₀) (μ₀ the first
+ * iterate's; measured when this rule served the basis as well): while the iterate is
  * far from optimal the direction need not be exact (its error is left in the primal residual,
  * which the termination test checks on the original problem); the allowance shrinks with μ, so the
  * primal residual keeps pace with the gap. Measured from the start with 'basis-cg' (CG steps,

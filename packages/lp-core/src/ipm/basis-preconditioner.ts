@@ -15,8 +15,9 @@
  *    position;
  *  - exchanges are kept as product-form updates (B_new⁻¹ = E⁻¹B⁻¹, one eta column each) until
  *    `maxUpdates`, or until the updates hold more nonzeros than the factors, then B is factorised
- *    afresh: slacks first, the structural columns in a fill-reducing order (column-ordering.ts),
- *    pivots in short rows where threshold pivoting allows.
+ *    afresh, pivots in short rows where threshold pivoting allows: its columns in their positions
+ *    while few were exchanged since the last fill-reducing order, else (and first) slacks first and
+ *    the structural columns in a fill-reducing order (column-ordering.ts).
  */
 import type { CscMatrix } from '../problem/problem';
 import { columnOrder } from '../sparse/column-ordering';
