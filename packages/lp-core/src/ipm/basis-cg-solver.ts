@@ -67,9 +67,11 @@ const KKT_TOLERANCE = 0.3;
  * a diagonally preconditioned solve that needs more steps than this switches to the basis.
  * Measured with CG from the start, 300 → 150: L 5441 → 3976 CG steps (time alike, more
  * exchanges); M 3734 → 1816 steps (a second solve 0.75 → 0.58 s); XL 135 → 110 s; plan-model's
- * 200 × 26 plant 18.4 → 19.2 s.
+ * 200 × 26 plant 18.4 → 19.2 s. With the split system and its stopping rule, 150 → 100: L 2678 →
+ * 2371 steps (3.9–4.1 → 3.4–3.8 s, interleaved), 60: 2596 steps and 4519 exchanges; M 1436 → 1230;
+ * XL 9270 → 9260 (73 s both); plan-model's 200 × 26 plant 14.0 → 14.7 s (one run each).
  */
-const DIAGONAL_STEPS = 150;
+const DIAGONAL_STEPS = 100;
 /**
  * exchanges per iteration: at least MAX_EXCHANGES and EXCHANGE_SHARE of the rows; the scaled entry
  * size they push under (2, as Schork & Gondzio). Measured on plan-model's generated 200 × 26 plant
