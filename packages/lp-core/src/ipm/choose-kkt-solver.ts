@@ -17,11 +17,14 @@
  * Measured on the bench's planning models (lp-core's bench, one machine, interleaved runs):
  *  - S (328 rows, estimated 4.3e5 multiply–adds, 210 per nonzero): Cholesky 0.035–0.046 s, CG 0.086 s;
  *  - M (2340 rows, estimated 3.6e8, 22000 per nonzero; 1.4e8 in the order the factorisation
- *    picks): Cholesky 0.55–0.75 s, CG 0.40–0.46 s;
+ *    picks): Cholesky 0.55–0.75 s, CG 0.40–0.46 s (0.35–0.69 s with the split system);
  *  - L (12729 rows, 7.3e9 in the factorisation's order): Cholesky throughout 38–40 s; six
- *    Cholesky iterations then CG 13.8 s; CG from the start 4.8–5.3 s (26 iterations, 3976 steps);
- *  - XL (75920 rows): the first factorisation did not end within 300 s; CG from the start 110 s;
- *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 16–19 s;
+ *    Cholesky iterations then CG 13.8 s; CG from the start 4.8–5.3 s (26 iterations, 3976 steps),
+ *    with primal-exact steps and the split system 3.3–4.1 s (27 iterations, 2371 steps);
+ *  - XL (75920 rows): the first factorisation did not end within 300 s; CG from the start 110 s,
+ *    now 73 s;
+ *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 16–19 s, now
+ *    14–17 s;
  *  - the demo plant's 12-week plan (1142 rows, estimated 1.2e7, about 2000 per nonzero):
  *    Cholesky 0.14–0.15 s, CG 0.18–0.21 s (steady state), hence CG_MIN_FLOPS 1e8, not 1e7 (with
  *    1e7 the solve started on CG and fell back to Cholesky halfway).
