@@ -69,7 +69,7 @@ const KKT_TOLERANCE = 0.3;
  * exchanges); M 3734 → 1816 steps (a second solve 0.75 → 0.58 s); XL 135 → 110 s; plan-model's
  * 200 × 26 plant 18.4 → 19.2 s. With the split system and its stopping rule, 150 → 100: L 2678 →
  * 2371 steps (3.9–4.1 → 3.4–3.8 s, interleaved), 60: 2596 steps and 4519 exchanges; M 1436 → 1230;
- * XL 9270 → 9260 (73 s both); plan-model's 200 × 26 plant 14.0 → 14.7 s (one run each).
+ * XL 9270 → 9260 (73 s both); plan-model's 200 × 26 plant 6.3–6.9 s either way.
  */
 const DIAGONAL_STEPS = 100;
 /**
@@ -98,7 +98,7 @@ const UPDATE_SHARE = 0.1;
  * 22 iterations and 8096 CG steps, 2: 25 and 6412, 1: 27 and 5452, 0: 37 and 5271. With the
  * split system and its stopping rule, from the start (CG steps, iterations, seconds): L 1: 2678,
  * 27, 4.0–4.1 s; 0: 2407, 33, 4.0–4.4 s; XL 1: 9270, 40; 0: 9137, 49 (time alike); M alike;
- * plan-model's 200 × 26 plant 1: 18.2 s, 0: 15.4 s (one run each). Kept at 1.
+ * plan-model's 200 × 26 plant 1: 28 iterations, 6.1–6.8 s; 0: 34, 6.3–6.4 s. Kept at 1.
  */
 export const CG_CORRECTORS = 1;
 

@@ -34,8 +34,7 @@ const MISS_LIMIT = 50;
  * tolerance: the estimate is a column norm, and a column whose norm barely passes rarely holds an
  * entry that does. Measured (columns examined, exchanges, CG steps, iterations): bench L with 1:
  * 24691, 3364, 2580, 27; 1.5: 16796, 3313, 2559, 27; 2: 11824, 3286, 2696, 26 (3.4 s, the fastest);
- * 3: 6974, 3172, 3238, 28. plan-model's 200 × 26 plant with 1: 22.3 s (CG gave way to Cholesky),
- * 2: 17.1 s, 3: 15.8 s.
+ * 3: 6974, 3172, 3238, 28. plan-model's 200 × 26 plant: 6.3–6.5 s with 1 or 2.
  */
 const CANDIDATE_FACTOR = 2;
 /**
