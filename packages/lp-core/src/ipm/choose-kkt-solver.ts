@@ -23,8 +23,8 @@
  *    with primal-exact steps and the split system 3.3–4.1 s (27 iterations, 2371 steps);
  *  - XL (75920 rows): the first factorisation did not end within 300 s; CG from the start 110 s,
  *    now 73 s;
- *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 16–19 s, now
- *    14–17 s;
+ *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 6.1–6.9 s
+ *    (16–19 s measured earlier by a script that did not hand μ on, so CG ran to its tight target);
  *  - the demo plant's 12-week plan (1142 rows, estimated 1.2e7, about 2000 per nonzero):
  *    Cholesky 0.14–0.15 s, CG 0.18–0.21 s (steady state), hence CG_MIN_FLOPS 1e8, not 1e7 (with
  *    1e7 the solve started on CG and fell back to Cholesky halfway).
