@@ -379,21 +379,7 @@ export class BasisCgSolver implements KktSolver {
     const limit = Math.min(this.maxExchanges, Math.max(MAX_EXCHANGES, EXCHANGES_PER_STEP * this.lastIterationSteps));
     const report = this.basis.improve(this.weight, VOLUME_TOLERANCE, limit);
     this.basis.compact(UPDATE_SHARE);
-    const { basic, position } = this.basis;
-    for (let k = 0; k < m; k++) this.invSqrtBasic[k] = 1 / Math.sqrt(this.weight[basic[k]]);
-    const { colPtr } = this.prob.A;
-    let count = 0;
-    let nonzeros = 0;
-    for (let j = 0; j < n; j++) if (position[j] < 0 && this.weight[j] > 0) count++;
-    if (this.nonbasic.length !== count) this.nonbasic = new Int32Array(count);
-    count = 0;
-    for (let j = 0; j < n; j++) {
-      if (position[j] >= 0 || !(this.weight[j] > 0)) continue;
-      this.nonbasic[count++] = j;
-      nonzeros += colPtr[j + 1] - colPtr[j];
-    }
-    this.nonbasicNonzeros = nonzeros;
-    for (let i = 0; i < m; i++) this.nonbasicSlackWeight[i] = position[n + i] < 0 ? this.weight[n + i] : 0;
+    this.prepareSplit();
     this.stats.exchanges.push(report.exchanges);
     // two estimate rounds over all columns, one solve and one scan per examined column
     this.work += 2 * (this.prob.A.colPtr[n] + n + m) + report.examined * (this.basis.nonzeros + m);
@@ -544,6 +530,27 @@ export class BasisCgSolver implements KktSolver {
     for (let k = 0; k < m; k++) dy[k] = best[k] * invSqrtBasic[k];
     this.basis.btran(dy);
     return converged ? steps : -steps;
+  }
+
+  /** the split system's pieces for the current basis and weights: Θ_B^{-1/2}, N's columns, N's slack weights */
+  private prepareSplit(): void {
+    const { m, n } = this.prob;
+    const { colPtr } = this.prob.A;
+    const { basic, position } = this.basis;
+    const { weight } = this;
+    for (let k = 0; k < m; k++) this.invSqrtBasic[k] = 1 / Math.sqrt(weight[basic[k]]);
+    let count = 0;
+    for (let j = 0; j < n; j++) if (position[j] < 0 && weight[j] > 0) count++;
+    if (this.nonbasic.length !== count) this.nonbasic = new Int32Array(count);
+    count = 0;
+    let nonzeros = 0;
+    for (let j = 0; j < n; j++) {
+      if (position[j] >= 0 || !(weight[j] > 0)) continue;
+      this.nonbasic[count++] = j;
+      nonzeros += colPtr[j + 1] - colPtr[j];
+    }
+    this.nonbasicNonzeros = nonzeros;
+    for (let i = 0; i < m; i++) this.nonbasicSlackWeight[i] = position[n + i] < 0 ? weight[n + i] : 0;
   }
 
   /** out ← (I + W Wᵀ) x, x and out by basis position; returns xᵀ out */
