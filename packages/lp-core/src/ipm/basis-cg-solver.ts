@@ -147,8 +147,8 @@ export class BasisCgSolver implements KktSolver {
   private readonly best: Float64Array;
   /** 1/√θ of the basic column at each basis position (the scaled residual's weights) */
   private readonly invSqrtBasic: Float64Array;
-  /** the primal residual rp − Â dv, then B⁻¹ of it (exactPrimal) */
-  private readonly gap: Float64Array;
+  /** by row, then by position: the split right-hand side, or rp − Â dv and B⁻¹ of it (exactPrimal) */
+  private readonly rowWork: Float64Array;
   /** see complementarityShift */
   private readonly shift: Float64Array;
   private shifted = false;
@@ -205,7 +205,7 @@ export class BasisCgSolver implements KktSolver {
     this.q = new Float64Array(m);
     this.best = new Float64Array(m);
     this.invSqrtBasic = new Float64Array(m);
-    this.gap = new Float64Array(m);
+    this.rowWork = new Float64Array(m);
     this.shift = new Float64Array(n + m);
     this.u = new Float64Array(m);
     this.warmU = new Float64Array(m);
@@ -313,7 +313,7 @@ export class BasisCgSolver implements KktSolver {
   private exactPrimal(rp: Float64Array, dv: Float64Array): void {
     const { n, m, A } = this.prob;
     const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
-    const { gap, shift, thetaX, thetaW } = this;
+    const { rowWork: gap, shift, thetaX, thetaW } = this;
     for (let i = 0; i < m; i++) gap[i] = rp[i] + dv[n + i];
     for (let j = 0; j < n; j++) {
       const v = dv[j];
@@ -385,75 +385,29 @@ export class BasisCgSolver implements KktSolver {
     this.work += 2 * (this.prob.A.colPtr[n] + n + m) + report.examined * (this.basis.nonzeros + m);
   }
 
-  /** out ← (A Θ_x Aᵀ + Θ_w + δI) x */
-  private multiply(x: Float64Array, out: Float64Array): void {
+  /** out ← (A Θ_x Aᵀ + Θ_w + δI) x; returns xᵀ out */
+  private readonly applyNormal = (x: Float64Array, out: Float64Array): number => {
     multiplyNormal(this.prob.A, this.thetaX, this.slackWeight, x, out);
-  }
+    return dot(x, out);
+  };
 
   /** z ← P⁻¹ r, P the diagonal of the matrix */
   private precondition(r: Float64Array, z: Float64Array): void {
     for (let i = 0; i < z.length; i++) z[i] = r[i] / this.diagonal[i];
   }
 
+  private readonly applyDiagonal = (r: Float64Array, z: Float64Array): void => this.precondition(r, z);
+  private readonly applySplitSystem = (x: Float64Array, out: Float64Array): number => this.applySplit(x, out);
+
   /**
-   * Diagonally preconditioned CG: dy ← the iterate with the smallest residual ‖r‖∞ on
-   * (A Θ_x Aᵀ + Θ_w + δI) dy = rhs, started from P⁻¹ rhs or from the previous solve's dy of the same
-   * iteration, whichever leaves the smaller residual. Returns the steps taken, negated when `limit`
+   * Diagonally preconditioned CG on (A Θ_x Aᵀ + Θ_w + δI) dy = rhs, started from P⁻¹ rhs or from
+   * the previous solve's dy of the same iteration. Returns the steps taken, negated when `limit`
    * steps (or the deadline) came first.
    */
   private conjugateGradients(dy: Float64Array, target: number, limit: number): number {
-    const { m } = this.prob;
-    const { rhs, r, z, p, q, best } = this;
-    this.precondition(rhs, dy);
-    this.multiply(dy, q);
-    for (let i = 0; i < m; i++) r[i] = rhs[i] - q[i];
-    let bestNorm = maxAbs(r);
-    if (this.warm && this.warmMode === 'diagonal') {
-      // the previous solve of this iteration (predictor, corrector) is often closer
-      this.multiply(this.warmDy, q);
-      for (let i = 0; i < m; i++) q[i] = rhs[i] - q[i];
-      const warmNorm = maxAbs(q);
-      if (warmNorm < bestNorm) {
-        bestNorm = warmNorm;
-        r.set(q);
-        dy.set(this.warmDy);
-      }
-    }
-    best.set(dy);
-    if (!(bestNorm > target)) return 0;
-    this.precondition(r, z);
-    p.set(z);
-    let rz = dot(r, z);
-    let steps = 0;
-    let converged = false;
-    while (steps < limit) {
-      steps++;
-      this.multiply(p, q);
-      const pq = dot(p, q);
-      if (!(pq > 0)) break;
-      const alpha = rz / pq;
-      for (let i = 0; i < m; i++) {
-        dy[i] += alpha * p[i];
-        r[i] -= alpha * q[i];
-      }
-      const norm = maxAbs(r);
-      if (norm < bestNorm) {
-        bestNorm = norm;
-        best.set(dy);
-      }
-      if (norm <= target) {
-        converged = true;
-        break;
-      }
-      if ((steps & 63) === 0 && performance.now() > this.deadline) break;
-      this.precondition(r, z);
-      const rzNext = dot(r, z);
-      const beta = rzNext / rz;
-      rz = rzNext;
-      for (let i = 0; i < m; i++) p[i] = z[i] + beta * p[i];
-    }
-    dy.set(best);
-    return converged ? steps : -steps;
+    this.precondition(this.rhs, dy);
+    const warm = this.warm && this.warmMode === 'diagonal' ? this.warmDy : null;
+    return this.runCg(dy, this.rhs, target, limit, this.applyNormal, this.applyDiagonal, warm);
   }
 
   /**
@@ -462,73 +416,102 @@ export class BasisCgSolver implements KktSolver {
    * but a step multiplies by N and Nᵀ only (the basic columns' share of A is left out: a third of
    * L's nonzeros), and the residual is the scaled one the stopping rule measures. Starts from
    * u = Θ_B^{-1/2} B⁻¹ rhs (exact when N carries no weight) or from the previous solve's u of this
-   * iteration, whichever leaves the smaller residual; stops at
-   * max(KKT_TOLERANCE·√μ, CG_TOLERANCE·(1 + ‖Θ_B^{-1/2} B⁻¹ rhs‖∞)). dy ← B⁻ᵀ Θ_B^{-1/2} u of the
-   * iterate with the smallest residual. Returns the steps taken, negated when `limit` steps (or the
-   * deadline) came first.
+   * iteration; stops at max(KKT_TOLERANCE·√μ, CG_TOLERANCE·(1 + ‖Θ_B^{-1/2} B⁻¹ rhs‖∞)).
+   * dy ← B⁻ᵀ Θ_B^{-1/2} u. Returns the steps taken, negated when `limit` steps (or the deadline)
+   * came first.
    */
   private splitConjugateGradients(dy: Float64Array, limit: number): number {
     const { m } = this.prob;
-    const { rhs, r, p, q, best, u, invSqrtBasic } = this;
-    const rhsSplit = this.gap;
-    rhsSplit.set(rhs);
+    const { u, invSqrtBasic } = this;
+    const rhsSplit = this.rowWork;
+    rhsSplit.set(this.rhs);
     this.basis.ftran(rhsSplit);
     for (let k = 0; k < m; k++) rhsSplit[k] *= invSqrtBasic[k];
     const target = Math.max(KKT_TOLERANCE * Math.sqrt(this.mu), CG_TOLERANCE * (1 + maxAbs(rhsSplit)));
     u.set(rhsSplit);
-    this.applySplit(u, q);
-    for (let k = 0; k < m; k++) r[k] = rhsSplit[k] - q[k];
+    const warm = this.warm && this.warmMode === 'basis' ? this.warmU : null;
+    const steps = this.runCg(u, rhsSplit, target, limit, this.applySplitSystem, null, warm);
+    this.warmU.set(u);
+    for (let k = 0; k < m; k++) dy[k] = u[k] * invSqrtBasic[k];
+    this.basis.btran(dy);
+    return steps;
+  }
+
+  /**
+   * Conjugate gradients on M x = b, M applied by `apply` (which returns xᵀMx), preconditioned by
+   * `precondition` (z ← P⁻¹r) or not at all; starts from x as given or from `warm`, whichever leaves
+   * the smaller residual, and leaves in x the iterate with the smallest ‖r‖∞. Stops when
+   * ‖r‖∞ ≤ target. Returns the steps taken, negated when `limit` steps (or the deadline) came first.
+   */
+  private runCg(
+    x: Float64Array,
+    b: Float64Array,
+    target: number,
+    limit: number,
+    apply: (v: Float64Array, out: Float64Array) => number,
+    precondition: ((r: Float64Array, z: Float64Array) => void) | null,
+    warm: Float64Array | null,
+  ): number {
+    const { m } = this.prob;
+    const { r, p, q, best } = this;
+    const z = precondition ? this.z : r;
+    apply(x, q);
+    for (let i = 0; i < m; i++) r[i] = b[i] - q[i];
     let bestNorm = maxAbs(r);
-    if (this.warm && this.warmMode === 'basis') {
-      this.applySplit(this.warmU, q);
-      for (let k = 0; k < m; k++) q[k] = rhsSplit[k] - q[k];
+    if (warm) {
+      // the previous solve of this iteration (predictor, corrector) is often closer
+      apply(warm, q);
+      for (let i = 0; i < m; i++) q[i] = b[i] - q[i];
       const warmNorm = maxAbs(q);
       if (warmNorm < bestNorm) {
         bestNorm = warmNorm;
         r.set(q);
-        u.set(this.warmU);
+        x.set(warm);
       }
     }
-    best.set(u);
+    best.set(x);
+    if (!(bestNorm > target)) return 0;
+    precondition?.(r, z);
+    p.set(z);
+    let rz = dot(r, z);
     let steps = 0;
-    let converged = !(bestNorm > target);
-    if (!converged) {
-      p.set(r);
-      let rr = dot(r, r);
-      while (steps < limit) {
-        steps++;
-        const pq = this.applySplit(p, q);
-        if (!(pq > 0)) break;
-        const alpha = rr / pq;
-        // one pass: the update, ‖r‖∞ and rᵀr
-        let norm = 0;
-        let rrNext = 0;
-        for (let k = 0; k < m; k++) {
-          u[k] += alpha * p[k];
-          const rk = r[k] - alpha * q[k];
-          r[k] = rk;
-          const a = Math.abs(rk);
-          if (a > norm) norm = a;
-          rrNext += rk * rk;
-        }
-        if (!(rrNext < Infinity)) norm = Infinity;
-        if (norm < bestNorm) {
-          bestNorm = norm;
-          best.set(u);
-        }
-        if (norm <= target) {
-          converged = true;
-          break;
-        }
-        if ((steps & 63) === 0 && performance.now() > this.deadline) break;
-        const beta = rrNext / rr;
-        rr = rrNext;
-        for (let k = 0; k < m; k++) p[k] = r[k] + beta * p[k];
+    let converged = false;
+    while (steps < limit) {
+      steps++;
+      const pq = apply(p, q);
+      if (!(pq > 0)) break;
+      const alpha = rz / pq;
+      // one pass: the update, ‖r‖∞ and rᵀr
+      let norm = 0;
+      let rr = 0;
+      for (let i = 0; i < m; i++) {
+        x[i] += alpha * p[i];
+        const ri = r[i] - alpha * q[i];
+        r[i] = ri;
+        const a = Math.abs(ri);
+        if (a > norm) norm = a;
+        rr += ri * ri;
       }
+      if (!(rr < Infinity)) norm = Infinity;
+      if (norm < bestNorm) {
+        bestNorm = norm;
+        best.set(x);
+      }
+      if (norm <= target) {
+        converged = true;
+        break;
+      }
+      if ((steps & 63) === 0 && performance.now() > this.deadline) break;
+      let rzNext = rr;
+      if (precondition) {
+        precondition(r, z);
+        rzNext = dot(r, z);
+      }
+      const beta = rzNext / rz;
+      rz = rzNext;
+      for (let i = 0; i < m; i++) p[i] = z[i] + beta * p[i];
     }
-    this.warmU.set(best);
-    for (let k = 0; k < m; k++) dy[k] = best[k] * invSqrtBasic[k];
-    this.basis.btran(dy);
+    x.set(best);
     return converged ? steps : -steps;
   }
 
