@@ -258,13 +258,27 @@ describe('the basis preconditioner', () => {
     return a;
   }
 
-  it('after the exchanges no scaled entry of B⁻¹N exceeds the tolerance, and B x = b, Bᵀ y = c match the dense solve', () => {
-    const p = randomProblem(41, { rows: 60, cols: 90, perColumn: 4, kind: 'feasible' });
+  /** a random LP's basis built greedily from weights spread over twelve orders of magnitude */
+  function weightedBasis(problemSeed: number, weightSeed: number) {
+    const p = randomProblem(problemSeed, { rows: 60, cols: 90, perColumn: 4, kind: 'feasible' });
     const { m, n } = p.A;
-    const rng = new SeededRandom(5);
+    const rng = new SeededRandom(weightSeed);
     const weight = Float64Array.from({ length: n + m }, () => 10 ** rng.uniform(-6, 6));
     const basis = new BasisPreconditioner(p.A, 20);
     basis.build(weight);
+    return { p, m, n, rng, weight, basis };
+  }
+
+  /** B⁻¹b through the LU and its updates equals ml-matrix's dense solve, for a random b */
+  function expectFtranLikeDense(basis: BasisPreconditioner, B: Matrix, rng: SeededRandom): void {
+    const b = Array.from({ length: B.rows }, () => rng.uniform(-1, 1));
+    const x = Float64Array.from(b);
+    basis.ftran(x);
+    denseSolve(B, Matrix.columnVector(b)).to1DArray().forEach((v, i) => expect(x[i]).toBeCloseTo(v, 8));
+  }
+
+  it('after the exchanges no scaled entry of B⁻¹N exceeds the tolerance, and B x = b, Bᵀ y = c match the dense solve', () => {
+    const { p, m, n, rng, weight, basis } = weightedBasis(41, 5);
     const report = basis.improve(weight, 2, 10_000, 50);
     expect(report.exchanges).toBeGreaterThan(0); // the greedy basis was not already the answer
     const B = denseBasis(p, basis.basic);
@@ -278,11 +292,8 @@ describe('the basis preconditioner', () => {
     }
     expect(worst).toBeLessThanOrEqual(2 + 1e-9);
     // solves through the product-form updates
+    expectFtranLikeDense(basis, B, rng);
     const b = Array.from({ length: m }, () => rng.uniform(-1, 1));
-    const x = Float64Array.from(b);
-    basis.ftran(x);
-    const refX = denseSolve(B, Matrix.columnVector(b)).to1DArray();
-    refX.forEach((v, i) => expect(x[i]).toBeCloseTo(v, 8));
     const y = Float64Array.from(b);
     basis.btran(y);
     const refY = denseSolve(B.transpose(), Matrix.columnVector(b)).to1DArray();
@@ -308,12 +319,7 @@ describe('the basis preconditioner', () => {
   });
 
   it('a fresh factorisation after a few exchanges keeps the columns in their positions (no new fill-reducing order), and still solves like the dense LU', () => {
-    const p = randomProblem(46, { rows: 60, cols: 90, perColumn: 4, kind: 'feasible' });
-    const { m, n } = p.A;
-    const rng = new SeededRandom(6);
-    const weight = Float64Array.from({ length: n + m }, () => 10 ** rng.uniform(-6, 6));
-    const basis = new BasisPreconditioner(p.A, 20);
-    basis.build(weight);
+    const { p, m, rng, weight, basis } = weightedBasis(46, 6);
     basis.refactor(); // the first refactorisation orders the columns
     const ordered = basis.nonzeros;
     // one exchange, under 5 % of the 60 columns: the positions stay, and the LU grows little
@@ -323,11 +329,7 @@ describe('the basis preconditioner', () => {
     basis.refactor();
     expect(basis.nonzeros).toBeLessThanOrEqual(1.2 * Math.max(ordered, m));
     expect([...basis.basic]).toEqual([...before]);
-    const B = denseBasis(p, basis.basic);
-    const b = Array.from({ length: m }, () => rng.uniform(-1, 1));
-    const x = Float64Array.from(b);
-    basis.ftran(x);
-    denseSolve(B, Matrix.columnVector(b)).to1DArray().forEach((v, i) => expect(x[i]).toBeCloseTo(v, 8));
+    expectFtranLikeDense(basis, denseBasis(p, basis.basic), rng);
   });
 
   it('the greedy build takes the heaviest independent columns: with slacks heaviest, B is the identity', () => {
