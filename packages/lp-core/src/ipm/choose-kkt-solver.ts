@@ -60,13 +60,14 @@ export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSol
   const choice = lp ? settings.linearSolver : 'cholesky';
   if (choice === 'basis-cg') return new BasisCgSolver(prob, settings);
   const estimate = choice === 'auto' ? NormalEquations.estimateFlops(prob, settings) : null;
-  const order = estimate?.order ?? null;
   if (estimate && prefersCg(prob, estimate.flops)) {
-    return new BasisCgSolver(prob, settings, { flops: estimate.flops, create: () => new NormalEquations(prob, settings, order) }, 0, true);
+    // the fall-back keeps the order only: the pattern is cheap to build again, and rarely needed
+    const order = estimate.order;
+    return new BasisCgSolver(prob, settings, { flops: estimate.flops, create: () => new NormalEquations(prob, settings, { order }) }, 0, true);
   }
   let direct: NormalEquations;
   try {
-    direct = new NormalEquations(prob, settings, order);
+    direct = new NormalEquations(prob, settings, estimate);
   } catch (err) {
     if (err instanceof FactorTooLargeError && choice === 'auto') return new BasisCgSolver(prob, settings);
     throw err;

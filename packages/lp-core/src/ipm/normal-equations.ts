@@ -41,11 +41,12 @@ export class NormalEquations implements KktSolver {
   constructor(
     private readonly prob: IpmProblem,
     private readonly settings: IpmSettings,
-    /** the AMD order of the normal matrix's pattern, if estimateFlops already computed it */
-    amdOrder: Int32Array | null = null,
+    /** what estimateFlops already computed: the AMD order, and the pattern unless dropped */
+    analysis: { order: Int32Array; pattern?: NormalPattern } | null = null,
   ) {
     const { n, m, A } = prob;
-    const { rows, cols, denseCols } = normalPattern(prob, settings);
+    const { rows, cols, denseCols } = analysis?.pattern ?? normalPattern(prob, settings);
+    const amdOrder = analysis?.order ?? null;
     this.isDense = new Uint8Array(n);
     for (const j of denseCols) this.isDense[j] = 1;
     this.F = new SymmetricFactorisation(m, rows, cols, settings.ordering, 'supernodal', (settings.maxFactorMegabytes * 2 ** 20) / 8, settings.parallelFactorisation, amdOrder);
@@ -62,11 +63,12 @@ export class NormalEquations implements KktSolver {
 
   /**
    * Multiply–adds of one factorisation, estimated in the approximate-minimum-degree order without
-   * building the factorisation (see estimateFactorFlops), and that order for the constructor.
+   * building the factorisation (see estimateFactorFlops), and that order and the pattern for the
+   * constructor.
    */
-  static estimateFlops(prob: IpmProblem, settings: IpmSettings): { flops: number; order: Int32Array } {
-    const { rows, cols } = normalPattern(prob, settings);
-    return estimateFactorFlops(prob.m, rows, cols);
+  static estimateFlops(prob: IpmProblem, settings: IpmSettings): { flops: number; order: Int32Array; pattern: NormalPattern } {
+    const pattern = normalPattern(prob, settings);
+    return { ...estimateFactorFlops(prob.m, pattern.rows, pattern.cols), pattern };
   }
 
   get nnzL(): number {
@@ -151,7 +153,13 @@ export class NormalEquations implements KktSolver {
  * The pattern of A Aᵀ + I as a list of entries (lower triangle, with the diagonal), without the
  * dense columns, which are split off (at most settings.maxDenseColumns, longest first).
  */
-function normalPattern(prob: IpmProblem, settings: IpmSettings): { rows: Int32Array; cols: Int32Array; denseCols: number[] } {
+export interface NormalPattern {
+  rows: Int32Array;
+  cols: Int32Array;
+  denseCols: number[];
+}
+
+function normalPattern(prob: IpmProblem, settings: IpmSettings): NormalPattern {
   const { n, m, A } = prob;
   const { colPtr: Ap, rowIdx: Ai } = A;
   const limit = Math.max(settings.denseColumnMin, settings.denseColumnRatio * m);
