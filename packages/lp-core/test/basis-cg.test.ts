@@ -6,13 +6,16 @@
  *  - seeded random LPs (feasible, degenerate, infeasible, unbounded) and a planning LP of the
  *    benchmark's shape agree with HiGHS (npm `highs`) in status and objective;
  *  - the basis after the maximum-volume exchanges has no scaled entry |W_kj| above the tolerance,
- *    and its solves agree with ml-matrix's dense LU solve (a reference library).
+ *    and its solves agree with ml-matrix's dense LU solve (a reference library), and so does the
+ *    split system's product I + W Wᵀ (ipm/split-system.ts).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { Matrix, solve as denseSolve } from 'ml-matrix';
 import { solve, solveWithHighs } from '../src/index';
 import { BasisPreconditioner } from '../src/ipm/basis-preconditioner';
 import { BasisCgSolver, type CholeskyOption } from '../src/ipm/basis-cg-solver';
+import { SplitSystem } from '../src/ipm/split-system';
+import { cscFromTriplets } from '../src/sparse/csc';
 import { chooseKktSolver } from '../src/ipm/choose-kkt-solver';
 import type { IpmProblem } from '../src/ipm/ipm-problem';
 import { NormalEquations } from '../src/ipm/normal-equations';
@@ -330,6 +333,61 @@ describe('the basis preconditioner', () => {
     expect(basis.nonzeros).toBeLessThanOrEqual(1.2 * Math.max(ordered, m));
     expect([...basis.basic]).toEqual([...before]);
     expectFtranLikeDense(basis, denseBasis(p, basis.basic), rng);
+  });
+
+  it("the split system's product is x + W Wᵀx, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2} formed densely, with updates pending and after a fresh factorisation", () => {
+    // A random LP's matrix with eight single-entry columns appended (they go on the split
+    // system's diagonal) and a few columns of weight 0 (left out of N)
+    const base = randomProblem(47, { rows: 40, cols: 60, perColumn: 4, kind: 'feasible' }).A;
+    const rng = new SeededRandom(7);
+    const rows: number[] = [];
+    const cols: number[] = [];
+    const vals: number[] = [];
+    for (let j = 0; j < base.n; j++)
+      for (let q = base.colPtr[j]; q < base.colPtr[j + 1]; q++) {
+        rows.push(base.rowIdx[q]);
+        cols.push(j);
+        vals.push(base.values[q]);
+      }
+    for (let k = 0; k < 8; k++) {
+      rows.push(rng.integer(0, base.m - 1));
+      cols.push(base.n + k);
+      vals.push(rng.uniform(0.5, 3));
+    }
+    const A = cscFromTriplets(base.m, base.n + 8, rows, cols, vals);
+    const { m, n } = A;
+    const weight = Float64Array.from({ length: n + m }, () => 10 ** rng.uniform(-4, 4));
+    for (const j of [3, 17, 61]) weight[j] = 0;
+    const basis = new BasisPreconditioner(A, 20);
+    basis.build(weight);
+    basis.refactor();
+    const p = { A } as Problem;
+    const expectLikeDense = () => {
+      const B = denseBasis(p, basis.basic);
+      const nonbasic = Array.from({ length: n + m }, (_, j) => j).filter((j) => basis.position[j] < 0);
+      const N = new Matrix(m, nonbasic.length);
+      nonbasic.forEach((j, c) => denseColumn(p, j).to1DArray().forEach((v, i) => N.set(i, c, v * Math.sqrt(weight[j]))));
+      const W = denseSolve(B, N);
+      basis.basic.forEach((j, k) => {
+        for (let c = 0; c < nonbasic.length; c++) W.set(k, c, W.get(k, c) / Math.sqrt(weight[j]));
+      });
+      const x = Float64Array.from({ length: m }, () => rng.uniform(-1, 1));
+      const X = Matrix.columnVector(Array.from(x));
+      const ref = W.mmul(W.transpose().mmul(X)).add(X).to1DArray();
+      const split = new SplitSystem(m);
+      split.prepare(basis, A, weight);
+      const out = new Float64Array(m);
+      const xOut = split.apply(x, out, basis);
+      ref.forEach((v, k) => expect(out[k]).toBeCloseTo(v, 7));
+      expect(xOut).toBeCloseTo(ref.reduce((s, v, k) => s + v * x[k], 0), 6);
+    };
+    const report = basis.improve(weight, 1.5, 10, 1);
+    expect(report.exchanges).toBeGreaterThan(0);
+    expect(basis.updateCount).toBeGreaterThan(0); // the product-form updates are in the product
+    expectLikeDense();
+    basis.refactor();
+    expect(basis.updateCount).toBe(0);
+    expectLikeDense();
   });
 
   it('the greedy build takes the heaviest independent columns: with slacks heaviest, B is the identity', () => {

@@ -15,8 +15,8 @@
  *    (basis-preconditioner.ts); CG then runs on the split system I + W Wᵀ, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2}
  *    (the same iterates as with P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r on the normal equations).
  * A step costs one product with A and one with Aᵀ and the diagonal, or, with the basis, one with N
- * and one with Nᵀ and a solve with B and with Bᵀ (measured on L: 0.54–0.76 ms against 0.77–0.97 ms
- * for the normal equations and P⁻¹). CG keeps the iterate with the smallest residual r and stops
+ * and one with Nᵀ and a solve with B and with Bᵀ (split-system.ts; measured on L: 0.39–0.46 ms
+ * against 0.77–0.97 ms for the normal equations and P⁻¹). CG keeps the iterate with the smallest residual r and stops
  *  - with the diagonal preconditioner when ‖r‖∞ ≤ max(CG_TOLERANCE · (1 + ‖rhs‖∞), INEXACT · ‖rp‖∞,
  *    min(√μ, MU_TOLERANCE · μ/√μ₀)): the residual left is the direction's error in Â dv = rp, which
  *    need only be small against rp and μ while the iterate is far from feasible and optimal (an
@@ -35,6 +35,7 @@ import type { IpmProblem } from './ipm-problem';
 import type { NormalEquations } from './normal-equations';
 import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
 import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from './normal-matrix';
+import { SplitSystem } from './split-system';
 import { dot } from '../vectors';
 
 /**
@@ -145,21 +146,15 @@ export class BasisCgSolver implements KktSolver {
   private readonly p: Float64Array;
   private readonly q: Float64Array;
   private readonly best: Float64Array;
-  /** 1/√θ of the basic column at each basis position (the scaled residual's weights) */
-  private readonly invSqrtBasic: Float64Array;
   /** by row, then by position: the split right-hand side, or rp − Â dv and B⁻¹ of it (exactPrimal) */
   private readonly rowWork: Float64Array;
   /** see complementarityShift */
   private readonly shift: Float64Array;
   private shifted = false;
-  // the split system: CG's iterate u (by position), B⁻ᵀ work by row, the nonbasic structural
-  // columns, the nonbasic slacks' weights (0 for basic ones), and N's nonzeros
+  // the split system's matrix, and CG's iterate u on it (by position)
+  private readonly split: SplitSystem;
   private readonly u: Float64Array;
   private readonly warmU: Float64Array;
-  private readonly splitRow: Float64Array;
-  private nonbasic: Int32Array = new Int32Array(0);
-  private readonly nonbasicSlackWeight: Float64Array;
-  private nonbasicNonzeros = 0;
   private readonly maxSteps: number;
   private readonly maxExchanges: number;
   /** CG steps of the previous iteration's solves, and of this one's so far */
@@ -204,13 +199,11 @@ export class BasisCgSolver implements KktSolver {
     this.p = new Float64Array(m);
     this.q = new Float64Array(m);
     this.best = new Float64Array(m);
-    this.invSqrtBasic = new Float64Array(m);
     this.rowWork = new Float64Array(m);
     this.shift = new Float64Array(n + m);
     this.u = new Float64Array(m);
     this.warmU = new Float64Array(m);
-    this.splitRow = new Float64Array(m);
-    this.nonbasicSlackWeight = new Float64Array(m);
+    this.split = new SplitSystem(m);
     this.warmDy = new Float64Array(m);
     this.maxSteps = Math.max(500, Math.min(5000, m));
     this.maxExchanges = Math.max(MAX_EXCHANGES, Math.ceil(m * EXCHANGE_SHARE));
@@ -297,7 +290,7 @@ export class BasisCgSolver implements KktSolver {
     this.stats.steps.push(steps);
     this.iterationSteps += steps;
     // per step: products with A and Aᵀ (with the basis: N and Nᵀ and solves with B), vector operations
-    this.work += steps * (this.mode === 'basis' ? 2 * this.nonbasicNonzeros + 2 * this.basis.nonzeros + 5 * m : 2 * A.colPtr[n] + 6 * m);
+    this.work += steps * (this.mode === 'basis' ? this.split.nonzeros : 2 * A.colPtr[n] + 6 * m);
     recoverDirection(A, thetaX, thetaW, rhat, dy, dv);
     if (this.mode === 'basis') this.exactPrimal(rp, dv);
     this.warmDy.set(dy);
@@ -379,7 +372,7 @@ export class BasisCgSolver implements KktSolver {
     const limit = Math.min(this.maxExchanges, Math.max(MAX_EXCHANGES, EXCHANGES_PER_STEP * this.lastIterationSteps));
     const report = this.basis.improve(this.weight, VOLUME_TOLERANCE, limit);
     this.basis.compact(UPDATE_SHARE);
-    this.prepareSplit();
+    this.split.prepare(this.basis, this.prob.A, this.weight);
     this.stats.exchanges.push(report.exchanges);
     // two estimate rounds over all columns, one solve and one scan per examined column
     this.work += 2 * (this.prob.A.colPtr[n] + n + m) + report.examined * (this.basis.nonzeros + m);
@@ -397,7 +390,7 @@ export class BasisCgSolver implements KktSolver {
   }
 
   private readonly applyDiagonal = (r: Float64Array, z: Float64Array): void => this.precondition(r, z);
-  private readonly applySplitSystem = (x: Float64Array, out: Float64Array): number => this.applySplit(x, out);
+  private readonly applySplitSystem = (x: Float64Array, out: Float64Array): number => this.split.apply(x, out, this.basis);
 
   /**
    * Diagonally preconditioned CG on (A Θ_x Aᵀ + Θ_w + δI) dy = rhs, started from P⁻¹ rhs or from
@@ -422,7 +415,8 @@ export class BasisCgSolver implements KktSolver {
    */
   private splitConjugateGradients(dy: Float64Array, limit: number): number {
     const { m } = this.prob;
-    const { u, invSqrtBasic } = this;
+    const { u } = this;
+    const { invSqrtBasic } = this.split;
     const rhsSplit = this.rowWork;
     rhsSplit.set(this.rhs);
     this.basis.ftran(rhsSplit);
@@ -513,56 +507,5 @@ export class BasisCgSolver implements KktSolver {
     }
     x.set(best);
     return converged ? steps : -steps;
-  }
-
-  /** the split system's pieces for the current basis and weights: Θ_B^{-1/2}, N's columns, N's slack weights */
-  private prepareSplit(): void {
-    const { m, n } = this.prob;
-    const { colPtr } = this.prob.A;
-    const { basic, position } = this.basis;
-    const { weight } = this;
-    for (let k = 0; k < m; k++) this.invSqrtBasic[k] = 1 / Math.sqrt(weight[basic[k]]);
-    let count = 0;
-    for (let j = 0; j < n; j++) if (position[j] < 0 && weight[j] > 0) count++;
-    if (this.nonbasic.length !== count) this.nonbasic = new Int32Array(count);
-    count = 0;
-    let nonzeros = 0;
-    for (let j = 0; j < n; j++) {
-      if (position[j] >= 0 || !(weight[j] > 0)) continue;
-      this.nonbasic[count++] = j;
-      nonzeros += colPtr[j + 1] - colPtr[j];
-    }
-    this.nonbasicNonzeros = nonzeros;
-    for (let i = 0; i < m; i++) this.nonbasicSlackWeight[i] = position[n + i] < 0 ? weight[n + i] : 0;
-  }
-
-  /** out ← (I + W Wᵀ) x, x and out by basis position; returns xᵀ out */
-  private applySplit(x: Float64Array, out: Float64Array): number {
-    const { m, A } = this.prob;
-    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
-    const { splitRow: g, weight, invSqrtBasic, nonbasic } = this;
-    // g = B⁻ᵀ Θ_B^{-1/2} x (by row), then out = N Θ_N Nᵀ g (by row)
-    for (let k = 0; k < m; k++) g[k] = x[k] * invSqrtBasic[k];
-    this.basis.btran(g);
-    const slackWeight = this.nonbasicSlackWeight;
-    for (let i = 0; i < m; i++) out[i] = slackWeight[i] * g[i];
-    for (let c = 0; c < nonbasic.length; c++) {
-      const j = nonbasic[c];
-      const p1 = Ap[j + 1];
-      let s = 0;
-      for (let q = Ap[j]; q < p1; q++) s += Ax[q] * g[Ai[q]];
-      s *= weight[j];
-      if (s === 0) continue;
-      for (let q = Ap[j]; q < p1; q++) out[Ai[q]] += Ax[q] * s;
-    }
-    // out = x + Θ_B^{-1/2} B⁻¹ out (by position)
-    this.basis.ftran(out);
-    let xOut = 0;
-    for (let k = 0; k < m; k++) {
-      const v = x[k] + out[k] * invSqrtBasic[k];
-      out[k] = v;
-      xOut += x[k] * v;
-    }
-    return xOut;
   }
 }

@@ -200,6 +200,25 @@ export class BasisPreconditioner {
   /** x ← B⁻¹x (x by row in, by basis position out) */
   ftran(x: Float64Array): void {
     this.lu.solve(x, this.work);
+    this.applyUpdates(x);
+  }
+
+  /** the LU factors of the basis as last factorised (the updates since are applied apart) */
+  get factors(): SparseLu {
+    return this.lu;
+  }
+
+  /** product-form updates since the last factorisation, and their nonzeros */
+  get updateCount(): number {
+    return this.etaCount;
+  }
+
+  get updateNonzeros(): number {
+    return this.etaPtr[this.etaCount];
+  }
+
+  /** x ← E⁻¹x for the updates E since the last factorisation (x by position) */
+  applyUpdates(x: Float64Array): void {
     const { etaPos, etaPivot, etaPtr, etaIdx, etaVal } = this;
     for (let e = 0; e < this.etaCount; e++) {
       const k = etaPos[e];
@@ -207,6 +226,17 @@ export class BasisPreconditioner {
       x[k] = xk;
       if (xk === 0) continue;
       for (let p = etaPtr[e]; p < etaPtr[e + 1]; p++) x[etaIdx[p]] -= etaVal[p] * xk;
+    }
+  }
+
+  /** x ← E⁻ᵀx (x by position) */
+  applyUpdatesTransposed(x: Float64Array): void {
+    const { etaPos, etaPivot, etaPtr, etaIdx, etaVal } = this;
+    for (let e = this.etaCount - 1; e >= 0; e--) {
+      const k = etaPos[e];
+      let s = x[k];
+      for (let p = etaPtr[e]; p < etaPtr[e + 1]; p++) s -= etaVal[p] * x[etaIdx[p]];
+      x[k] = s / etaPivot[e];
     }
   }
 
@@ -246,13 +276,7 @@ export class BasisPreconditioner {
 
   /** x ← B⁻ᵀx (x by basis position in, by row out) */
   btran(x: Float64Array): void {
-    const { etaPos, etaPivot, etaPtr, etaIdx, etaVal } = this;
-    for (let e = this.etaCount - 1; e >= 0; e--) {
-      const k = etaPos[e];
-      let s = x[k];
-      for (let p = etaPtr[e]; p < etaPtr[e + 1]; p++) s -= etaVal[p] * x[etaIdx[p]];
-      x[k] = s / etaPivot[e];
-    }
+    this.applyUpdatesTransposed(x);
     this.lu.solveTransposed(x, this.work);
   }
 
