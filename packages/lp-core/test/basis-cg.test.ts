@@ -321,17 +321,13 @@ describe('the basis preconditioner', () => {
     expect(checked).toBe(n);
   });
 
-  it('a fresh factorisation after a few exchanges keeps the columns in their positions (no new fill-reducing order), and still solves like the dense LU', () => {
-    const { p, m, rng, weight, basis } = weightedBasis(46, 6);
-    basis.refactor(); // the first refactorisation orders the columns
-    const ordered = basis.nonzeros;
-    // one exchange, under 5 % of the 60 columns: the positions stay, and the LU grows little
-    const report = basis.improve(weight, 2, 1, 1);
-    expect(report.exchanges).toBe(1);
-    const before = Int32Array.from(basis.basic);
+  it('a fresh factorisation after a few exchanges drops the updates and still solves like the dense LU', () => {
+    const { p, rng, weight, basis } = weightedBasis(46, 6);
+    const report = basis.improve(weight, 2, 3, 1);
+    expect(report.exchanges).toBeGreaterThan(0);
+    expect(basis.updateCount).toBeGreaterThan(0);
     basis.refactor();
-    expect(basis.nonzeros).toBeLessThanOrEqual(1.2 * Math.max(ordered, m));
-    expect([...basis.basic]).toEqual([...before]);
+    expect(basis.updateCount).toBe(0);
     expectFtranLikeDense(basis, denseBasis(p, basis.basic), rng);
   });
 

@@ -15,12 +15,11 @@
  *    position;
  *  - exchanges are kept as product-form updates (B_new⁻¹ = E⁻¹B⁻¹, one eta column each) until
  *    `maxUpdates`, or until the updates hold more nonzeros than the factors, then B is factorised
- *    afresh, pivots in short rows where threshold pivoting allows: its columns in their positions
- *    while few were exchanged since the last fill-reducing order, else (and first) slacks first and
- *    the structural columns in a fill-reducing order (column-ordering.ts).
+ *    afresh: triangular parts first, the rest in a fill-reducing order (triangular-first-order.ts),
+ *    pivots in short rows where threshold pivoting allows.
  */
 import type { CscMatrix } from '../problem/problem';
-import { columnOrder } from '../sparse/column-ordering';
+import { triangularFirstOrder } from '../sparse/triangular-first-order';
 import { SparseLu, grow, growF } from '../sparse/sparse-lu';
 
 /**
@@ -43,20 +42,6 @@ const CANDIDATE_FACTOR = 2;
  * factorisation (AMD on BᵀB, then the LU: ~0.28 s) every 100 of them, 8 s of the iteration.
  */
 const MAX_UPDATES = 1000;
-/**
- * a fresh LU keeps the columns' positions until this share of them has been exchanged since the
- * last fill-reducing order (computing that order, AMD on BᵀB, took bench L 263 of the 352 ms of its
- * 37 refactorisations). Measured with a bound on the LU's growth instead (reorder past 1.2× the
- * nonzeros): L's refactorisations 352 → 169–195 ms, but XL's LU grew from 0.5 M to 0.67 M nonzeros
- * in the last iterations and each failed attempt cost a second LU.
- */
-const REORDER_SHARE = 0.05;
-/**
- * ... and while the LU has at most this many times the nonzeros it had in that order (else it is
- * factorised again in a fresh order). Without it, on plan-model's generated 1000 × 52 plant the LU
- * grew from 0.74 M to 1.5 M nonzeros over five iterations.
- */
-const REORDER_GROWTH = 1.5;
 /** a column whose new pivot is below this fraction of its largest entry is taken as dependent */
 const DEPENDENCE_TOLERANCE = 1e-7;
 
@@ -95,10 +80,6 @@ export class BasisPreconditioner {
   /** ftranColumn's marks of the positions in its pattern */
   private readonly seen: Int32Array;
   private seenStamp = 0;
-  /** columns exchanged since the columns were last put in a fill-reducing order (−1: never) */
-  private exchangedSinceOrder = -1;
-  /** the LU's nonzeros in that order */
-  private orderedNonzeros = 0;
   /** nonzeros of each row of A: the LU pivots in short rows where it can (less fill) */
   private readonly rowCount: Int32Array;
 
@@ -142,51 +123,29 @@ export class BasisPreconditioner {
     this.position.fill(-1);
     for (let q = 0; q < N && lu.rank < this.m; q++) this.offer(lu, order[q]);
     this.install(lu);
-    this.exchangedSinceOrder = -1;
   }
 
   /**
-   * Factorises the current basis afresh. The columns keep their positions (the last fill-reducing
-   * order, exchanged columns in the place of the ones they replaced) until more than
-   * REORDER_SHARE of them have been exchanged since that order was computed or the LU outgrows
-   * REORDER_GROWTH of its nonzeros then, or the first time; then they are put in a fill-reducing
-   * order again.
+   * Factorises the current basis afresh, its columns in the order of triangularFirstOrder (the
+   * triangular parts first, the bump in a fill-reducing order): positions are assigned anew.
    */
   refactor(): void {
-    if (this.exchangedSinceOrder >= 0 && this.exchangedSinceOrder <= REORDER_SHARE * this.m) {
-      const lu = this.factorIn(Array.from(this.basic));
-      if (lu.nonzeros <= REORDER_GROWTH * this.orderedNonzeros) {
-        this.install(lu);
-        return;
-      }
-    }
-    const lu = this.factorIn(this.fillReducingOrder(Array.from(this.basic)));
-    this.exchangedSinceOrder = 0;
-    this.orderedNonzeros = Math.max(lu.nonzeros, this.m);
-    this.install(lu);
-  }
-
-  /** an LU of the basis with its columns in the given order, positions assigned as they are taken */
-  private factorIn(cols: number[]): SparseLu {
+    const cols = Array.from(this.basic);
+    const { colPtr, rowIdx } = this.A;
+    const start = new Int32Array(cols.length + 1);
+    cols.forEach((j, k) => (start[k + 1] = start[k] + (j < this.n ? colPtr[j + 1] - colPtr[j] : 1)));
+    const rows = new Int32Array(start[cols.length]);
+    cols.forEach((j, k) => {
+      if (j < this.n) rows.set(rowIdx.subarray(colPtr[j], colPtr[j + 1]), start[k]);
+      else rows[start[k]] = j - this.n;
+    });
+    const { order } = triangularFirstOrder(this.m, cols.length, start, rows);
     const lu = new SparseLu(this.m, Math.max(4 * this.m, this.lu.nonzeros), this.rowCount);
     this.position.fill(-1);
-    for (const j of cols) this.offer(lu, j);
+    for (const k of order) this.offer(lu, cols[k]);
     // columns refused as dependent (rounding after many exchanges) give way to slacks
     for (let i = 0; i < this.m && lu.rank < this.m; i++) if (lu.pinv[i] < 0) this.offer(lu, this.n + i);
-    return lu;
-  }
-
-  /** columns of Â in the order of columnOrder (slacks first: they cause no fill) */
-  private fillReducingOrder(cols: number[]): number[] {
-    const slacks = cols.filter((j) => j >= this.n);
-    const structural = cols.filter((j) => j < this.n);
-    const { colPtr, rowIdx } = this.A;
-    const start = new Int32Array(structural.length + 1);
-    structural.forEach((j, k) => (start[k + 1] = start[k] + colPtr[j + 1] - colPtr[j]));
-    const rows = new Int32Array(start[structural.length]);
-    structural.forEach((j, k) => rows.set(rowIdx.subarray(colPtr[j], colPtr[j + 1]), start[k]));
-    const order = columnOrder(this.m, structural.length, start, rows);
-    return [...slacks, ...Array.from(order, (k) => structural[k])];
+    this.install(lu);
   }
 
   /**
@@ -357,7 +316,6 @@ export class BasisPreconditioner {
 
   /** column j enters at position k; w = B⁻¹â_j (by position), nonzero at pattern[0..count) */
   private exchange(k: number, j: number, w: Float64Array, pattern: Int32Array, count: number): void {
-    if (this.exchangedSinceOrder >= 0) this.exchangedSinceOrder++;
     // refactorise once the updates cost more to apply than the factors themselves
     if (this.etaCount === this.maxUpdates || this.etaPtr[this.etaCount] > Math.max(this.lu.nonzeros, this.m)) {
       this.position[this.basic[k]] = -1;
