@@ -62,6 +62,8 @@ export interface IpmSettings {
    * default: only when one factorisation takes at least 1e9 multiply–adds, so the helper's
    * one-off start-up of about 1 s is repaid within a few iterations; smaller models stay on one
    * thread). A long-lived process (the API's solver thread) passes true: it pays the start-up once.
+   * Unless false, conjugate gradients also share each product of a big split system (100000
+   * entries of N or more) with the helper.
    */
   parallelFactorisation: boolean | 'auto';
   /** called after every iteration (progress bars) */

@@ -331,7 +331,7 @@ describe('the basis preconditioner', () => {
     expectFtranLikeDense(basis, denseBasis(p, basis.basic), rng);
   });
 
-  it("the split system's product is x + W Wᵀx, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2} formed densely, with updates pending and after a fresh factorisation", () => {
+  it("the split system's product is x + W Wᵀx, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2} formed densely, with updates pending and after a fresh factorisation, alone and with the helper thread", () => {
     // A random LP's matrix with eight single-entry columns appended (they go on the split
     // system's diagonal) and a few columns of weight 0 (left out of N)
     const base = randomProblem(47, { rows: 40, cols: 60, perColumn: 4, kind: 'feasible' }).A;
@@ -370,12 +370,17 @@ describe('the basis preconditioner', () => {
       const x = Float64Array.from({ length: m }, () => rng.uniform(-1, 1));
       const X = Matrix.columnVector(Array.from(x));
       const ref = W.mmul(W.transpose().mmul(X)).add(X).to1DArray();
-      const split = new SplitSystem(m);
-      split.prepare(basis, A, weight);
-      const out = new Float64Array(m);
-      const xOut = split.apply(x, out, basis);
-      ref.forEach((v, k) => expect(out[k]).toBeCloseTo(v, 7));
-      expect(xOut).toBeCloseTo(ref.reduce((s, v, k) => s + v * x[k], 0), 6);
+      // on this thread, and with the helper thread taking part of N's product (any size will do)
+      for (const parallel of [false, true]) {
+        const split = new SplitSystem(m, parallel, 0);
+        split.prepare(basis, A, weight);
+        const out = new Float64Array(m);
+        split.begin();
+        const xOut = split.apply(x, out, basis);
+        split.end();
+        ref.forEach((v, k) => expect(out[k]).toBeCloseTo(v, 7));
+        expect(xOut).toBeCloseTo(ref.reduce((s, v, k) => s + v * x[k], 0), 6);
+      }
     };
     const report = basis.improve(weight, 1.5, 10, 1);
     expect(report.exchanges).toBeGreaterThan(0);

@@ -203,7 +203,7 @@ export class BasisCgSolver implements KktSolver {
     this.shift = new Float64Array(n + m);
     this.u = new Float64Array(m);
     this.warmU = new Float64Array(m);
-    this.split = new SplitSystem(m);
+    this.split = new SplitSystem(m, settings.parallelFactorisation);
     this.warmDy = new Float64Array(m);
     this.maxSteps = Math.max(500, Math.min(5000, m));
     this.maxExchanges = Math.max(MAX_EXCHANGES, Math.ceil(m * EXCHANGE_SHARE));
@@ -424,7 +424,13 @@ export class BasisCgSolver implements KktSolver {
     const target = Math.max(KKT_TOLERANCE * Math.sqrt(this.mu), CG_TOLERANCE * (1 + maxAbs(rhsSplit)));
     u.set(rhsSplit);
     const warm = this.warm && this.warmMode === 'basis' ? this.warmU : null;
-    const steps = this.runCg(u, rhsSplit, target, limit, this.applySplitSystem, null, warm);
+    let steps: number;
+    this.split.begin();
+    try {
+      steps = this.runCg(u, rhsSplit, target, limit, this.applySplitSystem, null, warm);
+    } finally {
+      this.split.end();
+    }
     this.warmU.set(u);
     for (let k = 0; k < m; k++) dy[k] = u[k] * invSqrtBasic[k];
     this.basis.btran(dy);

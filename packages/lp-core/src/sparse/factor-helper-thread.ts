@@ -1,7 +1,9 @@
 /**
- * One helper thread per calling thread, for the two-thread supernodal factorisation. It runs the
- * very source of factorSupernodes (supernodal-kernel.ts) on shared memory, so no module loading
- * or TypeScript support is needed inside it. The caller stays synchronous: it posts a job, works
+ * One helper thread per calling thread, for the two-thread supernodal factorisation and for a
+ * share of the split system's products while conjugate gradients run (ipm/split-product-helper.ts).
+ * It runs the very source of factorSupernodes (supernodal-kernel.ts) and of the products
+ * (ipm/split-product-kernel.ts) on shared memory, so no module loading or TypeScript support is
+ * needed inside it. The caller stays synchronous: it posts a job, works
  * on its own half, then blocks on a shared flag (Atomics.wait) until the helper reports back.
  *
  * A factorisation registers its shared arrays and the helper's two calls once ('setup'); the
@@ -22,11 +24,12 @@ import {
   type KernelShared,
 } from './supernodal-kernel';
 import { backwardSolveRanges, forwardSolveRanges } from './supernodal-solve-kernel';
+import { addColumnProducts, serveColumnProducts } from '../ipm/split-product-kernel';
 
 /** contexts the helper keeps (one per live factorisation) */
 const KEPT_CONTEXTS = 4;
 /** a helper whose work shows no progress for this long is given up (ms) */
-const STALLED_MS = 20000;
+export const STALLED_MS = 20000;
 
 export const HELPER_SOURCE = `
 const { parentPort } = require('node:worker_threads');
@@ -37,6 +40,8 @@ const scalePanel = (${scalePanel.toString()});
 const updateFromDescendant = (${updateFromDescendant.toString()});
 const forwardSolveRanges = (${forwardSolveRanges.toString()});
 const backwardSolveRanges = (${backwardSolveRanges.toString()});
+const addColumnProducts = (${addColumnProducts.toString()});
+const serveColumnProducts = (${serveColumnProducts.toString()});
 const contexts = new Map();
 // the updates into a root from its descendants, for the root's columns cs.. (the caller does the rest)
 function rootUpdatesHalf(c, msg) {
@@ -132,6 +137,7 @@ parentPort.on('message', (msg) => {
     contexts.delete(msg.id);
     return;
   }
+  if (msg.type === 'columnProducts') return serveColumnProducts(msg.session, addColumnProducts);
   const c = contexts.get(msg.id);
   if (!c) return;
   if (msg.type === 'solve') return solveHalf(c, msg.seq);
@@ -195,6 +201,17 @@ function theHelper(): Worker | null {
     helper = null;
   }
   return helper;
+}
+
+/** the helper thread, started on first use; null when there is none (one core, or it failed) */
+export function helperThread(): Worker | null {
+  return theHelper();
+}
+
+/** gives the helper up for good (it failed or stopped answering): the callers work alone */
+export function giveUpHelper(): void {
+  void helper?.terminate();
+  helper = null;
 }
 
 /**
@@ -266,8 +283,7 @@ export class HelperLink {
       const v = Atomics.load(flags, index);
       if (v === token) return true;
       if (v === -token || performance.now() > until) {
-        void helper?.terminate();
-        helper = null;
+        giveUpHelper();
         return false;
       }
       Atomics.wait(flags, index, v, 500);
@@ -355,8 +371,7 @@ export class HelperLink {
         progress = p;
         since = performance.now();
       } else if (performance.now() - since > STALLED_MS) {
-        void helper?.terminate();
-        helper = null;
+        giveUpHelper();
         return null;
       }
     }
