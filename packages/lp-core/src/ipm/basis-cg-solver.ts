@@ -146,14 +146,15 @@ export class BasisCgSolver implements KktSolver {
   private readonly p: Float64Array;
   private readonly q: Float64Array;
   private readonly best: Float64Array;
-  /** by row, then by position: the split right-hand side, or rp − Â dv and B⁻¹ of it (exactPrimal) */
+  /** by row, then by position: the normal equations' right-hand side and B⁻¹ of it, or rp − Â dv and B⁻¹ of it (exactPrimal) */
   private readonly rowWork: Float64Array;
   /** see complementarityShift */
   private readonly shift: Float64Array;
   private shifted = false;
-  // the split system's matrix, and CG's iterate u on it (by position)
+  // the split system's matrix, CG's iterate u on it and its right-hand side (by row: split-system.ts)
   private readonly split: SplitSystem;
   private readonly u: Float64Array;
+  private readonly splitRhs: Float64Array;
   private readonly warmU: Float64Array;
   private readonly maxSteps: number;
   private readonly maxExchanges: number;
@@ -204,6 +205,7 @@ export class BasisCgSolver implements KktSolver {
     this.u = new Float64Array(m);
     this.warmU = new Float64Array(m);
     this.split = new SplitSystem(m, settings.parallelFactorisation);
+    this.splitRhs = new Float64Array(m);
     this.warmDy = new Float64Array(m);
     this.maxSteps = Math.max(500, Math.min(5000, m));
     this.maxExchanges = Math.max(MAX_EXCHANGES, Math.ceil(m * EXCHANGE_SHARE));
@@ -390,7 +392,7 @@ export class BasisCgSolver implements KktSolver {
   }
 
   private readonly applyDiagonal = (r: Float64Array, z: Float64Array): void => this.precondition(r, z);
-  private readonly applySplitSystem = (x: Float64Array, out: Float64Array): number => this.split.apply(x, out, this.basis);
+  private readonly applySplitSystem = (x: Float64Array, out: Float64Array): number => this.split.apply(x, out);
 
   /**
    * Diagonally preconditioned CG on (A Θ_x Aᵀ + Θ_w + δI) dy = rhs, started from P⁻¹ rhs or from
@@ -410,29 +412,28 @@ export class BasisCgSolver implements KktSolver {
    * L's nonzeros), and the residual is the scaled one the stopping rule measures. Starts from
    * u = Θ_B^{-1/2} B⁻¹ rhs (exact when N carries no weight) or from the previous solve's u of this
    * iteration; stops at max(KKT_TOLERANCE·√μ, CG_TOLERANCE·(1 + ‖Θ_B^{-1/2} B⁻¹ rhs‖∞)).
-   * dy ← B⁻ᵀ Θ_B^{-1/2} u. Returns the steps taken, negated when `limit` steps (or the deadline)
-   * came first.
+   * dy ← B⁻ᵀ Θ_B^{-1/2} u. u and the split right-hand side are numbered as split-system.ts numbers
+   * them (by the row pivoted at each position). Returns the steps taken, negated when `limit`
+   * steps (or the deadline) came first.
    */
   private splitConjugateGradients(dy: Float64Array, limit: number): number {
-    const { m } = this.prob;
-    const { u } = this;
-    const { invSqrtBasic } = this.split;
-    const rhsSplit = this.rowWork;
-    rhsSplit.set(this.rhs);
-    this.basis.ftran(rhsSplit);
-    for (let k = 0; k < m; k++) rhsSplit[k] *= invSqrtBasic[k];
-    const target = Math.max(KKT_TOLERANCE * Math.sqrt(this.mu), CG_TOLERANCE * (1 + maxAbs(rhsSplit)));
-    u.set(rhsSplit);
+    const { u, splitRhs } = this;
+    const byPosition = this.rowWork;
+    byPosition.set(this.rhs);
+    this.basis.ftran(byPosition);
+    this.split.toSplit(byPosition, splitRhs);
+    const target = Math.max(KKT_TOLERANCE * Math.sqrt(this.mu), CG_TOLERANCE * (1 + maxAbs(splitRhs)));
+    u.set(splitRhs);
     const warm = this.warm && this.warmMode === 'basis' ? this.warmU : null;
     let steps: number;
     this.split.begin();
     try {
-      steps = this.runCg(u, rhsSplit, target, limit, this.applySplitSystem, null, warm);
+      steps = this.runCg(u, splitRhs, target, limit, this.applySplitSystem, null, warm);
     } finally {
       this.split.end();
     }
     this.warmU.set(u);
-    for (let k = 0; k < m; k++) dy[k] = u[k] * invSqrtBasic[k];
+    this.split.fromSplit(u, dy);
     this.basis.btran(dy);
     return steps;
   }

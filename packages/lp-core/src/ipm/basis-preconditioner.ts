@@ -176,6 +176,11 @@ export class BasisPreconditioner {
     return this.etaPtr[this.etaCount];
   }
 
+  /** the updates as stored: update e has its pivot at position pos[e] and its other entries (by position) at ptr[e]..ptr[e + 1] */
+  get updateFile(): { count: number; pos: Int32Array; pivot: Float64Array; ptr: Int32Array; idx: Int32Array; val: Float64Array } {
+    return { count: this.etaCount, pos: this.etaPos, pivot: this.etaPivot, ptr: this.etaPtr, idx: this.etaIdx, val: this.etaVal };
+  }
+
   /** x ← E⁻¹x for the updates E since the last factorisation (x by position) */
   applyUpdates(x: Float64Array): void {
     const { etaPos, etaPivot, etaPtr, etaIdx, etaVal } = this;

@@ -5,13 +5,15 @@
  *   out = x + Θ_B^{-1/2} B⁻¹ N Θ_N Nᵀ B⁻ᵀ Θ_B^{-1/2} x.
  *
  * With P B = L U (sparse-lu.ts) and U = Ũ D (Ũ unit upper triangular, D its diagonal),
- * B⁻¹ = E⁻¹ D⁻¹ Ũ⁻¹ L⁻¹ P, E the basis's product-form updates. The triangular solves are numbered
- * by LU step, which is also the basis position: L's rows are renumbered by P once per preparation,
- * so they need no permutation, and they visit only the columns of L and Ũ that have entries off
- * the diagonal (most columns of L have none: the basis's triangular parts come first, see
- * triangular-first-order.ts). N is copied with its columns scaled by √θ_j, rows as in A (the
- * vector is permuted to rows and back around its product); its columns with a single entry and
- * the nonbasic slacks only add to a diagonal, N Θ_N Nᵀ = diag + Ñ Ñᵀ.
+ * B⁻¹ = E⁻¹ D⁻¹ Ũ⁻¹ L⁻¹ P, E the basis's product-form updates. The system's vectors are numbered
+ * by row: position (LU step) k is kept at the row pivoted there, P's row, so N's product needs no
+ * permutation (rows in A's order also keep its accesses near each other: on XL 1.07–1.19 ms against
+ * 1.44–1.64 ms with rows renumbered by step), and the triangular solves take their columns in step
+ * order from a list, visiting only the columns with entries off the diagonal (most columns of L
+ * have none: the basis's triangular parts come first, see triangular-first-order.ts). N is copied
+ * with its columns scaled by √θ_j; its columns with a single entry and the nonbasic slacks only
+ * add to a diagonal, N Θ_N Nᵀ = diag + Ñ Ñᵀ. Conjugate gradients take the right-hand side in and
+ * the solution out through toSplit and fromSplit.
  *
  * Measured on the bench's L model (one product at iteration 15 and 22, 300 repeats): 0.49–0.52 ms
  * with the basis's own solves (rows in, positions out) and A's columns picked by an index list,
@@ -19,6 +21,7 @@
  * 4685 have a single entry). Whole solves: L 2.75 → 2.42 s; XL 89 → 50 s (runs within the hour).
  * With the triangular-first LU, a product on XL at iteration 20 (75905 rows): L's solves 0.02 ms,
  * Ũ's 0.41–0.49 ms (70427 columns, 108633 entries), N's 1.1 ms (336602 entries); in all 2.8 ms.
+ * Numbered by step, the vector had to be permuted to rows and back around N's product (0.19 ms).
  */
 import type { CscMatrix } from '../problem/problem';
 import type { BasisPreconditioner } from './basis-preconditioner';
@@ -50,7 +53,8 @@ function sharedFloat64(length: number): Float64Array {
 
 export class SplitSystem {
   private readonly m: number;
-  // L's and Ũ's off-diagonal entries by column, rows as steps; only the columns that have any
+  // L's and Ũ's off-diagonal entries by column, for the columns that have any, in step order:
+  // the row of each column's step, and the rows of its entries
   private lCols = new Int32Array(0);
   private lPtr = new Int32Array(1);
   private lIdx = new Int32Array(0);
@@ -59,25 +63,28 @@ export class SplitSystem {
   private uPtr = new Int32Array(1);
   private uIdx = new Int32Array(0);
   private uVal = new Float64Array(0);
-  /** 1/d_k, and Θ_B^{-1/2}/d_k (used when there are no updates between them) */
+  /** by row: 1/d of the step pivoted there, 1/√θ of the column basic there, and their product */
   private readonly invDiag: Float64Array;
+  private readonly invSqrtBasic: Float64Array;
   private readonly scale: Float64Array;
-  /** 1/√θ of the basic column at each position */
-  readonly invSqrtBasic: Float64Array;
-  /** Ñ = N Θ_N^{1/2}, columns with two or more entries (rows as rows: see apply) */
+  /** the row pivoted at each step (basis position) */
+  private readonly pivotRow: Int32Array;
+  // the basis's product-form updates, positions given as rows
+  private updates = 0;
+  private ePos = new Int32Array(0);
+  private ePivot = new Float64Array(0);
+  private ePtr = new Int32Array(1);
+  private eIdx = new Int32Array(0);
+  private eVal = new Float64Array(0);
+  /** Ñ = N Θ_N^{1/2}, columns with two or more entries */
   private nPtr: Int32Array<ArrayBufferLike> = new Int32Array(1);
   private nIdx: Int32Array<ArrayBufferLike> = new Int32Array(0);
   private nVal: Float64Array<ArrayBufferLike> = new Float64Array(0);
-  /** the rest of N Θ_N Nᵀ: single-entry columns and nonbasic slacks, by row */
+  /** the rest of N Θ_N Nᵀ: single-entry columns and nonbasic slacks */
   private readonly nDiag: Float64Array;
-  /** the row pivoted at each step */
-  private readonly pivotRow: Int32Array;
-  private readonly g: Float64Array;
-  /** g and the product by row */
-  private gRow: Float64Array<ArrayBufferLike>;
-  private readonly outRow: Float64Array;
-  private updates = false;
-  // the helper thread's share of Ñ's product: its columns cut.., and its result by row
+  /** B⁻ᵀ Θ_B^{-1/2} x (shared with the helper when it takes part) */
+  private g: Float64Array<ArrayBufferLike>;
+  // the helper thread's share of Ñ's product: its columns cut.., and its result
   private helper: ColumnProductHelper | null = null;
   private helperOut: Float64Array | null = null;
   private cut = 0;
@@ -92,13 +99,11 @@ export class SplitSystem {
   ) {
     this.m = m;
     this.invDiag = new Float64Array(m);
-    this.scale = new Float64Array(m);
     this.invSqrtBasic = new Float64Array(m);
-    this.nDiag = new Float64Array(m);
+    this.scale = new Float64Array(m);
     this.pivotRow = new Int32Array(m);
+    this.nDiag = new Float64Array(m);
     this.g = new Float64Array(m);
-    this.gRow = new Float64Array(m);
-    this.outRow = new Float64Array(m);
   }
 
   /**
@@ -106,13 +111,12 @@ export class SplitSystem {
    * columns of [A I] (θ_x, then the slacks'): columns of weight 0 are left out of N.
    */
   prepare(basis: BasisPreconditioner, A: CscMatrix, weight: Float64Array): void {
-    const { m } = this;
+    const { m, pivotRow } = this;
     const { n, colPtr: Ap, rowIdx: Ai, values: Ax } = A;
-    const { Lp, Li, Lx, Up, Ui, Ux, pinv, pivotRow } = basis.factors;
-    this.pivotRow.set(pivotRow);
+    const { Lp, Li, Lx, Up, Ui, Ux } = basis.factors;
+    pivotRow.set(basis.factors.pivotRow);
     const { basic, position } = basis;
-    this.updates = basis.updateCount > 0;
-    // L: the first entry of each column is its unit pivot
+    // L: the first entry of each column is its unit pivot; the others are stored by row already
     let lCount = 0;
     for (let s = 0; s < m; s++) if (Lp[s + 1] - Lp[s] > 1) lCount++;
     const lEntries = Lp[m] - m;
@@ -125,13 +129,13 @@ export class SplitSystem {
     for (let s = 0; s < m; s++) {
       if (Lp[s + 1] - Lp[s] <= 1) continue;
       for (let p = Lp[s] + 1; p < Lp[s + 1]; p++) {
-        this.lIdx[q] = pinv[Li[p]];
+        this.lIdx[q] = Li[p];
         this.lVal[q++] = Lx[p];
       }
-      this.lCols[c++] = s;
+      this.lCols[c++] = pivotRow[s];
       this.lPtr[c] = q;
     }
-    // U: the diagonal entry is the last of each column; Ũ = U D⁻¹
+    // U: the diagonal entry is the last of each column, the others stored by step; Ũ = U D⁻¹
     let uCount = 0;
     for (let k = 0; k < m; k++) if (Up[k + 1] - Up[k] > 1) uCount++;
     const uEntries = Up[m] - m;
@@ -144,17 +148,27 @@ export class SplitSystem {
     for (let k = 0; k < m; k++) {
       const last = Up[k + 1] - 1;
       const d = Ux[last];
-      this.invDiag[k] = 1 / d;
-      this.invSqrtBasic[k] = 1 / Math.sqrt(weight[basic[k]]);
-      this.scale[k] = this.invDiag[k] * this.invSqrtBasic[k];
+      const r = pivotRow[k];
+      this.invDiag[r] = 1 / d;
+      this.invSqrtBasic[r] = 1 / Math.sqrt(weight[basic[k]]);
+      this.scale[r] = this.invDiag[r] * this.invSqrtBasic[r];
       if (last === Up[k]) continue;
       for (let p = Up[k]; p < last; p++) {
-        this.uIdx[q] = Ui[p];
+        this.uIdx[q] = pivotRow[Ui[p]];
         this.uVal[q++] = Ux[p] / d;
       }
-      this.uCols[c++] = k;
+      this.uCols[c++] = r;
       this.uPtr[c] = q;
     }
+    // the updates, positions as rows
+    const file = basis.updateFile;
+    this.updates = file.count;
+    this.ePos = Int32Array.from(file.pos.subarray(0, file.count), (k) => pivotRow[k]);
+    this.ePivot = file.pivot.slice(0, file.count);
+    this.ePtr = file.ptr.slice(0, file.count + 1);
+    const eEntries = file.ptr[file.count];
+    this.eIdx = Int32Array.from(file.idx.subarray(0, eEntries), (k) => pivotRow[k]);
+    this.eVal = file.val.slice(0, eEntries);
     // N Θ_N Nᵀ: nonbasic slacks and single-entry columns on the diagonal, the rest copied
     const { nDiag } = this;
     for (let i = 0; i < m; i++) nDiag[i] = position[n + i] < 0 ? weight[n + i] : 0;
@@ -184,63 +198,72 @@ export class SplitSystem {
       }
       this.nPtr[++c] = q;
     }
-    // the helper takes the columns from the one where half of the entries are passed
+    // the helper takes the columns from the one where MAIN_SHARE of the entries are passed
     this.cut = nCols;
     if (shared) {
       this.cut = 0;
       while (this.cut < nCols && this.nPtr[this.cut] < nEntries * MAIN_SHARE) this.cut++;
     }
-    this.nonzeros = 2 * (lEntries + uEntries + nEntries + basis.updateNonzeros) + 6 * m;
+    this.nonzeros = 2 * (lEntries + uEntries + nEntries + eEntries) + 5 * m;
   }
 
-  /** out ← (I + W Wᵀ) x, x and out by basis position; returns xᵀ out */
-  apply(x: Float64Array, out: Float64Array, basis: BasisPreconditioner): number {
+  /** out ← Θ_B^{-1/2} v, v by basis position, out by row: a right-hand side for the split system */
+  toSplit(v: Float64Array, out: Float64Array): void {
+    const { m, pivotRow, invSqrtBasic } = this;
+    for (let k = 0; k < m; k++) {
+      const r = pivotRow[k];
+      out[r] = v[k] * invSqrtBasic[r];
+    }
+  }
+
+  /** out ← Θ_B^{-1/2} u, u by row, out by basis position: Bᵀ dy = out gives the normal equations' dy */
+  fromSplit(u: Float64Array, out: Float64Array): void {
+    const { m, pivotRow, invSqrtBasic } = this;
+    for (let k = 0; k < m; k++) {
+      const r = pivotRow[k];
+      out[k] = u[r] * invSqrtBasic[r];
+    }
+  }
+
+  /** out ← (I + W Wᵀ) x, x and out by row; returns xᵀ out */
+  apply(x: Float64Array, out: Float64Array): number {
     const { m, g, nDiag, invSqrtBasic, invDiag, scale } = this;
-    // g = B⁻ᵀ Θ_B^{-1/2} x = Pᵀ L⁻ᵀ Ũ⁻ᵀ D⁻¹ E⁻ᵀ Θ_B^{-1/2} x (by step)
-    if (this.updates) {
-      for (let k = 0; k < m; k++) g[k] = x[k] * invSqrtBasic[k];
-      basis.applyUpdatesTransposed(g);
-      for (let k = 0; k < m; k++) g[k] *= invDiag[k];
-    } else for (let k = 0; k < m; k++) g[k] = x[k] * scale[k];
+    // g = B⁻ᵀ Θ_B^{-1/2} x = Pᵀ L⁻ᵀ Ũ⁻ᵀ D⁻¹ E⁻ᵀ Θ_B^{-1/2} x
+    if (this.updates > 0) {
+      for (let i = 0; i < m; i++) g[i] = x[i] * invSqrtBasic[i];
+      this.applyUpdatesTransposed(g);
+      for (let i = 0; i < m; i++) g[i] *= invDiag[i];
+    } else for (let i = 0; i < m; i++) g[i] = x[i] * scale[i];
     this.solveUnitUpperTransposed(g);
     this.solveLowerTransposed(g);
-    // out = N Θ_N Nᵀ g, by row (rows in A's order keep the product's accesses near each other:
-    // on XL 1.07–1.19 ms against 1.44–1.64 ms with rows renumbered by step)
-    const { nPtr, nIdx, nVal, pivotRow, gRow, outRow } = this;
-    for (let s = 0; s < m; s++) gRow[pivotRow[s]] = g[s];
-    for (let i = 0; i < m; i++) outRow[i] = nDiag[i] * gRow[i];
+    // out = N Θ_N Nᵀ g, the helper taking its share of Ñ's columns
+    const { nPtr, nIdx, nVal } = this;
+    for (let i = 0; i < m; i++) out[i] = nDiag[i] * g[i];
     const columns = nPtr.length - 1;
     const helper = this.helper?.inSession && this.cut < columns ? this.helper : null;
     helper?.ask();
-    addColumnProducts(nPtr, nIdx, nVal, gRow, outRow, 0, helper ? this.cut : columns);
+    addColumnProducts(nPtr, nIdx, nVal, g, out, 0, helper ? this.cut : columns);
     if (helper && helper.wait()) {
       const helperOut = this.helperOut!;
-      for (let s = 0; s < m; s++) {
-        const i = pivotRow[s];
-        out[s] = outRow[i] + helperOut[i];
-      }
-    } else {
-      // the helper's share, when it failed on the way
-      if (helper) addColumnProducts(nPtr, nIdx, nVal, gRow, outRow, this.cut, columns);
-      for (let s = 0; s < m; s++) out[s] = outRow[pivotRow[s]];
-    }
+      for (let i = 0; i < m; i++) out[i] += helperOut[i];
+    } else if (helper) addColumnProducts(nPtr, nIdx, nVal, g, out, this.cut, columns); // it failed on the way
     // out = x + Θ_B^{-1/2} E⁻¹ D⁻¹ Ũ⁻¹ L⁻¹ out
     this.solveLower(out);
     this.solveUnitUpper(out);
     let xOut = 0;
-    if (this.updates) {
-      for (let k = 0; k < m; k++) out[k] *= invDiag[k];
-      basis.applyUpdates(out);
-      for (let k = 0; k < m; k++) {
-        const v = x[k] + out[k] * invSqrtBasic[k];
-        out[k] = v;
-        xOut += x[k] * v;
+    if (this.updates > 0) {
+      for (let i = 0; i < m; i++) out[i] *= invDiag[i];
+      this.applyUpdates(out);
+      for (let i = 0; i < m; i++) {
+        const v = x[i] + out[i] * invSqrtBasic[i];
+        out[i] = v;
+        xOut += x[i] * v;
       }
     } else
-      for (let k = 0; k < m; k++) {
-        const v = x[k] + out[k] * scale[k];
-        out[k] = v;
-        xOut += x[k] * v;
+      for (let i = 0; i < m; i++) {
+        const v = x[i] + out[i] * scale[i];
+        out[i] = v;
+        xOut += x[i] * v;
       }
     return xOut;
   }
@@ -251,7 +274,7 @@ export class SplitSystem {
    */
   begin(): void {
     if (this.cut < this.nPtr.length - 1 && this.helper && this.helperOut) {
-      this.helper.begin({ nPtr: this.nPtr, nIdx: this.nIdx, nVal: this.nVal, g: this.gRow, out: this.helperOut }, this.cut, this.nPtr.length - 1);
+      this.helper.begin({ nPtr: this.nPtr, nIdx: this.nIdx, nVal: this.nVal, g: this.g, out: this.helperOut }, this.cut, this.nPtr.length - 1);
     }
   }
 
@@ -264,15 +287,36 @@ export class SplitSystem {
     if (!this.helper) {
       this.helper = ColumnProductHelper.create();
       if (!this.helper) return false;
-      const gRow = sharedFloat64(this.m);
-      gRow.set(this.gRow);
-      this.gRow = gRow;
+      this.g = sharedFloat64(this.m);
       this.helperOut = sharedFloat64(this.m);
     }
     return true;
   }
 
-  /** y ← L⁻¹y (by step) */
+  /** y ← E⁻¹y */
+  private applyUpdates(y: Float64Array): void {
+    const { ePos, ePivot, ePtr, eIdx, eVal } = this;
+    for (let e = 0; e < this.updates; e++) {
+      const k = ePos[e];
+      const t = y[k] / ePivot[e];
+      y[k] = t;
+      if (t === 0) continue;
+      for (let p = ePtr[e]; p < ePtr[e + 1]; p++) y[eIdx[p]] -= eVal[p] * t;
+    }
+  }
+
+  /** y ← E⁻ᵀy */
+  private applyUpdatesTransposed(y: Float64Array<ArrayBufferLike>): void {
+    const { ePos, ePivot, ePtr, eIdx, eVal } = this;
+    for (let e = this.updates - 1; e >= 0; e--) {
+      const k = ePos[e];
+      let s = y[k];
+      for (let p = ePtr[e]; p < ePtr[e + 1]; p++) s -= eVal[p] * y[eIdx[p]];
+      y[k] = s / ePivot[e];
+    }
+  }
+
+  /** y ← L⁻¹y */
   private solveLower(y: Float64Array): void {
     const { lCols, lPtr, lIdx, lVal } = this;
     for (let c = 0; c < lCols.length; c++) {
@@ -282,8 +326,8 @@ export class SplitSystem {
     }
   }
 
-  /** y ← L⁻ᵀy (by step) */
-  private solveLowerTransposed(y: Float64Array): void {
+  /** y ← L⁻ᵀy */
+  private solveLowerTransposed(y: Float64Array<ArrayBufferLike>): void {
     const { lCols, lPtr, lIdx, lVal } = this;
     for (let c = lCols.length - 1; c >= 0; c--) {
       let s = y[lCols[c]];
@@ -292,7 +336,7 @@ export class SplitSystem {
     }
   }
 
-  /** y ← Ũ⁻¹y (by step) */
+  /** y ← Ũ⁻¹y */
   private solveUnitUpper(y: Float64Array): void {
     const { uCols, uPtr, uIdx, uVal } = this;
     for (let c = uCols.length - 1; c >= 0; c--) {
@@ -302,8 +346,8 @@ export class SplitSystem {
     }
   }
 
-  /** y ← Ũ⁻ᵀy (by step) */
-  private solveUnitUpperTransposed(y: Float64Array): void {
+  /** y ← Ũ⁻ᵀy */
+  private solveUnitUpperTransposed(y: Float64Array<ArrayBufferLike>): void {
     const { uCols, uPtr, uIdx, uVal } = this;
     for (let c = 0; c < uCols.length; c++) {
       let s = y[uCols[c]];
