@@ -22,7 +22,8 @@
  *    Cholesky iterations then CG 13.8 s; CG from the start 4.8–5.3 s (26 iterations, 3976 steps),
  *    with primal-exact steps and the split system 3.3–4.1 s (27 iterations, 2371 steps);
  *  - XL (75920 rows): the first factorisation did not end within 300 s; CG from the start 110 s,
- *    now 73 s;
+ *    then 73 s, with the split system laid out by row, the triangular-first basis LU and the
+ *    helper thread 40–45 s;
  *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 6.1–6.9 s
  *    (16–19 s measured earlier by a script that did not hand μ on, so CG ran to its tight target);
  *  - the demo plant's 12-week plan (1142 rows, estimated 1.2e7, about 2000 per nonzero):
@@ -31,8 +32,8 @@
  * CG from the start used to stall (70 s for L's first iteration): the diagonal preconditioner
  * gave up at the starting point, where all weights are alike, and the basis then picked filled its
  * LU with millions of nonzeros. Now the first iteration keeps its inexact directions, the
- * diagonal preconditioner carries the next few (8 on L), and the basis is factorised in a
- * fill-reducing column order (45–100 thousand nonzeros on L).
+ * diagonal preconditioner carries the next few (8 on L), and the basis is factorised with its
+ * triangular parts first (40–54 thousand nonzeros on L, about those of B itself).
  */
 import type { IpmSettings } from '../settings';
 import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
