@@ -331,6 +331,21 @@ describe('the basis preconditioner', () => {
     expectFtranLikeDense(basis, denseBasis(p, basis.basic), rng);
   });
 
+  it('a refactorisation that fills past the limit also tries the fill-reducing order and keeps the sparser LU; either way it solves like the dense LU', () => {
+    const { p, rng, weight } = weightedBasis(48, 8);
+    const sizes: number[] = [];
+    for (const fillLimit of [Infinity, 0]) {
+      // Infinity: the triangular-first order alone; 0: both orders, the sparser kept
+      const basis = new BasisPreconditioner(p.A, 20, fillLimit);
+      basis.build(weight);
+      basis.refactor();
+      sizes.push(basis.nonzeros);
+      expectFtranLikeDense(basis, denseBasis(p, basis.basic), rng);
+      basis.basic.forEach((j, k) => expect(basis.position[j]).toBe(k));
+    }
+    expect(sizes[1]).toBeLessThanOrEqual(sizes[0]);
+  });
+
   it("the split system's product is x + W Wᵀx, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2} formed densely, with updates pending and after a fresh factorisation, alone and with the helper thread", () => {
     // A random LP's matrix with eight single-entry columns appended (they go on the split
     // system's diagonal) and a few columns of weight 0 (left out of N)
