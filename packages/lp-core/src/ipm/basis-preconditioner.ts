@@ -22,6 +22,7 @@ import type { CscMatrix } from '../problem/problem';
 import { columnOrder } from '../sparse/column-ordering';
 import { triangularFirstOrder } from '../sparse/triangular-first-order';
 import { SparseLu, grow, growF } from '../sparse/sparse-lu';
+import { applyUpdates, applyUpdatesTransposed, type UpdateFile } from './product-form';
 
 /**
  * improve() ends a round after this many examined columns in a row without an exchange. Measured
@@ -202,7 +203,7 @@ export class BasisPreconditioner {
   /** x ← B⁻¹x (x by row in, by basis position out) */
   ftran(x: Float64Array): void {
     this.lu.solve(x, this.work);
-    this.applyUpdates(x);
+    applyUpdates(this.updateFile, x);
   }
 
   /** the LU factors of the basis as last factorised (the updates since are applied apart) */
@@ -210,41 +211,14 @@ export class BasisPreconditioner {
     return this.lu;
   }
 
-  /** product-form updates since the last factorisation, and their nonzeros */
+  /** product-form updates since the last factorisation */
   get updateCount(): number {
     return this.etaCount;
   }
 
-  get updateNonzeros(): number {
-    return this.etaPtr[this.etaCount];
-  }
-
-  /** the updates as stored: update e has its pivot at position pos[e] and its other entries (by position) at ptr[e]..ptr[e + 1] */
-  get updateFile(): { count: number; pos: Int32Array; pivot: Float64Array; ptr: Int32Array; idx: Int32Array; val: Float64Array } {
+  /** the updates as stored, by position */
+  get updateFile(): UpdateFile {
     return { count: this.etaCount, pos: this.etaPos, pivot: this.etaPivot, ptr: this.etaPtr, idx: this.etaIdx, val: this.etaVal };
-  }
-
-  /** x ← E⁻¹x for the updates E since the last factorisation (x by position) */
-  applyUpdates(x: Float64Array): void {
-    const { etaPos, etaPivot, etaPtr, etaIdx, etaVal } = this;
-    for (let e = 0; e < this.etaCount; e++) {
-      const k = etaPos[e];
-      const xk = x[k] / etaPivot[e];
-      x[k] = xk;
-      if (xk === 0) continue;
-      for (let p = etaPtr[e]; p < etaPtr[e + 1]; p++) x[etaIdx[p]] -= etaVal[p] * xk;
-    }
-  }
-
-  /** x ← E⁻ᵀx (x by position) */
-  applyUpdatesTransposed(x: Float64Array): void {
-    const { etaPos, etaPivot, etaPtr, etaIdx, etaVal } = this;
-    for (let e = this.etaCount - 1; e >= 0; e--) {
-      const k = etaPos[e];
-      let s = x[k];
-      for (let p = etaPtr[e]; p < etaPtr[e + 1]; p++) s -= etaVal[p] * x[etaIdx[p]];
-      x[k] = s / etaPivot[e];
-    }
   }
 
   /**
@@ -283,7 +257,7 @@ export class BasisPreconditioner {
 
   /** x ← B⁻ᵀx (x by basis position in, by row out) */
   btran(x: Float64Array): void {
-    this.applyUpdatesTransposed(x);
+    applyUpdatesTransposed(this.updateFile, x);
     this.lu.solveTransposed(x, this.work);
   }
 

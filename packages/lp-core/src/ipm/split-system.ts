@@ -25,6 +25,7 @@
  */
 import type { CscMatrix } from '../problem/problem';
 import type { BasisPreconditioner } from './basis-preconditioner';
+import { applyUpdates, applyUpdatesTransposed, type UpdateFile } from './product-form';
 import { ColumnProductHelper } from './split-product-helper';
 import { addColumnProducts } from './split-product-kernel';
 
@@ -69,13 +70,8 @@ export class SplitSystem {
   private readonly scale: Float64Array;
   /** the row pivoted at each step (basis position) */
   private readonly pivotRow: Int32Array;
-  // the basis's product-form updates, positions given as rows
-  private updates = 0;
-  private ePos = new Int32Array(0);
-  private ePivot = new Float64Array(0);
-  private ePtr = new Int32Array(1);
-  private eIdx = new Int32Array(0);
-  private eVal = new Float64Array(0);
+  /** the basis's product-form updates, positions given as rows */
+  private updates: UpdateFile = { count: 0, pos: new Int32Array(0), pivot: new Float64Array(0), ptr: new Int32Array(1), idx: new Int32Array(0), val: new Float64Array(0) };
   /** Ñ = N Θ_N^{1/2}, columns with two or more entries */
   private nPtr: Int32Array<ArrayBufferLike> = new Int32Array(1);
   private nIdx: Int32Array<ArrayBufferLike> = new Int32Array(0);
@@ -162,13 +158,15 @@ export class SplitSystem {
     }
     // the updates, positions as rows
     const file = basis.updateFile;
-    this.updates = file.count;
-    this.ePos = Int32Array.from(file.pos.subarray(0, file.count), (k) => pivotRow[k]);
-    this.ePivot = file.pivot.slice(0, file.count);
-    this.ePtr = file.ptr.slice(0, file.count + 1);
     const eEntries = file.ptr[file.count];
-    this.eIdx = Int32Array.from(file.idx.subarray(0, eEntries), (k) => pivotRow[k]);
-    this.eVal = file.val.slice(0, eEntries);
+    this.updates = {
+      count: file.count,
+      pos: Int32Array.from(file.pos.subarray(0, file.count), (k) => pivotRow[k]),
+      pivot: file.pivot.slice(0, file.count),
+      ptr: file.ptr.slice(0, file.count + 1),
+      idx: Int32Array.from(file.idx.subarray(0, eEntries), (k) => pivotRow[k]),
+      val: file.val.slice(0, eEntries),
+    };
     // N Θ_N Nᵀ: nonbasic slacks and single-entry columns on the diagonal, the rest copied
     const { nDiag } = this;
     for (let i = 0; i < m; i++) nDiag[i] = position[n + i] < 0 ? weight[n + i] : 0;
@@ -229,9 +227,9 @@ export class SplitSystem {
   apply(x: Float64Array, out: Float64Array): number {
     const { m, g, nDiag, invSqrtBasic, invDiag, scale } = this;
     // g = B⁻ᵀ Θ_B^{-1/2} x = Pᵀ L⁻ᵀ Ũ⁻ᵀ D⁻¹ E⁻ᵀ Θ_B^{-1/2} x
-    if (this.updates > 0) {
+    if (this.updates.count > 0) {
       for (let i = 0; i < m; i++) g[i] = x[i] * invSqrtBasic[i];
-      this.applyUpdatesTransposed(g);
+      applyUpdatesTransposed(this.updates, g);
       for (let i = 0; i < m; i++) g[i] *= invDiag[i];
     } else for (let i = 0; i < m; i++) g[i] = x[i] * scale[i];
     this.solveUnitUpperTransposed(g);
@@ -251,9 +249,9 @@ export class SplitSystem {
     this.solveLower(out);
     this.solveUnitUpper(out);
     let xOut = 0;
-    if (this.updates > 0) {
+    if (this.updates.count > 0) {
       for (let i = 0; i < m; i++) out[i] *= invDiag[i];
-      this.applyUpdates(out);
+      applyUpdates(this.updates, out);
       for (let i = 0; i < m; i++) {
         const v = x[i] + out[i] * invSqrtBasic[i];
         out[i] = v;
@@ -291,29 +289,6 @@ export class SplitSystem {
       this.helperOut = sharedFloat64(this.m);
     }
     return true;
-  }
-
-  /** y ← E⁻¹y */
-  private applyUpdates(y: Float64Array): void {
-    const { ePos, ePivot, ePtr, eIdx, eVal } = this;
-    for (let e = 0; e < this.updates; e++) {
-      const k = ePos[e];
-      const t = y[k] / ePivot[e];
-      y[k] = t;
-      if (t === 0) continue;
-      for (let p = ePtr[e]; p < ePtr[e + 1]; p++) y[eIdx[p]] -= eVal[p] * t;
-    }
-  }
-
-  /** y ← E⁻ᵀy */
-  private applyUpdatesTransposed(y: Float64Array<ArrayBufferLike>): void {
-    const { ePos, ePivot, ePtr, eIdx, eVal } = this;
-    for (let e = this.updates - 1; e >= 0; e--) {
-      const k = ePos[e];
-      let s = y[k];
-      for (let p = ePtr[e]; p < ePtr[e + 1]; p++) s -= eVal[p] * y[eIdx[p]];
-      y[k] = s / ePivot[e];
-    }
   }
 
   /** y ← L⁻¹y */
