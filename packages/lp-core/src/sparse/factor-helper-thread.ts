@@ -188,7 +188,8 @@ let helper: Worker | null | undefined;
 let nextId = 1;
 const dropper = new FinalizationRegistry<number>((id) => helper?.postMessage({ type: 'drop', id }));
 
-function theHelper(): Worker | null {
+/** the helper thread, started on first use; null when there is none (one core, or it failed) */
+export function helperThread(): Worker | null {
   if (helper !== undefined) return helper;
   if (availableParallelism() < 2) return (helper = null);
   try {
@@ -201,11 +202,6 @@ function theHelper(): Worker | null {
     helper = null;
   }
   return helper;
-}
-
-/** the helper thread, started on first use; null when there is none (one core, or it failed) */
-export function helperThread(): Worker | null {
-  return theHelper();
 }
 
 /** gives the helper up for good (it failed or stopped answering): the callers work alone */
@@ -244,7 +240,7 @@ export class HelperLink {
 
   /** null when no helper thread can be had */
   static create(owner: object, context: HelperContext): HelperLink | null {
-    if (!theHelper()) return null;
+    if (!helperThread()) return null;
     const link = new HelperLink(context);
     dropper.register(owner, link.id);
     return link;
@@ -265,7 +261,7 @@ export class HelperLink {
 
   /** the helper, with this factorisation's context registered on it; null when it is gone */
   private helperSetUp(): Worker | null {
-    const w = theHelper();
+    const w = helperThread();
     if (w && this.setUpOn !== w) {
       w.postMessage({ type: 'setup', id: this.id, context: this.context, out: this.out, done: this.done });
       this.setUpOn = w;
