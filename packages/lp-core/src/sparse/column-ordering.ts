@@ -9,6 +9,7 @@
  * make it complete and hide every other structure (their fill comes at the end either way).
  */
 import { approximateMinimumDegree } from './amd';
+import { transposePattern } from './csc';
 
 /** COLAMD's default for dense rows (T. A. Davis et al., ACM TOMS 30(3), 2004; recalled from memory) */
 const DENSE_ROW_FACTOR = 10;
@@ -19,12 +20,7 @@ const DENSE_ROW_FACTOR = 10;
  */
 export function columnOrder(m: number, colCount: number, colStart: Int32Array, rowIdx: Int32Array): Int32Array {
   // the columns of each row
-  const rowPtr = new Int32Array(m + 1);
-  for (let p = 0; p < colStart[colCount]; p++) rowPtr[rowIdx[p] + 1]++;
-  for (let i = 0; i < m; i++) rowPtr[i + 1] += rowPtr[i];
-  const next = rowPtr.slice(0, m);
-  const rowCols = new Int32Array(colStart[colCount]);
-  for (let k = 0; k < colCount; k++) for (let p = colStart[k]; p < colStart[k + 1]; p++) rowCols[next[rowIdx[p]]++] = k;
+  const { ptr: rowPtr, idx: rowCols } = transposePattern(m, colCount, colStart, rowIdx);
   // pattern of BᵀB (upper triangle, without the diagonal): columns sharing a row
   const denseRow = Math.max(16, DENSE_ROW_FACTOR * Math.sqrt(colCount));
   const mark = new Int32Array(colCount).fill(-1);

@@ -57,6 +57,20 @@ function sumDuplicates(A: CscMatrix): CscMatrix {
   return { m: A.m, n, colPtr: Bp, rowIdx: Ai.slice(0, q), values: Ax.slice(0, q) };
 }
 
+/**
+ * The pattern of Aᵀ for a pattern given by columns (column j has rows rowIdx[colPtr[j] ..
+ * colPtr[j + 1]) of m rows): row i's columns are idx[ptr[i] .. ptr[i + 1]), in rising order.
+ */
+export function transposePattern(m: number, n: number, colPtr: Int32Array, rowIdx: Int32Array): { ptr: Int32Array; idx: Int32Array } {
+  const ptr = new Int32Array(m + 1);
+  for (let p = 0; p < colPtr[n]; p++) ptr[rowIdx[p] + 1]++;
+  for (let i = 0; i < m; i++) ptr[i + 1] += ptr[i];
+  const next = ptr.slice(0, m);
+  const idx = new Int32Array(colPtr[n]);
+  for (let j = 0; j < n; j++) for (let p = colPtr[j]; p < colPtr[j + 1]; p++) idx[next[rowIdx[p]]++] = j;
+  return { ptr, idx };
+}
+
 /** Aᵀ in CSC form (rows of the result come out sorted). */
 export function transpose(A: CscMatrix): CscMatrix {
   const { m, n, colPtr: Ap, rowIdx: Ai, values: Ax } = A;

@@ -21,6 +21,7 @@
  * the bump.
  */
 import { columnOrder } from './column-ordering';
+import { transposePattern } from './csc';
 
 /**
  * Columns given as patterns: column k has rows rowIdx[colStart[k] .. colStart[k + 1]) of an m-row
@@ -28,66 +29,16 @@ import { columnOrder } from './column-ordering';
  */
 export function triangularFirstOrder(m: number, colCount: number, colStart: Int32Array, rowIdx: Int32Array): { order: Int32Array; bump: number } {
   // the columns of each row
-  const rowPtr = new Int32Array(m + 1);
-  for (let p = 0; p < colStart[colCount]; p++) rowPtr[rowIdx[p] + 1]++;
-  for (let i = 0; i < m; i++) rowPtr[i + 1] += rowPtr[i];
-  const next = rowPtr.slice(0, m);
-  const rowCols = new Int32Array(colStart[colCount]);
-  for (let k = 0; k < colCount; k++) for (let p = colStart[k]; p < colStart[k + 1]; p++) rowCols[next[rowIdx[p]]++] = k;
-
+  const { ptr: rowPtr, idx: rowCols } = transposePattern(m, colCount, colStart, rowIdx);
   const rowTaken = new Uint8Array(m);
   const colTaken = new Uint8Array(colCount);
   const order = new Int32Array(colCount);
   let front = 0;
   let back = colCount;
-  const queue = new Int32Array(Math.max(m, colCount));
-
-  // 1. column singletons
-  const colLeft = new Int32Array(colCount);
-  let head = 0;
-  let tail = 0;
-  for (let k = 0; k < colCount; k++) {
-    colLeft[k] = colStart[k + 1] - colStart[k];
-    if (colLeft[k] === 1) queue[tail++] = k;
-  }
-  while (head < tail) {
-    const k = queue[head++];
-    if (colTaken[k] || colLeft[k] !== 1) continue;
-    let row = -1;
-    for (let p = colStart[k]; p < colStart[k + 1]; p++) if (!rowTaken[rowIdx[p]]) row = rowIdx[p];
-    colTaken[k] = 1;
-    rowTaken[row] = 1;
-    order[front++] = k;
-    for (let q = rowPtr[row]; q < rowPtr[row + 1]; q++) {
-      const l = rowCols[q];
-      if (colTaken[l]) continue;
-      if (--colLeft[l] === 1) queue[tail++] = l;
-    }
-  }
-
-  // 2. row singletons among the columns left
-  const rowLeft = new Int32Array(m);
-  head = 0;
-  tail = 0;
-  for (let i = 0; i < m; i++) {
-    if (rowTaken[i]) continue;
-    for (let q = rowPtr[i]; q < rowPtr[i + 1]; q++) if (!colTaken[rowCols[q]]) rowLeft[i]++;
-    if (rowLeft[i] === 1) queue[tail++] = i;
-  }
-  while (head < tail) {
-    const i = queue[head++];
-    if (rowTaken[i] || rowLeft[i] !== 1) continue;
-    let col = -1;
-    for (let q = rowPtr[i]; q < rowPtr[i + 1]; q++) if (!colTaken[rowCols[q]]) col = rowCols[q];
-    colTaken[col] = 1;
-    rowTaken[i] = 1;
-    order[--back] = col;
-    for (let p = colStart[col]; p < colStart[col + 1]; p++) {
-      const r = rowIdx[p];
-      if (rowTaken[r]) continue;
-      if (--rowLeft[r] === 1) queue[tail++] = r;
-    }
-  }
+  // 1. column singletons; 2. row singletons among the columns left (the same search, rows and
+  // columns swapped)
+  takeSingletons(colCount, colStart, rowIdx, colTaken, rowPtr, rowCols, rowTaken, (col) => (order[front++] = col));
+  takeSingletons(m, rowPtr, rowCols, rowTaken, colStart, rowIdx, colTaken, (_, col) => (order[--back] = col));
 
   // 3. the bump, on its own rows, between the two
   const bump = back - front;
@@ -112,4 +63,45 @@ export function triangularFirstOrder(m: number, colCount: number, colStart: Int3
     for (let b = 0; b < bump; b++) order[front + b] = cols[bumpOrder[b]];
   }
   return { order, bump };
+}
+
+/**
+ * Repeatedly takes a line (column or row) with a single entry among the cross lines not yet
+ * taken, together with that cross line: lines are given by ptr/idx (line l's cross lines at
+ * idx[ptr[l] .. ptr[l + 1])), cross lines by crossPtr/crossIdx. take(line, cross) is called in the
+ * order they are found.
+ */
+function takeSingletons(
+  count: number,
+  ptr: Int32Array,
+  idx: Int32Array,
+  taken: Uint8Array,
+  crossPtr: Int32Array,
+  crossIdx: Int32Array,
+  crossTaken: Uint8Array,
+  take: (line: number, cross: number) => void,
+): void {
+  // entries of each line in cross lines not yet taken
+  const left = new Int32Array(count);
+  const queue = new Int32Array(count);
+  let tail = 0;
+  for (let l = 0; l < count; l++) {
+    if (taken[l]) continue;
+    for (let p = ptr[l]; p < ptr[l + 1]; p++) if (!crossTaken[idx[p]]) left[l]++;
+    if (left[l] === 1) queue[tail++] = l;
+  }
+  for (let head = 0; head < tail; head++) {
+    const l = queue[head];
+    if (taken[l] || left[l] !== 1) continue;
+    let cross = -1;
+    for (let p = ptr[l]; p < ptr[l + 1]; p++) if (!crossTaken[idx[p]]) cross = idx[p];
+    taken[l] = 1;
+    crossTaken[cross] = 1;
+    take(l, cross);
+    // the other lines through that cross line lose an entry
+    for (let q = crossPtr[cross]; q < crossPtr[cross + 1]; q++) {
+      const other = crossIdx[q];
+      if (!taken[other] && --left[other] === 1) queue[tail++] = other;
+    }
+  }
 }
