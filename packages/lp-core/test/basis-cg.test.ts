@@ -142,6 +142,20 @@ describe('one Newton system solved both ways', () => {
     stay.solve(rhat, rp, dv, dy);
     stay.factorise(D);
     expect(stay.preconditioner).toBe('basis');
+    // a lower bound on the factorisation's cost is counted in full before the solve goes back
+    for (const exact of [choleskyOf(prob).flops, 1e15]) {
+      let counted = 0;
+      const bound = { ...choleskyOf(prob), flops: 1, exactFlops: () => (counted++, exact) };
+      const weighed = new BasisCgSolver(prob, settings, bound, 1, true);
+      weighed.factorise(D);
+      weighed.factorise(D);
+      weighed.solve(rhat, rp, dv, dy);
+      weighed.factorise(D);
+      weighed.solve(rhat, rp, dv, dy);
+      weighed.factorise(D);
+      expect(counted).toBe(1);
+      expect(weighed.preconditioner).toBe(exact === 1e15 ? 'basis' : 'direct');
+    }
   });
 
   it('a second solve in the same iteration starts from the first one\'s dy: the same system again takes no step', () => {

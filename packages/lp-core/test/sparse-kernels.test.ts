@@ -253,7 +253,8 @@ describe('nested dissection (fill against the natural order; common practice, no
     const rows = Int32Array.from(edges.map((e) => e[0]).concat(Array.from({ length: n }, (_, i) => i)));
     const cols = Int32Array.from(edges.map((e) => e[1]).concat(Array.from({ length: n }, (_, i) => i)));
     const estimate = estimateFactorFlops(n, rows, cols);
-    expect([...estimate.order].sort((a, b) => a - b)).toEqual([...Array(n).keys()]);
+    expect(estimate.atLeast).toBe(false);
+    expect([...estimate.order!].sort((a, b) => a - b)).toEqual([...Array(n).keys()]);
     const amd = new SymmetricFactorisation(n, rows, cols, 'amd');
     const reused = new SymmetricFactorisation(n, rows, cols, 'amd', 'supernodal', Infinity, false, estimate.order);
     expect([...reused.perm]).toEqual([...amd.perm]);
@@ -261,5 +262,31 @@ describe('nested dissection (fill against the natural order; common practice, no
     // column counts squared with the diagonal: no more than the supernodal count, which may add explicit zeros
     expect(estimate.flops).toBeGreaterThan(0);
     expect(estimate.flops).toBeLessThanOrEqual(amd.flops);
+  });
+  it('counted up to a limit, the estimate stops once the ordering reaches it, a lower bound then; otherwise it is the whole count', () => {
+    // the grid, and the grid with a row set aside as dense (899 entries > 10·√n), which the
+    // ordering's own count leaves out and the tree's count takes in
+    const denseRow = Array.from({ length: 899 }, (_, t): [number, number] => [4 * (t + 1) + 1, 0]);
+    for (const pattern of [edges, edges.concat(denseRow)]) {
+      const rows = Int32Array.from(pattern.map((e) => e[0]).concat(Array.from({ length: n }, (_, i) => i)));
+      const cols = Int32Array.from(pattern.map((e) => e[1]).concat(Array.from({ length: n }, (_, i) => i)));
+      const whole = estimateFactorFlops(n, rows, cols);
+      const stops: boolean[] = [];
+      for (const share of [1e-6, 0.01, 0.1, 0.5, 0.9, 0.999, 1, 1.001, 2]) {
+        const limit = Math.round(share * whole.flops);
+        const part = estimateFactorFlops(n, rows, cols, limit);
+        stops.push(part.atLeast);
+        if (part.atLeast) {
+          expect(part.flops).toBe(limit);
+          expect(part.order).toBeNull();
+        } else {
+          expect(part.flops).toBe(whole.flops);
+          expect([...part.order!]).toEqual([...whole.order!]);
+        }
+      }
+      // below the whole count it stops, above it does not; the dense row's part may be missed
+      expect(stops.slice(0, 5)).toEqual([true, true, true, true, true]);
+      expect(stops.slice(7)).toEqual([false, false]);
+    }
   });
 });

@@ -118,8 +118,10 @@ const SPARSE_OPERATION_COST = 20;
 
 /** a Cholesky solver of the same normal equations, built only if it is used */
 export interface CholeskyOption {
-  /** multiply–adds of one factorisation (exact or estimated) */
+  /** multiply–adds of one factorisation (exact or estimated, or a lower bound if exactFlops is given) */
   flops: number;
+  /** the estimate itself, counted when the lower bound `flops` would send the solve back to Cholesky */
+  exactFlops?: () => number;
   create: () => NormalEquations;
 }
 
@@ -175,6 +177,9 @@ export class BasisCgSolver implements KktSolver {
   /** sparse operations of CG so far */
   private work = 0;
   private direct: NormalEquations | null = null;
+  /** a factorisation's multiply–adds as the Cholesky option gives them, and whether counted in full */
+  private choleskyFlops: number;
+  private choleskyCounted = false;
   /** true once CG has given way to Cholesky for good */
   private backToCholesky = false;
 
@@ -210,6 +215,7 @@ export class BasisCgSolver implements KktSolver {
     this.maxSteps = Math.max(500, Math.min(5000, m));
     this.maxExchanges = Math.max(MAX_EXCHANGES, Math.ceil(m * EXCHANGE_SHARE));
     this.mode = cholesky && directIterations > 0 ? 'direct' : 'diagonal';
+    this.choleskyFlops = cholesky?.flops ?? 0;
   }
 
   get nnzL(): number {
@@ -248,7 +254,7 @@ export class BasisCgSolver implements KktSolver {
     this.iterationSteps = 0;
     this.deadline = deadline;
     const cgIterations = this.iterations - 1 - this.directIterations;
-    if (this.fallBack && this.mode === 'basis' && this.cholesky && SPARSE_OPERATION_COST * this.work > cgIterations * this.cholesky.flops) this.fallBackToCholesky();
+    if (this.fallBack && this.mode === 'basis' && this.choleskyIsCheaper(cgIterations)) this.fallBackToCholesky();
     this.warm = false;
     if (this.mode === 'direct') {
       if (this.iterations <= this.directIterations || this.backToCholesky) return this.directSolver().factorise(D, deadline);
@@ -337,6 +343,18 @@ export class BasisCgSolver implements KktSolver {
   /** the Cholesky solver, built when first needed */
   private directSolver(): NormalEquations {
     return (this.direct ??= this.cholesky!.create());
+  }
+
+  /** CG's work per iteration so far weighs more than a factorisation (see SPARSE_OPERATION_COST) */
+  private choleskyIsCheaper(cgIterations: number): boolean {
+    if (!this.cholesky) return false;
+    const cheaper = () => SPARSE_OPERATION_COST * this.work > cgIterations * this.choleskyFlops;
+    if (!cheaper()) return false;
+    if (this.cholesky.exactFlops && !this.choleskyCounted) {
+      this.choleskyFlops = this.cholesky.exactFlops();
+      this.choleskyCounted = true;
+    }
+    return cheaper();
   }
 
   /** Cholesky for the rest of the solve, unless its factor turns out not to fit after all */

@@ -12,7 +12,9 @@
  *    Cholesky for good if an iteration of CG costs more than a factorisation; and 'basis-cg' when
  *    the factor would not fit in maxFactorMegabytes. The cost is estimated in the approximate
  *    minimum degree order from the elimination tree alone (NormalEquations.estimateFlops), so
- *    choosing CG builds no factorisation: on L the full symbolic analysis took 0.4–0.7 s.
+ *    choosing CG builds no factorisation: on L the full symbolic analysis took 0.4–0.7 s. The
+ *    ordering stops counting at the threshold (XL: 2.9 → 1.05 s); the whole count is made only if
+ *    the fall-back is weighed.
  *
  * Measured on the bench's planning models (lp-core's bench, one machine, interleaved runs):
  *  - S (328 rows, estimated 4.3e5 multiply–adds, 210 per nonzero): Cholesky 0.035–0.046 s, CG 0.086 s;
@@ -38,7 +40,7 @@
 import type { IpmSettings } from '../settings';
 import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
 import { AugmentedSystem } from './augmented-system';
-import { BasisCgSolver } from './basis-cg-solver';
+import { BasisCgSolver, type CholeskyOption } from './basis-cg-solver';
 import { hasOffDiagonalQ, type IpmProblem } from './ipm-problem';
 import type { KktSolver } from './kkt-solver';
 import { NormalEquations } from './normal-equations';
@@ -51,8 +53,9 @@ export const CHOLESKY_ITERATIONS = 6;
 export const CG_MIN_FLOPS = 1e8;
 export const CG_FLOPS_PER_NONZERO = 2000;
 
-function prefersCg(prob: IpmProblem, flops: number): boolean {
-  return flops >= Math.max(CG_MIN_FLOPS, CG_FLOPS_PER_NONZERO * (prob.A.colPtr[prob.n] + prob.m));
+/** the multiply–adds of a factorisation from which on CG is preferred */
+function cgThreshold(prob: IpmProblem): number {
+  return Math.max(CG_MIN_FLOPS, CG_FLOPS_PER_NONZERO * (prob.A.colPtr[prob.n] + prob.m));
 }
 
 export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSolver {
@@ -60,11 +63,17 @@ export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSol
   const lp = !prob.Q;
   const choice = lp ? settings.linearSolver : 'cholesky';
   if (choice === 'basis-cg') return new BasisCgSolver(prob, settings);
-  const estimate = choice === 'auto' ? NormalEquations.estimateFlops(prob, settings) : null;
-  if (estimate && prefersCg(prob, estimate.flops)) {
-    // the fall-back keeps the order only: the pattern is cheap to build again, and rarely needed
+  // counted only up to the threshold: past it the count is only needed if CG turns out costly
+  const estimate = choice === 'auto' ? NormalEquations.estimateFlops(prob, settings, cgThreshold(prob)) : null;
+  if (estimate && estimate.flops >= cgThreshold(prob)) {
+    // the fall-back keeps the order (if the count got that far) only: the pattern is cheap to build again, and rarely needed
     const order = estimate.order;
-    return new BasisCgSolver(prob, settings, { flops: estimate.flops, create: () => new NormalEquations(prob, settings, { order }) }, 0, true);
+    const cholesky: CholeskyOption = {
+      flops: estimate.flops,
+      exactFlops: estimate.atLeast ? () => NormalEquations.estimateFlops(prob, settings).flops : undefined,
+      create: () => new NormalEquations(prob, settings, { order }),
+    };
+    return new BasisCgSolver(prob, settings, cholesky, 0, true);
   }
   let direct: NormalEquations;
   try {

@@ -42,7 +42,7 @@ export class NormalEquations implements KktSolver {
     private readonly prob: IpmProblem,
     private readonly settings: IpmSettings,
     /** what estimateFlops already computed: the AMD order, and the pattern unless dropped */
-    analysis: { order: Int32Array; pattern?: NormalPattern } | null = null,
+    analysis: { order: Int32Array | null; pattern?: NormalPattern } | null = null,
   ) {
     const { n, m, A } = prob;
     const { rows, cols, denseCols } = analysis?.pattern ?? normalPattern(prob, settings);
@@ -63,12 +63,16 @@ export class NormalEquations implements KktSolver {
 
   /**
    * Multiply–adds of one factorisation, estimated in the approximate-minimum-degree order without
-   * building the factorisation (see estimateFactorFlops), and that order and the pattern for the
-   * constructor.
+   * building the factorisation (see estimateFactorFlops, also for flopLimit), and that order and
+   * the pattern for the constructor.
    */
-  static estimateFlops(prob: IpmProblem, settings: IpmSettings): { flops: number; order: Int32Array; pattern: NormalPattern } {
+  static estimateFlops(
+    prob: IpmProblem,
+    settings: IpmSettings,
+    flopLimit = Infinity,
+  ): { flops: number; atLeast: boolean; order: Int32Array | null; pattern: NormalPattern } {
     const pattern = normalPattern(prob, settings);
-    return { ...estimateFactorFlops(prob.m, pattern.rows, pattern.cols), pattern };
+    return { ...estimateFactorFlops(prob.m, pattern.rows, pattern.cols, flopLimit), pattern };
   }
 
   get nnzL(): number {

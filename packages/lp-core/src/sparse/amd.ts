@@ -18,6 +18,17 @@ const flip = (i: number): number => -i - 2;
 
 /** Fill-reducing ordering of a symmetric pattern (either triangle or both may be given; the diagonal is ignored). perm[k] = original index placed k-th. */
 export function approximateMinimumDegree(n: number, Ap: Int32Array, Ai: Int32Array): Int32Array {
+  return minimumDegreeOrder(n, Ap, Ai, Infinity)!;
+}
+
+/**
+ * The order of approximateMinimumDegree, or null once the factor's multiply–adds in that order,
+ * Σ_j (entries of column j of L)², reach flopLimit: each pivot's element Lme is its column's
+ * pattern (a supervariable of f columns adds Σ_{k=r+1}^{r+f} k², r = |Lme|). The rows set aside as
+ * dense are left out of the count, so it is a lower bound. Answers "at least this much?" without
+ * ordering the densest part, where the elements are largest.
+ */
+export function minimumDegreeOrder(n: number, Ap: Int32Array, Ai: Int32Array, flopLimit: number): Int32Array | null {
   const { ptr, idx } = symmetricAdjacency(n, Ap, Ai);
   const nzaat = ptr[n];
   const iwlen = Math.max(nzaat + (nzaat >> 1) + 4 * n + 64, 16);
@@ -41,6 +52,7 @@ export function approximateMinimumDegree(n: number, Ap: Int32Array, Ai: Int32Arr
   let pfree = nzaat;
   let mindeg = 0;
   let lemax = 0;
+  let flops = 0;
   const wbig = 0x7fffffff - n - 1;
   let wflg = 2;
   const dense = Math.min(n - 2, Math.max(16, Math.floor(10 * Math.sqrt(n))));
@@ -329,6 +341,8 @@ export function approximateMinimumDegree(n: number, Ap: Int32Array, Ai: Int32Arr
       iw[p++] = i;
     }
     nv[me] = nvpiv;
+    for (let k = degme + 1; k <= degme + nvpiv; k++) flops += k * k;
+    if (flops >= flopLimit) return null;
     len[me] = p - pme1;
     if (len[me] === 0) {
       pe[me] = EMPTY;
