@@ -20,6 +20,8 @@ export interface SharedProductArrays {
   nPtr: Int32Array;
   nIdx: Int32Array;
   nVal: Float64Array;
+  /** Ñ's groups of columns by length (copied to the helper, not shared) */
+  nGroups: Int32Array;
   g: Float64Array;
   out: Float64Array;
 }

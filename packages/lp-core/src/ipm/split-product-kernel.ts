@@ -9,17 +9,113 @@
  * milliseconds; waking a sleeping thread took ~50 µs here, a spinning one ~1 µs), then sleeps.
  */
 
-/** out += Σ_{c0 ≤ c < c1} ñ_c (ñ_cᵀ g) for the columns ñ_c of Ñ (compressed by column) */
-export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Float64Array, g: Float64Array, out: Float64Array, c0: number, c1: number): void {
-  for (let c = c0; c < c1; c++) {
-    const p0 = nPtr[c];
-    const p1 = nPtr[c + 1];
-    let s = 0;
-    for (let p = p0; p < p1; p++) s += nVal[p] * g[nIdx[p]];
-    if (s === 0) continue;
-    for (let p = p0; p < p1; p++) out[nIdx[p]] += nVal[p] * s;
+/**
+ * out += Σ_{c0 ≤ c < c1} ñ_c (ñ_cᵀ g) for the columns ñ_c of Ñ (compressed by column). Ñ's columns
+ * come grouped by their number of entries, groups = (first column, end column, length) triples,
+ * length 0 for a group of mixed lengths: a group of one short length runs as straight-line code
+ * with no inner loop. Most of Ñ's columns are short (on XL 80457 columns, 326441 entries: 40811
+ * of 2 entries, 4336 of 4, 7728 of 5 …); one product with every column in its own loop took
+ * 1.21–1.54 ms, grouped and written out for lengths 2–8 0.47–0.65 ms (dumped systems of
+ * iterations 6 and 30, the best of 15 runs each). In the order of A's columns within a group,
+ * the rows a column touches stay near those of the next.
+ */
+export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Float64Array, groups: Int32Array, g: Float64Array, out: Float64Array, c0: number, c1: number): void {
+  for (let k = 0; k < groups.length; k += 3) {
+    const first = Math.max(groups[k], c0);
+    const end = Math.min(groups[k + 1], c1);
+    if (first >= end) continue;
+    const len = groups[k + 2];
+    let p = nPtr[first];
+    if (len === 2)
+      for (let c = first; c < end; c++, p += 2) {
+        const i0 = nIdx[p], i1 = nIdx[p + 1];
+        const v0 = nVal[p], v1 = nVal[p + 1];
+        const s = v0 * g[i0] + v1 * g[i1];
+        out[i0] += v0 * s;
+        out[i1] += v1 * s;
+      }
+    else if (len === 3)
+      for (let c = first; c < end; c++, p += 3) {
+        const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2];
+        const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2];
+        const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2];
+        out[i0] += v0 * s;
+        out[i1] += v1 * s;
+        out[i2] += v2 * s;
+      }
+    else if (len === 4)
+      for (let c = first; c < end; c++, p += 4) {
+        const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3];
+        const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3];
+        const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3];
+        out[i0] += v0 * s;
+        out[i1] += v1 * s;
+        out[i2] += v2 * s;
+        out[i3] += v3 * s;
+      }
+    else if (len === 5)
+      for (let c = first; c < end; c++, p += 5) {
+        const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3], i4 = nIdx[p + 4];
+        const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3], v4 = nVal[p + 4];
+        const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3] + v4 * g[i4];
+        out[i0] += v0 * s;
+        out[i1] += v1 * s;
+        out[i2] += v2 * s;
+        out[i3] += v3 * s;
+        out[i4] += v4 * s;
+      }
+    else if (len === 6)
+      for (let c = first; c < end; c++, p += 6) {
+        const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3], i4 = nIdx[p + 4], i5 = nIdx[p + 5];
+        const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3], v4 = nVal[p + 4], v5 = nVal[p + 5];
+        const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3] + v4 * g[i4] + v5 * g[i5];
+        out[i0] += v0 * s;
+        out[i1] += v1 * s;
+        out[i2] += v2 * s;
+        out[i3] += v3 * s;
+        out[i4] += v4 * s;
+        out[i5] += v5 * s;
+      }
+    else if (len === 7)
+      for (let c = first; c < end; c++, p += 7) {
+        const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3], i4 = nIdx[p + 4], i5 = nIdx[p + 5], i6 = nIdx[p + 6];
+        const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3], v4 = nVal[p + 4], v5 = nVal[p + 5], v6 = nVal[p + 6];
+        const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3] + v4 * g[i4] + v5 * g[i5] + v6 * g[i6];
+        out[i0] += v0 * s;
+        out[i1] += v1 * s;
+        out[i2] += v2 * s;
+        out[i3] += v3 * s;
+        out[i4] += v4 * s;
+        out[i5] += v5 * s;
+        out[i6] += v6 * s;
+      }
+    else if (len === 8)
+      for (let c = first; c < end; c++, p += 8) {
+        const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3], i4 = nIdx[p + 4], i5 = nIdx[p + 5], i6 = nIdx[p + 6], i7 = nIdx[p + 7];
+        const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3], v4 = nVal[p + 4], v5 = nVal[p + 5], v6 = nVal[p + 6], v7 = nVal[p + 7];
+        const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3] + v4 * g[i4] + v5 * g[i5] + v6 * g[i6] + v7 * g[i7];
+        out[i0] += v0 * s;
+        out[i1] += v1 * s;
+        out[i2] += v2 * s;
+        out[i3] += v3 * s;
+        out[i4] += v4 * s;
+        out[i5] += v5 * s;
+        out[i6] += v6 * s;
+        out[i7] += v7 * s;
+      }
+    else
+      for (let c = first; c < end; c++) {
+        const p0 = nPtr[c];
+        const p1 = nPtr[c + 1];
+        let s = 0;
+        for (let q = p0; q < p1; q++) s += nVal[q] * g[nIdx[q]];
+        for (let q = p0; q < p1; q++) out[nIdx[q]] += nVal[q] * s;
+      }
   }
 }
+
+/** the longest columns addColumnProducts writes out; longer ones form one group of mixed lengths */
+export const WRITTEN_OUT_LENGTH = 8;
 
 /** what the helper is handed for a session: the shared arrays, its columns, and where the session starts */
 export interface ColumnProductSession {
@@ -30,6 +126,7 @@ export interface ColumnProductSession {
   nPtr: Int32Array;
   nIdx: Int32Array;
   nVal: Float64Array;
+  nGroups: Int32Array;
   g: Float64Array;
   /** the helper's own result (zeroed by it before each product) */
   out: Float64Array;
@@ -60,7 +157,7 @@ export function serveColumnProducts(s: ColumnProductSession, product: typeof add
     seen = asked;
     try {
       s.out.fill(0);
-      product(s.nPtr, s.nIdx, s.nVal, s.g, s.out, s.c0, s.c1);
+      product(s.nPtr, s.nIdx, s.nVal, s.nGroups, s.g, s.out, s.c0, s.c1);
       Atomics.store(fl, 1, asked);
     } catch {
       Atomics.store(fl, 1, -asked);
