@@ -115,13 +115,20 @@ export const CG_CORRECTORS = 1;
  * exactly).
  */
 const SPARSE_OPERATION_COST = 20;
+/**
+ * a lower bound on a factorisation's cost that no longer settles the fall-back is counted up to
+ * this many times CG's cost per iteration (on XL, counting in full took 2.9 s; CG's cost per
+ * iteration grows a few times over a solve)
+ */
+const COUNT_AHEAD = 8;
 
 /** a Cholesky solver of the same normal equations, built only if it is used */
 export interface CholeskyOption {
-  /** multiply–adds of one factorisation (exact or estimated, or a lower bound if exactFlops is given) */
+  /** multiply–adds of one factorisation (exact or estimated), or a lower bound when atLeast */
   flops: number;
-  /** the estimate itself, counted when the lower bound `flops` would send the solve back to Cholesky */
-  exactFlops?: () => number;
+  atLeast?: boolean;
+  /** counts the multiply–adds again up to a higher limit (given with atLeast) */
+  countFlops?: (limit: number) => { flops: number; atLeast: boolean };
   create: () => NormalEquations;
 }
 
@@ -177,9 +184,9 @@ export class BasisCgSolver implements KktSolver {
   /** sparse operations of CG so far */
   private work = 0;
   private direct: NormalEquations | null = null;
-  /** a factorisation's multiply–adds as the Cholesky option gives them, and whether counted in full */
+  /** a factorisation's multiply–adds as the Cholesky option gives them, and whether a lower bound */
   private choleskyFlops: number;
-  private choleskyCounted = false;
+  private choleskyAtLeast: boolean;
   /** true once CG has given way to Cholesky for good */
   private backToCholesky = false;
 
@@ -216,6 +223,7 @@ export class BasisCgSolver implements KktSolver {
     this.maxExchanges = Math.max(MAX_EXCHANGES, Math.ceil(m * EXCHANGE_SHARE));
     this.mode = cholesky && directIterations > 0 ? 'direct' : 'diagonal';
     this.choleskyFlops = cholesky?.flops ?? 0;
+    this.choleskyAtLeast = cholesky?.atLeast === true && cholesky.countFlops !== undefined;
   }
 
   get nnzL(): number {
@@ -345,16 +353,22 @@ export class BasisCgSolver implements KktSolver {
     return (this.direct ??= this.cholesky!.create());
   }
 
-  /** CG's work per iteration so far weighs more than a factorisation (see SPARSE_OPERATION_COST) */
+  /**
+   * CG's work per iteration so far weighs more than a factorisation (see SPARSE_OPERATION_COST).
+   * A lower bound on the factorisation's cost is counted further when it no longer settles the
+   * question, up to COUNT_AHEAD times what CG costs now, so that it is seldom counted again.
+   */
   private choleskyIsCheaper(cgIterations: number): boolean {
-    if (!this.cholesky) return false;
-    const cheaper = () => SPARSE_OPERATION_COST * this.work > cgIterations * this.choleskyFlops;
-    if (!cheaper()) return false;
-    if (this.cholesky.exactFlops && !this.choleskyCounted) {
-      this.choleskyFlops = this.cholesky.exactFlops();
-      this.choleskyCounted = true;
+    const { cholesky } = this;
+    if (!cholesky) return false;
+    const cgCost = () => (SPARSE_OPERATION_COST * this.work) / Math.max(cgIterations, 1);
+    if (cgCost() <= this.choleskyFlops) return false;
+    if (this.choleskyAtLeast) {
+      const count = cholesky.countFlops!(COUNT_AHEAD * cgCost());
+      this.choleskyFlops = count.flops;
+      this.choleskyAtLeast = count.atLeast;
     }
-    return cheaper();
+    return cgCost() > this.choleskyFlops;
   }
 
   /** Cholesky for the rest of the solve, unless its factor turns out not to fit after all */

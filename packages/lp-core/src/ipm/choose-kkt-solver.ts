@@ -13,8 +13,8 @@
  *    the factor would not fit in maxFactorMegabytes. The cost is estimated in the approximate
  *    minimum degree order from the elimination tree alone (NormalEquations.estimateFlops), so
  *    choosing CG builds no factorisation: on L the full symbolic analysis took 0.4–0.7 s. The
- *    ordering stops counting at the threshold (XL: 2.9 → 1.05 s); the whole count is made only if
- *    the fall-back is weighed.
+ *    ordering stops counting at the threshold (XL: 2.9 → 1.05 s), and counts on only as far as
+ *    the fall-back needs.
  *
  * Measured on the bench's planning models (lp-core's bench, one machine, interleaved runs):
  *  - S (328 rows, estimated 4.3e5 multiply–adds, 210 per nonzero): Cholesky 0.035–0.046 s, CG 0.086 s;
@@ -70,7 +70,8 @@ export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSol
     const order = estimate.order;
     const cholesky: CholeskyOption = {
       flops: estimate.flops,
-      exactFlops: estimate.atLeast ? () => NormalEquations.estimateFlops(prob, settings).flops : undefined,
+      atLeast: estimate.atLeast,
+      countFlops: (limit) => NormalEquations.estimateFlops(prob, settings, limit),
       create: () => new NormalEquations(prob, settings, { order }),
     };
     return new BasisCgSolver(prob, settings, cholesky, 0, true);
