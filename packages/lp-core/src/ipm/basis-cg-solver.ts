@@ -502,8 +502,10 @@ export class BasisCgSolver implements KktSolver {
         x.set(warm);
       }
     }
-    best.set(x);
     if (!(bestNorm > target)) return 0;
+    // x is the best iterate so far until a step makes the residual worse; only then is the
+    // iterate before that step kept in best (x − αp), not copied at every step that improves it
+    let bestIsCurrent = true;
     precondition?.(r, z);
     p.set(z);
     let rz = dot(r, z);
@@ -512,8 +514,9 @@ export class BasisCgSolver implements KktSolver {
     while (steps < limit) {
       steps++;
       const pq = apply(p, q);
-      if (!(pq > 0)) break;
       const alpha = rz / pq;
+      // a breakdown leaves x as it was (and best recoverable from it)
+      if (!(pq > 0) || !Number.isFinite(alpha)) break;
       // one pass: the update, ‖r‖∞ and rᵀr
       let norm = 0;
       let rr = 0;
@@ -528,7 +531,10 @@ export class BasisCgSolver implements KktSolver {
       if (!(rr < Infinity)) norm = Infinity;
       if (norm < bestNorm) {
         bestNorm = norm;
-        best.set(x);
+        bestIsCurrent = true;
+      } else if (bestIsCurrent) {
+        for (let i = 0; i < m; i++) best[i] = x[i] - alpha * p[i];
+        bestIsCurrent = false;
       }
       if (norm <= target) {
         converged = true;
@@ -544,7 +550,7 @@ export class BasisCgSolver implements KktSolver {
       rz = rzNext;
       for (let i = 0; i < m; i++) p[i] = z[i] + beta * p[i];
     }
-    x.set(best);
+    if (!bestIsCurrent) x.set(best);
     return converged ? steps : -steps;
   }
 }
