@@ -36,6 +36,8 @@ import type { NormalEquations } from './normal-equations';
 import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
 import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from './normal-matrix';
 import { SplitSystem } from './split-system';
+import { groupColumns, type ColumnGroups } from './column-groups';
+import { addColumnProducts } from './split-product-kernel';
 import { dot } from '../vectors';
 
 /**
@@ -187,6 +189,8 @@ export class BasisCgSolver implements KktSolver {
   /** a factorisation's multiply–adds as the Cholesky option gives them, and whether a lower bound */
   private choleskyFlops: number;
   private choleskyAtLeast: boolean;
+  /** A Θ_x^{1/2} by column length and the rest of the matrix's diagonal, while the diagonal preconditioner serves (groupNormal) */
+  private groupedNormal: { columns: ColumnGroups; diagonal: Float64Array } | null = null;
   /** true once CG has given way to Cholesky for good */
   private backToCholesky = false;
 
@@ -277,7 +281,10 @@ export class BasisCgSolver implements KktSolver {
     for (let j = 0; j < n + m; j++) if (!(weight[j] < Infinity)) return 'numerical_trouble';
     if (this.mode === 'basis') this.improveBasis();
     else if (this.directIterations > 0) this.switchToBasis();
-    else this.setDiagonal();
+    else {
+      this.setDiagonal();
+      this.groupNormal();
+    }
     return 'factorised';
   }
 
@@ -395,6 +402,7 @@ export class BasisCgSolver implements KktSolver {
 
   private switchToBasis(): void {
     this.mode = 'basis';
+    this.groupedNormal = null;
     this.basis.build(this.weight);
     this.basis.refactor();
     this.improveBasis();
@@ -414,9 +422,30 @@ export class BasisCgSolver implements KktSolver {
 
   /** out ← (A Θ_x Aᵀ + Θ_w + δI) x; returns xᵀ out */
   private readonly applyNormal = (x: Float64Array, out: Float64Array): number => {
-    multiplyNormal(this.prob.A, this.thetaX, this.slackWeight, x, out);
+    const normal = this.groupedNormal;
+    if (!normal) multiplyNormal(this.prob.A, this.thetaX, this.slackWeight, x, out);
+    else {
+      const { columns: c, diagonal: d } = normal;
+      for (let i = 0; i < out.length; i++) out[i] = d[i] * x[i];
+      addColumnProducts(c.ptr, c.idx, c.val, c.groups, x, out, 0, c.columns);
+    }
     return dot(x, out);
   };
+
+  /**
+   * A Θ_x^{1/2} grouped by column length for applyNormal (measured on XL's diagonal phase: the
+   * products with A one column at a time took 1.7 s of a 54 s solve), and the diagonal of the
+   * single-entry columns and Θ_w + δI
+   */
+  private groupNormal(): void {
+    const { n, m, A } = this.prob;
+    const { colPtr: Ap, rowIdx: Ai, values: Ax } = A;
+    const { thetaX } = this;
+    const diagonal = this.groupedNormal?.diagonal ?? new Float64Array(m);
+    diagonal.set(this.slackWeight);
+    for (let j = 0; j < n; j++) if (Ap[j + 1] - Ap[j] === 1) diagonal[Ai[Ap[j]]] += thetaX[j] * Ax[Ap[j]] * Ax[Ap[j]];
+    this.groupedNormal = { columns: groupColumns(A, (j) => Math.sqrt(thetaX[j])), diagonal };
+  }
 
   /** z ← P⁻¹ r, P the diagonal of the matrix */
   private precondition(r: Float64Array, z: Float64Array): void {
