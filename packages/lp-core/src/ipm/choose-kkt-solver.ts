@@ -25,7 +25,7 @@
  *    with primal-exact steps and the split system 3.3–4.1 s (27 iterations, 2371 steps);
  *  - XL (75920 rows): the first factorisation did not end within 300 s; CG from the start 110 s,
  *    then 73 s, with the split system laid out by row, the triangular-first basis LU and the
- *    helper thread 40–45 s;
+ *    helper thread 40–45 s (57–60 s on a slower morning; with grouped products then 44–52 s);
  *  - plan-model's generated 200 × 26 plant (6e9): Cholesky 26 s, CG from the start 6.1–6.9 s
  *    (16–19 s measured earlier by a script that did not hand μ on, so CG ran to its tight target);
  *  - the demo plant's 12-week plan (1142 rows, estimated 1.2e7, about 2000 per nonzero):
