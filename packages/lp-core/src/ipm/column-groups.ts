@@ -25,13 +25,14 @@ export interface Allocator {
   floats(length: number): Float64Array;
 }
 
-const LOCAL: Allocator = { ints: (length) => new Int32Array(length), floats: (length) => new Float64Array(length) };
+/** this thread's own memory */
+export const OWN_MEMORY: Allocator = { ints: (length) => new Int32Array(length), floats: (length) => new Float64Array(length) };
 
 /**
  * The columns j of A with two or more entries and factor(j) > 0, each scaled by factor(j)
  * (called once per column).
  */
-export function groupColumns(A: CscMatrix, factor: (j: number) => number, allocatorFor: (entries: number) => Allocator = () => LOCAL): ColumnGroups {
+export function groupColumns(A: CscMatrix, factor: (j: number) => number, allocatorFor: (entries: number) => Allocator = () => OWN_MEMORY): ColumnGroups {
   const { n, colPtr: Ap, rowIdx: Ai, values: Ax } = A;
   const scale = new Float64Array(n);
   // lengths 2..WRITTEN_OUT_LENGTH each in a group of their own, longer ones after them

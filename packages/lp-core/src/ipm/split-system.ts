@@ -31,7 +31,7 @@ import type { CscMatrix } from '../problem/problem';
 import type { BasisPreconditioner } from './basis-preconditioner';
 import { applyUpdates, applyUpdatesTransposed, type UpdateFile } from './product-form';
 import { ColumnProductHelper } from './split-product-helper';
-import { groupColumns, type Allocator } from './column-groups';
+import { groupColumns, OWN_MEMORY, type Allocator } from './column-groups';
 import { addColumnProducts } from './split-product-kernel';
 
 /**
@@ -53,13 +53,12 @@ function sharedInt32(length: number): Int32Array {
   return new Int32Array(new SharedArrayBuffer(4 * Math.max(length, 1)), 0, length);
 }
 
-/** Ñ's copy in memory the helper thread shares, or this thread's own */
-const SHARED: Allocator = { ints: sharedInt32, floats: (length) => sharedFloat64(length) };
-const LOCAL: Allocator = { ints: (length) => new Int32Array(length), floats: (length) => new Float64Array(length) };
-
 function sharedFloat64(length: number): Float64Array {
   return new Float64Array(new SharedArrayBuffer(8 * Math.max(length, 1)), 0, length);
 }
+
+/** Ñ's copy in memory the helper thread shares */
+const SHARED_MEMORY: Allocator = { ints: sharedInt32, floats: sharedFloat64 };
 
 export class SplitSystem {
   private readonly m: number;
@@ -194,7 +193,7 @@ export class SplitSystem {
       (j) => (position[j] >= 0 ? 0 : Math.sqrt(weight[j])),
       (entries) => {
         shared = this.parallel !== false && entries >= this.helperMinEntries && this.helperReady();
-        return shared ? SHARED : LOCAL;
+        return shared ? SHARED_MEMORY : OWN_MEMORY;
       },
     );
     this.nPtr = grouped.ptr;
