@@ -168,4 +168,48 @@ describe('sparse LU', () => {
     const ref = denseSolve(B, Matrix.columnVector([1, 2, 3])).to1DArray();
     for (let i = 0; i < m; i++) expect(x[i]).toBeCloseTo(ref[i], 12);
   });
+
+  it('column singletons offered without a search give the same factors as offer(), and the rest still solves like the dense LU', () => {
+    // a lower-triangular block (each column has one row not yet taken when offered in order),
+    // then random columns: the shape of a planning basis in triangular-first order
+    const rng = new SeededRandom(31);
+    const m = 60;
+    const singletons: SparseColumn[] = [];
+    for (let k = 0; k < 40; k++) {
+      const extra = new Set<number>();
+      for (let t = 0; t < 3 && k > 0; t++) extra.add(rng.integer(0, k - 1));
+      const rows = [k, ...extra];
+      singletons.push({ rows, vals: rows.map(() => (rng.chance(0.5) ? -1 : 1) * rng.uniform(0.5, 2)) });
+    }
+    const rest = Array.from({ length: 20 }, () => randomColumn(rng, m, 6));
+    const fast = new SparseLu(m);
+    const slow = new SparseLu(m);
+    for (const c of singletons) {
+      expect(fast.offerSingleton(c.rows, c.vals, 0, c.rows.length, 1e-9)).toBe('accepted');
+      expect(slow.offer(c.rows, c.vals, 0, c.rows.length, 1e-9)).toBe(true);
+    }
+    expect(Array.from(fast.pivotRow.subarray(0, 40))).toEqual(Array.from(slow.pivotRow.subarray(0, 40)));
+    for (let k = 0; k < 40; k++) {
+      const entries = (lu: SparseLu) => {
+        const u: string[] = [];
+        for (let p = lu.Up[k]; p < lu.Up[k + 1]; p++) u.push(`${lu.Ui[p]}:${lu.Ux[p]}`);
+        return { u: u.sort(), l: lu.Lp[k + 1] - lu.Lp[k] };
+      };
+      expect(entries(fast)).toEqual(entries(slow));
+    }
+    // a column with two free rows is not a singleton, one with no free row neither; a tiny pivot is refused
+    expect(fast.offerSingleton([40, 41], [1, 1], 0, 2, 1e-9)).toBe('not-singleton');
+    expect(fast.offerSingleton([0, 1], [1, 1], 0, 2, 1e-9)).toBe('not-singleton');
+    expect(fast.offerSingleton([0, 40], [1, 1e-12], 0, 2, 1e-9)).toBe('refused');
+    expect(fast.rank).toBe(40);
+    const taken = [...singletons, ...offerAll(fast, rest)];
+    for (let i = 0; i < m && fast.rank < m; i++) if (fast.pinv[i] < 0 && fast.offer([i], [1], 0, 1, 1e-9)) taken.push({ rows: [i], vals: [1] });
+    expect(fast.rank).toBe(m);
+    const B = dense(m, taken);
+    const b = Array.from({ length: m }, () => rng.uniform(-1, 1));
+    const x = Float64Array.from(b);
+    fast.solve(x, new Float64Array(m));
+    const reference = denseSolve(B, Matrix.columnVector(b)).to1DArray();
+    reference.forEach((v, k) => expect(x[k]).toBeCloseTo(v, 9));
+  });
 });

@@ -168,6 +168,58 @@ export class SparseLu {
     return true;
   }
 
+  /**
+   * offer() for a column with a single entry in the rows not yet pivoted, when every pivoted row
+   * has an L column without entries below the diagonal (the column singletons of
+   * triangular-first-order.ts, offered first): then L⁻¹b = b, the free row is the pivot and the
+   * other entries go to U as they are, with no search of L's graph. 'not-singleton' when the
+   * column has no free row or more than one (nothing changed; offer() it instead), 'refused' when
+   * its pivot is too small to take, as offer() would refuse it.
+   */
+  offerSingleton(bi: Int32Array | number[], bx: Float64Array | number[], start: number, end: number, dependenceTolerance: number): 'accepted' | 'refused' | 'not-singleton' {
+    const { pinv } = this;
+    const k = this.rank;
+    if (k >= this.m) return 'refused';
+    let free = -1;
+    let pivot = 0;
+    let bmax = 0;
+    let uCount = 0;
+    for (let p = start; p < end; p++) {
+      const i = bi[p];
+      const v = bx[p];
+      bmax = Math.max(bmax, Math.abs(v));
+      if (pinv[i] >= 0) {
+        if (v !== 0) uCount++;
+      } else if (free >= 0) return 'not-singleton';
+      else {
+        free = i;
+        pivot = v;
+      }
+    }
+    if (free < 0) return 'not-singleton';
+    if (!(Math.abs(pivot) > dependenceTolerance * bmax)) return 'refused';
+    this.reserve(this.Lp[k] + 1, this.Up[k] + uCount + 1);
+    const { Ui, Ux } = this;
+    let unz = this.Up[k];
+    for (let p = start; p < end; p++) {
+      const s = pinv[bi[p]];
+      if (s >= 0 && bx[p] !== 0) {
+        Ui[unz] = s;
+        Ux[unz++] = bx[p];
+      }
+    }
+    Ui[unz] = k;
+    Ux[unz++] = pivot;
+    this.Li[this.Lp[k]] = free;
+    this.Lx[this.Lp[k]] = 1;
+    pinv[free] = k;
+    this.pivotRow[k] = free;
+    this.rank = k + 1;
+    this.Lp[k + 1] = this.Lp[k] + 1;
+    this.Up[k + 1] = unz;
+    return 'accepted';
+  }
+
   /** x ← B⁻¹x: x comes in by row, leaves by column position (requires rank = m) */
   solve(x: Float64Array, work: Float64Array): void {
     const { m, Lp, Li, Lx, Up, Ui, Ux, pivotRow } = this;
