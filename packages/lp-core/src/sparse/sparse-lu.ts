@@ -40,9 +40,9 @@ export class SparseLu {
   private readonly reach: Int32Array;
   private readonly mark: Int32Array;
   private stamp = 0;
-  // solveSparse's work: L⁻¹b by row, the steps reached in U's graph
+  // solveSparse's work: L⁻¹b by row, and the steps of U z = y that can be nonzero, one bit each
   private readonly y: Float64Array;
-  private readonly uReach: Int32Array;
+  private readonly stepBits: Int32Array;
 
   constructor(
     m: number,
@@ -69,7 +69,7 @@ export class SparseLu {
     this.reach = new Int32Array(m);
     this.mark = new Int32Array(m);
     this.y = new Float64Array(m);
-    this.uReach = new Int32Array(m);
+    this.stepBits = new Int32Array((m + 31) >> 5);
   }
 
   /** nonzeros stored in L and U */
@@ -258,23 +258,49 @@ export class SparseLu {
       const s = pinv[i];
       for (let p = Lp[s] + 1; p < Lp[s + 1]; p++) y[Li[p]] -= Lx[p] * v;
     }
-    // U z = y (by step) over the steps reachable in U's graph, z into x by position
+    // U z = y (by step), z into x by position: the steps that can be nonzero are kept as bits,
+    // taken from the highest down (U's column k only reaches steps below k), so no search of U's
+    // graph is needed to order them
+    const { stepBits } = this;
+    let low = m;
+    let high = -1;
     for (let q = top; q < m; q++) {
       const i = reach[q];
-      x[pinv[i]] = y[i];
+      const k = pinv[i];
+      x[k] = y[i];
       y[i] = 0;
+      stepBits[k >> 5] |= 1 << (k & 31);
+      if (k < low) low = k;
+      if (k > high) high = k;
     }
-    const uTop = this.uReachOf(top);
     let count = 0;
-    const { uReach } = this;
-    for (let q = uTop; q < m; q++) {
-      const k = uReach[q];
-      const last = Up[k + 1] - 1;
-      const zk = x[k] / Ux[last];
-      x[k] = zk;
-      pattern[count++] = k;
-      if (zk === 0) continue;
-      for (let p = Up[k]; p < last; p++) x[Ui[p]] -= Ux[p] * zk;
+    let lowWord = low >> 5;
+    for (let w = high >> 5; w >= lowWord; w--) {
+      let word = stepBits[w];
+      stepBits[w] = 0;
+      while (word !== 0) {
+        const b = 31 - Math.clz32(word);
+        word ^= 1 << b;
+        const k = (w << 5) | b;
+        const last = Up[k + 1] - 1;
+        const zk = x[k] / Ux[last];
+        x[k] = zk;
+        pattern[count++] = k;
+        if (zk === 0) continue;
+        for (let p = Up[k]; p < last; p++) {
+          const t = Ui[p];
+          const xt = x[t];
+          x[t] = xt - Ux[p] * zk;
+          if (xt !== 0) continue;
+          // a step not yet marked (x may also be zero at a marked step by cancellation: marking twice is harmless)
+          const tw = t >> 5;
+          if (tw === w) word |= 1 << (t & 31);
+          else {
+            stepBits[tw] |= 1 << (t & 31);
+            if (tw < lowWord) lowWord = tw;
+          }
+        }
+      }
     }
     return count;
   }
@@ -329,44 +355,6 @@ export class SparseLu {
         if (done) {
           head--;
           reach[--top] = j;
-        }
-      }
-    }
-    return top;
-  }
-
-  /**
-   * steps reachable in U's graph (step k → the steps of U's column k above the diagonal) from the
-   * steps of reach[lTop..m), in topological order: uReach[top..m)
-   */
-  private uReachOf(lTop: number): number {
-    const { m, pinv, reach, stack, pstack, mark, Up, Ui, uReach } = this;
-    const stamp = ++this.stamp;
-    let top = m;
-    for (let q = lTop; q < m; q++) {
-      const root = pinv[reach[q]];
-      if (mark[root] === stamp) continue;
-      let head = 0;
-      stack[0] = root;
-      while (head >= 0) {
-        const k = stack[head];
-        if (mark[k] !== stamp) {
-          mark[k] = stamp;
-          pstack[head] = Up[k];
-        }
-        let done = true;
-        const last = Up[k + 1] - 1;
-        for (let p = pstack[head]; p < last; p++) {
-          const t = Ui[p];
-          if (mark[t] === stamp) continue;
-          pstack[head] = p + 1;
-          stack[++head] = t;
-          done = false;
-          break;
-        }
-        if (done) {
-          head--;
-          uReach[--top] = k;
         }
       }
     }
