@@ -15,8 +15,8 @@
  * With the accepted columns as B (column k = the k-th accepted one) and P the row permutation,
  * P B = L U. L is unit lower triangular, stored by column with original row numbers (its first
  * entry the pivot row); U is upper triangular, stored by column with step numbers (the diagonal
- * last). solveSparse solves with a sparse right-hand side the same way, by reach in L's and U's
- * graphs.
+ * last). solveSparse solves with a sparse right-hand side: by reach in L's graph, then over U's
+ * steps marked one bit each.
  */
 /** threshold partial pivoting: a pivot may be this fraction of the column's largest candidate */
 const PIVOT_THRESHOLD = 0.1;
@@ -241,10 +241,13 @@ export class SparseLu {
   }
 
   /**
-   * x ← B⁻¹b for a sparse b (rows bi[start..end), values bx[start..end)), in time proportional to
-   * the arithmetic (Gilbert & Peierls): depth-first searches in L's and U's graphs find where the
-   * result can be nonzero. x (by position) must be zero on entry; the positions written are left in
-   * pattern[0..count), count returned. Requires rank = m.
+   * x ← B⁻¹b for a sparse b (rows bi[start..end), values bx[start..end)): a depth-first search
+   * in L's graph finds where L⁻¹b can be nonzero (Gilbert & Peierls); U's steps are marked in a
+   * bitmap as they become nonzero and taken from the highest down, in time proportional to the
+   * arithmetic plus m/32 words at most. On XL's bases (B⁻¹â_j with ~700 nonzeros) a search of U's
+   * graph instead took 61 µs a solve against 22–26 µs, and half of its reach was zero. x (by
+   * position) must be zero on entry; the positions written are left in pattern[0..count), count
+   * returned. Requires rank = m.
    */
   solveSparse(bi: Int32Array | number[], bx: Float64Array | number[], start: number, end: number, x: Float64Array, pattern: Int32Array): number {
     const { m, y, reach, pinv, Lp, Li, Lx, Up, Ui, Ux } = this;
