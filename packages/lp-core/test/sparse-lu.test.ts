@@ -169,7 +169,7 @@ describe('sparse LU', () => {
     for (let i = 0; i < m; i++) expect(x[i]).toBeCloseTo(ref[i], 12);
   });
 
-  it('column singletons offered without a search give the same factors as offer(), and the rest still solves like the dense LU', () => {
+  it('column singletons offered without a search give the same factors as offer(), a column meeting a filled L column is left to offer(), and the rest still solves like the dense LU', () => {
     // a lower-triangular block (each column has one row not yet taken when offered in order),
     // then random columns: the shape of a planning basis in triangular-first order
     const rng = new SeededRandom(31);
@@ -203,6 +203,11 @@ describe('sparse LU', () => {
     expect(fast.offerSingleton([0, 40], [1, 1e-12], 0, 2, 1e-9)).toBe('refused');
     expect(fast.rank).toBe(40);
     const taken = [...singletons, ...offerAll(fast, rest)];
+    // a row whose L column has entries below its pivot would change L⁻¹b: not taken this way
+    const filled = Array.from({ length: fast.rank }, (_, s) => s).find((s) => fast.Lp[s + 1] - fast.Lp[s] > 1)!;
+    const freeRow = Array.from({ length: m }, (_, i) => i).find((i) => fast.pinv[i] < 0)!;
+    expect(filled).toBeGreaterThanOrEqual(40);
+    expect(fast.offerSingleton([fast.pivotRow[filled], freeRow], [1, 1], 0, 2, 1e-9)).toBe('not-singleton');
     for (let i = 0; i < m && fast.rank < m; i++) if (fast.pinv[i] < 0 && fast.offer([i], [1], 0, 1, 1e-9)) taken.push({ rows: [i], vals: [1] });
     expect(fast.rank).toBe(m);
     const B = dense(m, taken);

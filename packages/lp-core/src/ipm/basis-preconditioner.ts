@@ -153,8 +153,8 @@ export class BasisPreconditioner {
       if (j < this.n) rows.set(rowIdx.subarray(colPtr[j], colPtr[j + 1]), start[k]);
       else rows[start[k]] = j - this.n;
     });
-    const { order, columnSingletons } = triangularFirstOrder(this.m, cols.length, start, rows);
-    let lu = this.factorIn(Array.from(order, (k) => cols[k]), columnSingletons);
+    const { order } = triangularFirstOrder(this.m, cols.length, start, rows);
+    let lu = this.factorIn(Array.from(order, (k) => cols[k]));
     // B's entries and L's unit diagonal: what an LU without fill holds
     if (lu.nonzeros > this.fillLimit * (start[cols.length] + this.m)) {
       const basic = Int32Array.from(this.basic);
@@ -171,15 +171,14 @@ export class BasisPreconditioner {
 
   /**
    * an LU of the basis with its columns in the given order, positions assigned as they are taken;
-   * the first `singletons` are column singletons, taken without a search while every one is
-   * (on XL 0.55 µs a column through offer(); a column singleton is most of a planning basis)
+   * a column that meets a single free row and only rows whose L columns are empty below the
+   * diagonal is taken without a search (SparseLu.offerSingleton; on XL 0.55 µs a column through
+   * offer(): such columns are most of a planning basis in triangular-first order)
    */
-  private factorIn(cols: number[], singletons = 0): SparseLu {
+  private factorIn(cols: number[]): SparseLu {
     const lu = new SparseLu(this.m, Math.max(4 * this.m, this.lu.nonzeros), this.rowCount);
     this.position.fill(-1);
-    let q = 0;
-    for (; q < singletons; q++) if (!this.offerSingleton(lu, cols[q])) break;
-    for (; q < cols.length; q++) this.offer(lu, cols[q]);
+    for (const j of cols) if (this.offerSingleton(lu, j) === 'not-singleton') this.offer(lu, j);
     // columns refused as dependent (rounding after many exchanges) give way to slacks
     for (let i = 0; i < this.m && lu.rank < this.m; i++) if (lu.pinv[i] < 0) this.offer(lu, this.n + i);
     return lu;
@@ -375,16 +374,17 @@ export class BasisPreconditioner {
     this.position[j] = k;
   }
 
-  /** offers column j as a column singleton (SparseLu.offerSingleton); false when it is not one, or refused, and not taken */
-  private offerSingleton(lu: SparseLu, j: number): boolean {
+  /** offers column j by SparseLu.offerSingleton, which tells whether it could take it that way */
+  private offerSingleton(lu: SparseLu, j: number): 'accepted' | 'refused' | 'not-singleton' {
     const k = lu.rank;
     const { colPtr, rowIdx, values } = this.A;
     if (j >= this.n) UNIT_ROW[0] = j - this.n;
     const taken = j >= this.n ? lu.offerSingleton(UNIT_ROW, UNIT_VALUE, 0, 1, DEPENDENCE_TOLERANCE) : lu.offerSingleton(rowIdx, values, colPtr[j], colPtr[j + 1], DEPENDENCE_TOLERANCE);
-    if (taken !== 'accepted') return false;
-    this.basic[k] = j;
-    this.position[j] = k;
-    return true;
+    if (taken === 'accepted') {
+      this.basic[k] = j;
+      this.position[j] = k;
+    }
+    return taken;
   }
 
   private offer(lu: SparseLu, j: number): void {

@@ -169,15 +169,15 @@ export class SparseLu {
   }
 
   /**
-   * offer() for a column with a single entry in the rows not yet pivoted, when every pivoted row
-   * has an L column without entries below the diagonal (the column singletons of
-   * triangular-first-order.ts, offered first): then L⁻¹b = b, the free row is the pivot and the
-   * other entries go to U as they are, with no search of L's graph. 'not-singleton' when the
-   * column has no free row or more than one (nothing changed; offer() it instead), 'refused' when
-   * its pivot is too small to take, as offer() would refuse it.
+   * offer() for a column with a single entry in the rows not yet pivoted, whose pivoted rows all
+   * have L columns without entries below the diagonal (in triangular-first order: the column
+   * singletons, and the row singletons that meet no row of the bump): then L⁻¹b = b, the free row
+   * is the pivot and the other entries go to U as they are, with no search of L's graph.
+   * 'not-singleton' when the column is not such a column (nothing changed; offer() it instead),
+   * 'refused' when its pivot is too small to take, as offer() would refuse it.
    */
   offerSingleton(bi: Int32Array | number[], bx: Float64Array | number[], start: number, end: number, dependenceTolerance: number): 'accepted' | 'refused' | 'not-singleton' {
-    const { pinv } = this;
+    const { pinv, Lp } = this;
     const k = this.rank;
     if (k >= this.m) return 'refused';
     let free = -1;
@@ -188,8 +188,12 @@ export class SparseLu {
       const i = bi[p];
       const v = bx[p];
       bmax = Math.max(bmax, Math.abs(v));
-      if (pinv[i] >= 0) {
-        if (v !== 0) uCount++;
+      const s = pinv[i];
+      if (s >= 0) {
+        if (v === 0) continue;
+        // an L column with entries below its pivot would change L⁻¹b
+        if (Lp[s + 1] - Lp[s] !== 1) return 'not-singleton';
+        uCount++;
       } else if (free >= 0) return 'not-singleton';
       else {
         free = i;

@@ -25,10 +25,9 @@ import { transposePattern } from './csc';
 
 /**
  * Columns given as patterns: column k has rows rowIdx[colStart[k] .. colStart[k + 1]) of an m-row
- * matrix. Returns order[q] = the column to factorise q-th, the number of column singletons (they
- * come first), and the size of the bump.
+ * matrix. Returns order[q] = the column to factorise q-th, and the size of the bump.
  */
-export function triangularFirstOrder(m: number, colCount: number, colStart: Int32Array, rowIdx: Int32Array): { order: Int32Array; columnSingletons: number; bump: number } {
+export function triangularFirstOrder(m: number, colCount: number, colStart: Int32Array, rowIdx: Int32Array): { order: Int32Array; bump: number } {
   // the columns of each row
   const { ptr: rowPtr, idx: rowCols } = transposePattern(m, colCount, colStart, rowIdx);
   const rowTaken = new Uint8Array(m);
@@ -42,7 +41,6 @@ export function triangularFirstOrder(m: number, colCount: number, colStart: Int3
   takeSingletons(m, rowPtr, rowCols, rowTaken, colStart, rowIdx, colTaken, (_, col) => (order[--back] = col));
 
   // 3. the bump, on its own rows, between the two
-  const columnSingletons = front;
   const bump = back - front;
   if (bump > 0) {
     const cols = new Int32Array(bump);
@@ -64,7 +62,7 @@ export function triangularFirstOrder(m: number, colCount: number, colStart: Int3
     const bumpOrder = columnOrder(m, bump, start, rows);
     for (let b = 0; b < bump; b++) order[front + b] = cols[bumpOrder[b]];
   }
-  return { order, columnSingletons, bump };
+  return { order, bump };
 }
 
 /**
