@@ -51,8 +51,9 @@ describe('columns grouped by length', () => {
     }
     expect(grouped.columns).toBe(taken);
     expect(grouped.entries).toBe(entries);
-    // one group per written-out length present, then one for the longer columns
-    expect(grouped.groups.length / 3).toBe(WRITTEN_OUT_LENGTH - 1 + 1);
+    // one group for each written-out length 2..WRITTEN_OUT_LENGTH, then one for the longer columns
+    const writtenOut = WRITTEN_OUT_LENGTH - 1;
+    expect(grouped.groups.length / 3).toBe(writtenOut + 1);
     const reference = dense.mmul(Matrix.columnVector(Array.from(g))).to1DArray();
 
     const whole = new Float64Array(m);

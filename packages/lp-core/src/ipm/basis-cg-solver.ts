@@ -34,7 +34,7 @@ import type { KktSolver, KktStatus } from './kkt-solver';
 import type { IpmProblem } from './ipm-problem';
 import type { NormalEquations } from './normal-equations';
 import { FactorTooLargeError } from '../sparse/symmetric-factorisation';
-import { maxAbs, multiplyNormal, normalRightHandSide, recoverDirection } from './normal-matrix';
+import { maxAbs, normalRightHandSide, recoverDirection } from './normal-matrix';
 import { SplitSystem } from './split-system';
 import { groupColumns, type ColumnGroups } from './column-groups';
 import { addColumnProducts } from './split-product-kernel';
@@ -422,13 +422,10 @@ export class BasisCgSolver implements KktSolver {
 
   /** out ← (A Θ_x Aᵀ + Θ_w + δI) x; returns xᵀ out */
   private readonly applyNormal = (x: Float64Array, out: Float64Array): number => {
-    const normal = this.groupedNormal;
-    if (!normal) multiplyNormal(this.prob.A, this.thetaX, this.slackWeight, x, out);
-    else {
-      const { columns: c, diagonal: d } = normal;
-      for (let i = 0; i < out.length; i++) out[i] = d[i] * x[i];
-      addColumnProducts(c.ptr, c.idx, c.val, c.groups, x, out, 0, c.columns);
-    }
+    // laid out by factorise() whenever the diagonal preconditioner serves, the only mode that multiplies so
+    const { columns: c, diagonal: d } = this.groupedNormal!;
+    for (let i = 0; i < out.length; i++) out[i] = d[i] * x[i];
+    addColumnProducts(c.ptr, c.idx, c.val, c.groups, x, out, 0, c.columns);
     return dot(x, out);
   };
 

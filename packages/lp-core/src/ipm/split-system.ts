@@ -320,8 +320,9 @@ export class SplitSystem {
 
 /**
  * The runs of consecutive columns with exactly one entry, as pairs [first, end) in one array,
- * between the empty runs (0, 0) and (columns, columns), so that a pass either way ends on a run. Within a run column c's entry sits at ptr[first] + c −
- * first, so the solves below take it without reading ptr. Most columns of the basis's factors have
+ * between the empty runs (0, 0) and (columns, columns), so that a pass either way ends on a run.
+ * Within a run column c's entry sits at ptr[first] + c − first, so the solves below take it
+ * without reading ptr. Most columns of the basis's factors have
  * one entry off the diagonal (on XL 71323 of 71831 columns of Ũ early in the solve, 50072 of 62637
  * late: the stock carried from one week to the next), and reading two pointers and setting up a
  * loop for one entry cost more than the entry.
