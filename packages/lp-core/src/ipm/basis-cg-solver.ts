@@ -13,7 +13,8 @@
  *    direction instead: no basis would stand out yet);
  *  - then P = B Θ_B Bᵀ for a basis B of [A I] picked and improved by the weights
  *    (basis-preconditioner.ts); CG then runs on the split system I + W Wᵀ, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2}
- *    (the same iterates as with P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r on the normal equations).
+ *    (the same iterates as with P⁻¹r = B⁻ᵀ Θ_B⁻¹ B⁻¹ r on the normal equations), solved by
+ *    conjugate residuals, whose residual never grows (krylov.ts: fewer steps to the stopping rule).
  * A step costs one product with A and one with Aᵀ and the diagonal, or, with the basis, one with N
  * and one with Nᵀ and a solve with B and with Bᵀ (split-system.ts; measured on L: 0.39–0.46 ms
  * against 0.77–0.97 ms for the normal equations and P⁻¹). CG keeps the iterate with the smallest residual r and stops
@@ -39,6 +40,7 @@ import { SplitSystem } from './split-system';
 import { groupColumns, type ColumnGroups } from './column-groups';
 import { addColumnProducts } from './split-product-kernel';
 import { dot } from '../vectors';
+import { conjugateGradients, conjugateResiduals, KrylovWork } from './krylov';
 
 /**
  * CG's relative residual target (both preconditioners), and the fraction of the primal residual
@@ -89,9 +91,14 @@ const EXCHANGE_SHARE = 0.2;
  * step. Measured (whole solve): XL with up to a fifth of the rows 184 s (improving the basis 59 s,
  * up to 2900 exchanges an iteration), with up to 1519 129 s (25 s), with 4 per step 135 s;
  * plan-model's 200 × 26 plant with up to 400 27.6 s, 864 18.3 s, 3456 (a fifth) 16.4 s, 4 per
- * step 18.4 s; L and M never reach the limits.
+ * step 18.4 s; L and M never reach the limits. Since exchanges got cheaper (a sparse solve
+ * 61 → 22–26 µs, refactorisations triangular first) and with conjugate residuals, on XL (steps,
+ * columns examined, exchanges; one thread, runs back to back): 4 per step 8222, 74 k, 28.5 k in
+ * 46.2 s; 8 6537, 106 k, 28.7 k in 40.9 s; 16 6287, 117 k, 28.7 k in 40.9 s (the same as with no
+ * limit but the fifth of the rows): as many exchanges in all, made earlier, for a quarter fewer
+ * steps.
  */
-const EXCHANGES_PER_STEP = 4;
+const EXCHANGES_PER_STEP = 16;
 const VOLUME_TOLERANCE = 2;
 /** after the exchanges, B is factorised afresh if its updates hold more than this share of the LU's nonzeros */
 const UPDATE_SHARE = 0.1;
@@ -152,11 +159,8 @@ export class BasisCgSolver implements KktSolver {
   private readonly thetaW: Float64Array;
   private readonly diagonal: Float64Array;
   private readonly rhs: Float64Array;
-  private readonly r: Float64Array;
-  private readonly z: Float64Array;
-  private readonly p: Float64Array;
-  private readonly q: Float64Array;
-  private readonly best: Float64Array;
+  /** the Krylov methods' work vectors */
+  private readonly krylov: KrylovWork;
   /** by row, then by position: the normal equations' right-hand side and B⁻¹ of it, or rp − Â dv and B⁻¹ of it (exactPrimal) */
   private readonly rowWork: Float64Array;
   /** see complementarityShift */
@@ -211,11 +215,7 @@ export class BasisCgSolver implements KktSolver {
     this.thetaW = new Float64Array(m);
     this.diagonal = new Float64Array(m);
     this.rhs = new Float64Array(m);
-    this.r = new Float64Array(m);
-    this.z = new Float64Array(m);
-    this.p = new Float64Array(m);
-    this.q = new Float64Array(m);
-    this.best = new Float64Array(m);
+    this.krylov = new KrylovWork(m);
     this.rowWork = new Float64Array(m);
     this.shift = new Float64Array(n + m);
     this.u = new Float64Array(m);
@@ -307,9 +307,9 @@ export class BasisCgSolver implements KktSolver {
       if (steps < 0 && this.iterations === 1) steps = -steps;
       else if (steps < 0) {
         this.switchToBasis();
-        steps = DIAGONAL_STEPS + Math.abs(this.splitConjugateGradients(dy, this.maxSteps));
+        steps = DIAGONAL_STEPS + Math.abs(this.solveSplitSystem(dy, this.maxSteps));
       }
-    } else steps = Math.abs(this.splitConjugateGradients(dy, this.maxSteps));
+    } else steps = Math.abs(this.solveSplitSystem(dy, this.maxSteps));
     this.stats.steps.push(steps);
     this.iterationSteps += steps;
     // per step: products with A and Aᵀ (with the basis: N and Nᵀ and solves with B), vector operations
@@ -460,12 +460,13 @@ export class BasisCgSolver implements KktSolver {
   private conjugateGradients(dy: Float64Array, target: number, limit: number): number {
     this.precondition(this.rhs, dy);
     const warm = this.warm && this.warmMode === 'diagonal' ? this.warmDy : null;
-    return this.runCg(dy, this.rhs, target, limit, this.applyNormal, this.applyDiagonal, warm);
+    return conjugateGradients(dy, this.rhs, this.applyNormal, this.applyDiagonal, warm, { target, limit, deadline: this.deadline }, this.krylov);
   }
 
   /**
-   * CG with the basis, on the split system (I + W Wᵀ) u = Θ_B^{-1/2} B⁻¹ rhs, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2},
-   * u = Θ_B^{1/2} Bᵀ dy: the same iterates as CG on the normal equations preconditioned by B Θ_B Bᵀ,
+   * The basis phase's solve: conjugate residuals (krylov.ts) on the split system
+   * (I + W Wᵀ) u = Θ_B^{-1/2} B⁻¹ rhs, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2}, u = Θ_B^{1/2} Bᵀ dy. CG there
+   * would take the same iterates as CG on the normal equations preconditioned by B Θ_B Bᵀ,
    * but a step multiplies by N and Nᵀ only (the basic columns' share of A is left out: a third of
    * L's nonzeros), and the residual is the scaled one the stopping rule measures. Starts from
    * u = Θ_B^{-1/2} B⁻¹ rhs (exact when N carries no weight) or from the previous solve's u of this
@@ -474,7 +475,7 @@ export class BasisCgSolver implements KktSolver {
    * them (by the row pivoted at each position). Returns the steps taken, negated when `limit`
    * steps (or the deadline) came first.
    */
-  private splitConjugateGradients(dy: Float64Array, limit: number): number {
+  private solveSplitSystem(dy: Float64Array, limit: number): number {
     const { u, splitRhs } = this;
     const byPosition = this.rowWork;
     byPosition.set(this.rhs);
@@ -486,7 +487,7 @@ export class BasisCgSolver implements KktSolver {
     let steps: number;
     this.split.begin();
     try {
-      steps = this.runCg(u, splitRhs, target, limit, this.applySplitSystem, null, warm);
+      steps = conjugateResiduals(u, splitRhs, this.applySplitSystem, warm, { target, limit, deadline: this.deadline }, this.krylov);
     } finally {
       this.split.end();
     }
@@ -494,89 +495,5 @@ export class BasisCgSolver implements KktSolver {
     this.split.fromSplit(u, dy);
     this.basis.btran(dy);
     return steps;
-  }
-
-  /**
-   * Conjugate gradients on M x = b, M applied by `apply` (which returns xᵀMx), preconditioned by
-   * `precondition` (z ← P⁻¹r) or not at all; starts from x as given or from `warm`, whichever leaves
-   * the smaller residual, and leaves in x the iterate with the smallest ‖r‖∞. Stops when
-   * ‖r‖∞ ≤ target. Returns the steps taken, negated when `limit` steps (or the deadline) came first.
-   */
-  private runCg(
-    x: Float64Array,
-    b: Float64Array,
-    target: number,
-    limit: number,
-    apply: (v: Float64Array, out: Float64Array) => number,
-    precondition: ((r: Float64Array, z: Float64Array) => void) | null,
-    warm: Float64Array | null,
-  ): number {
-    const { m } = this.prob;
-    const { r, p, q, best } = this;
-    const z = precondition ? this.z : r;
-    apply(x, q);
-    for (let i = 0; i < m; i++) r[i] = b[i] - q[i];
-    let bestNorm = maxAbs(r);
-    if (warm) {
-      // the previous solve of this iteration (predictor, corrector) is often closer
-      apply(warm, q);
-      for (let i = 0; i < m; i++) q[i] = b[i] - q[i];
-      const warmNorm = maxAbs(q);
-      if (warmNorm < bestNorm) {
-        bestNorm = warmNorm;
-        r.set(q);
-        x.set(warm);
-      }
-    }
-    if (!(bestNorm > target)) return 0;
-    // x is the best iterate so far until a step makes the residual worse; only then is the
-    // iterate before that step kept in best (x − αp), not copied at every step that improves it
-    let bestIsCurrent = true;
-    precondition?.(r, z);
-    p.set(z);
-    let rz = dot(r, z);
-    let steps = 0;
-    let converged = false;
-    while (steps < limit) {
-      steps++;
-      const pq = apply(p, q);
-      const alpha = rz / pq;
-      // a breakdown leaves x as it was (and best recoverable from it)
-      if (!(pq > 0) || !Number.isFinite(alpha)) break;
-      // one pass: the update, ‖r‖∞ and rᵀr
-      let norm = 0;
-      let rr = 0;
-      for (let i = 0; i < m; i++) {
-        x[i] += alpha * p[i];
-        const ri = r[i] - alpha * q[i];
-        r[i] = ri;
-        const a = Math.abs(ri);
-        if (a > norm) norm = a;
-        rr += ri * ri;
-      }
-      if (!(rr < Infinity)) norm = Infinity;
-      if (norm < bestNorm) {
-        bestNorm = norm;
-        bestIsCurrent = true;
-      } else if (bestIsCurrent) {
-        for (let i = 0; i < m; i++) best[i] = x[i] - alpha * p[i];
-        bestIsCurrent = false;
-      }
-      if (norm <= target) {
-        converged = true;
-        break;
-      }
-      if ((steps & 63) === 0 && performance.now() > this.deadline) break;
-      let rzNext = rr;
-      if (precondition) {
-        precondition(r, z);
-        rzNext = dot(r, z);
-      }
-      const beta = rzNext / rz;
-      rz = rzNext;
-      for (let i = 0; i < m; i++) p[i] = z[i] + beta * p[i];
-    }
-    if (!bestIsCurrent) x.set(best);
-    return converged ? steps : -steps;
   }
 }
