@@ -13,8 +13,8 @@
  *    the factor would not fit in maxFactorMegabytes. The cost is estimated in the approximate
  *    minimum degree order from the elimination tree alone (NormalEquations.estimateFlops), so
  *    choosing CG builds no factorisation: on L the full symbolic analysis took 0.4–0.7 s. The
- *    ordering stops counting at the threshold (XL: 2.9 → 1.05 s), and counts on only as far as
- *    the fall-back needs.
+ *    ordering stops counting at FIRST_COUNT times the threshold (XL: 2.9 → 1.1–1.5 s), and counts
+ *    on later only if the fall-back needs more.
  *
  * Measured on the bench's planning models (lp-core's bench, one machine, interleaved runs):
  *  - S (328 rows, estimated 4.3e5 multiply–adds, 210 per nonzero): Cholesky 0.035–0.046 s, CG 0.086 s;
@@ -53,6 +53,16 @@ export const CHOLESKY_ITERATIONS = 6;
 export const CG_MIN_FLOPS = 1e8;
 export const CG_FLOPS_PER_NONZERO = 2000;
 
+/**
+ * the first count of a factorisation's cost goes on to this many times the threshold, past the
+ * point that decides for CG, so that the fall-back (which counts on to 8 times CG's cost per
+ * iteration, basis-cg-solver.ts) seldom has to count again: CG's cost per iteration measured 1, 3.8
+ * and 6 times the threshold on the bench's M, L and XL models. On XL the count to the threshold
+ * took 0.8–1.1 s, the fall-back's second count (to 5.7e10) 1.1–1.5 s more, one count to 48 times
+ * the threshold (5.7e10) 1.1–1.5 s; on M and L the count runs to the end either way.
+ */
+const FIRST_COUNT = 48;
+
 /** the multiply–adds of a factorisation from which on CG is preferred */
 function cgThreshold(prob: IpmProblem): number {
   return Math.max(CG_MIN_FLOPS, CG_FLOPS_PER_NONZERO * (prob.A.colPtr[prob.n] + prob.m));
@@ -63,8 +73,8 @@ export function chooseKktSolver(prob: IpmProblem, settings: IpmSettings): KktSol
   const lp = !prob.Q;
   const choice = lp ? settings.linearSolver : 'cholesky';
   if (choice === 'basis-cg') return new BasisCgSolver(prob, settings);
-  // counted only up to the threshold: past it the count is only needed if CG turns out costly
-  const estimate = choice === 'auto' ? NormalEquations.estimateFlops(prob, settings, cgThreshold(prob)) : null;
+  // counted up to FIRST_COUNT times the threshold: past that the count is only needed if CG turns out costly
+  const estimate = choice === 'auto' ? NormalEquations.estimateFlops(prob, settings, FIRST_COUNT * cgThreshold(prob)) : null;
   if (estimate && estimate.flops >= cgThreshold(prob)) {
     // the fall-back keeps the order (if the count got that far) only: the pattern is cheap to build again, and rarely needed
     const order = estimate.order;
