@@ -27,9 +27,13 @@ import { applyUpdates, applyUpdatesTransposed, type UpdateFile } from './product
 /**
  * improve() ends a round after this many examined columns in a row without an exchange. Measured
  * on plan-model's 200 × 26 plant: without it 2800–5400 columns were examined an iteration for
- * 24–1276 exchanges; with 50, 230–4600 for 10–1431, CG steps alike.
+ * 24–1276 exchanges; with 50, 230–4600 for 10–1431, CG steps alike. On XL with conjugate
+ * residuals (steps, columns examined, improving the basis; seeds 1 and 2 of the bench's model):
+ * 50: 6287, 117 k, 9.7 s and 6223, 116 k, 9.6 s; 30: 6472, 95 k, 8.0 s and 6666, 97 k, 7.2 s;
+ * 20: 6655, 77 k, 6.8 s and 7899, 76 k, 6.2 s; 10: 10479 steps. At ~2.85 ms a step 30 saves
+ * about a second on both; below 20 the basis falls behind.
  */
-const MISS_LIMIT = 50;
+const MISS_LIMIT = 30;
 /**
  * improve() examines a column only if its random estimate exceeds this many times the volume
  * tolerance: the estimate is a column norm, and a column whose norm barely passes rarely holds an
