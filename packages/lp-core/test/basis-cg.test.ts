@@ -363,7 +363,7 @@ describe('the basis preconditioner', () => {
     expect(sizes[1]).toBeLessThanOrEqual(sizes[0]);
   });
 
-  it("the split system's product is x + W Wᵀx, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2} formed densely, with updates pending and after a fresh factorisation, alone and with the helper thread", () => {
+  it("the split system's product is x + W Wᵀx, W = Θ_B^{-1/2} B⁻¹ N Θ_N^{1/2} formed densely, with updates pending and after a fresh factorisation, alone and with the helper thread, whole and taken apart", () => {
     // A random LP's matrix with eight single-entry columns appended (they go on the split
     // system's diagonal) and a few columns of weight 0 (left out of N)
     const base = randomProblem(47, { rows: 40, cols: 60, perColumn: 4, kind: 'feasible' }).A;
@@ -416,6 +416,18 @@ describe('the basis preconditioner', () => {
         split.end();
         ref.forEach((v, k) => expect(out[row[k]]).toBeCloseTo(v, 7));
         expect(xOut).toBeCloseTo(ref.reduce((s, v, k) => s + v * x[k], 0), 6);
+        // taken apart (krylov.ts folds the ends into its passes): x + s ∘ R(s ∘ x), and xᵀ(I + W Wᵀ)x − xᵀx
+        const scale = split.fusedScale;
+        expect(scale === null).toBe(basis.updateCount > 0);
+        if (scale) {
+          xByRow.forEach((v, i) => (split.input[i] = scale[i] * v));
+          const raw = new Float64Array(m);
+          split.begin();
+          const quadratic = split.applyToInput(raw);
+          split.end();
+          ref.forEach((v, k) => expect(xByRow[row[k]] + scale[row[k]] * raw[row[k]]).toBeCloseTo(v, 7));
+          expect(quadratic).toBeCloseTo(xOut - x.reduce((s, v) => s + v * v, 0), 6);
+        }
       }
     };
     const report = basis.improve(weight, 1.5, 10, 1);

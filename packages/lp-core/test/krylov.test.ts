@@ -7,7 +7,7 @@
  */
 import { Matrix, QrDecomposition, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { conjugateGradients, conjugateResiduals, KrylovWork, type Product } from '../src/ipm/krylov';
+import { conjugateGradients, conjugateResiduals, KrylovWork, type Product, type ScaledProduct } from '../src/ipm/krylov';
 import { SeededRandom } from './support/seeded-random';
 
 /** M = I + W Wᵀ with W m × k, entries of W spread over several magnitudes, and a right-hand side */
@@ -100,5 +100,52 @@ describe('conjugate residuals and conjugate gradients on I + W Wᵀ', () => {
     const leftNorm = Math.max(...left.map(Math.abs));
     const smallest = Math.min(...seen.slice(1).map((r) => Math.max(...Array.from(r, Math.abs))));
     expect(leftNorm).toBeLessThanOrEqual(smallest * (1 + 1e-9));
+  });
+
+  it('taken apart as v + s ∘ R(s ∘ v), the product gives conjugate residuals the same residuals step by step', () => {
+    // M = I + S R S with R = W Wᵀ positive semidefinite and S a positive diagonal
+    const m = 45;
+    const rng = new SeededRandom(23);
+    const { M: IplusR, b } = splitLikeSystem(19, m, 30);
+    const R = IplusR.sub(Matrix.eye(m));
+    const s = Float64Array.from({ length: m }, () => 10 ** rng.uniform(-1, 1));
+    const S = Matrix.diag(Array.from(s));
+    const M = Matrix.eye(m).add(S.mmul(R).mmul(S));
+    const input = new Float64Array(m);
+    const scaled: ScaledProduct = {
+      fusedScale: s,
+      input,
+      applyToInput(out) {
+        const rv = R.mmul(Matrix.columnVector(Array.from(input))).getColumn(0);
+        rv.forEach((v, i) => (out[i] = v));
+        return rv.reduce((sum, v, i) => sum + v * input[i], 0);
+      },
+    };
+    const whole: Float64Array[] = [];
+    const xWhole = new Float64Array(m);
+    const stepsWhole = conjugateResiduals(xWhole, b, productOf(M, whole), null, { target: 1e-10, limit: 200, ...noDeadline }, new KrylovWork(m));
+    // taken apart, the method multiplies whole only at the start (x₀ and r₀); it puts s ∘ r_k in input
+    const apart: Float64Array[] = [];
+    const recording: ScaledProduct = { ...scaled, input, applyToInput: (out) => (apart.push(input.map((v, i) => v / s[i])), scaled.applyToInput(out)) };
+    const xApart = new Float64Array(m);
+    const stepsApart = conjugateResiduals(xApart, b, productOf(M), null, { target: 1e-10, limit: 200, ...noDeadline }, new KrylovWork(m), recording);
+    // the same iterates up to rounding (which, over this many steps, may move the last step or two)
+    expect(Math.abs(stepsApart - stepsWhole)).toBeLessThanOrEqual(3);
+    expect(stepsWhole).toBeGreaterThan(12);
+    for (let k = 0; k < 10; k++) expect(norm2(apart[k])).toBeCloseTo(norm2(whole[k + 2]), 8);
+    const exact = solve(M, Matrix.columnVector(Array.from(b))).getColumn(0);
+    const scale = Math.max(...exact.map(Math.abs));
+    exact.forEach((v, i) => expect(Math.abs(xApart[i] - v)).toBeLessThan(1e-8 * scale));
+  });
+
+  it('with no scale to hand (updates pending in the split system) the whole product serves', () => {
+    const m = 30;
+    const { M, b } = splitLikeSystem(5, m, 20);
+    const unused: ScaledProduct = { fusedScale: null, input: new Float64Array(m), applyToInput: () => { throw new Error('not to be called'); } };
+    const x = new Float64Array(m);
+    const steps = conjugateResiduals(x, b, productOf(M), null, { target: 1e-10, limit: 200, ...noDeadline }, new KrylovWork(m), unused);
+    expect(steps).toBeGreaterThan(0);
+    const exact = solve(M, Matrix.columnVector(Array.from(b))).getColumn(0);
+    exact.forEach((v, i) => expect(Math.abs(x[i] - v)).toBeLessThan(1e-8 * Math.max(...exact.map(Math.abs))));
   });
 });

@@ -487,7 +487,7 @@ export class BasisCgSolver implements KktSolver {
     let steps: number;
     this.split.begin();
     try {
-      steps = conjugateResiduals(u, splitRhs, this.applySplitSystem, warm, { target, limit, deadline: this.deadline }, this.krylov);
+      steps = conjugateResiduals(u, splitRhs, this.applySplitSystem, warm, { target, limit, deadline: this.deadline }, this.krylov, this.split);
     } finally {
       this.split.end();
     }

@@ -24,6 +24,8 @@ export interface SharedProductArrays {
   nGroups: Int32Array;
   g: Float64Array;
   out: Float64Array;
+  /** the helper's Σ (ñ_cᵀ g)² (one entry) */
+  squares: Float64Array;
 }
 
 export class ColumnProductHelper {

@@ -10,7 +10,8 @@
  */
 
 /**
- * out += Σ_{c0 ≤ c < c1} ñ_c (ñ_cᵀ g) for the columns ñ_c of Ñ (compressed by column). Ñ's columns
+ * out += Σ_{c0 ≤ c < c1} ñ_c (ñ_cᵀ g) for the columns ñ_c of Ñ (compressed by column); returns
+ * Σ (ñ_cᵀ g)² over those columns, so that gᵀ Ñ Ñᵀ g comes with the product. Ñ's columns
  * come grouped by their number of entries, groups = (first column, end column, length) triples,
  * length 0 for a group of mixed lengths: a group of one short length runs as straight-line code
  * with no inner loop. Most of Ñ's columns are short (on XL 80457 columns, 326441 entries: 40811
@@ -19,7 +20,8 @@
  * iterations 6 and 30, the best of 15 runs each). In the order of A's columns within a group,
  * the rows a column touches stay near those of the next.
  */
-export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Float64Array, groups: Int32Array, g: Float64Array, out: Float64Array, c0: number, c1: number): void {
+export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Float64Array, groups: Int32Array, g: Float64Array, out: Float64Array, c0: number, c1: number): number {
+  let squares = 0;
   for (let k = 0; k < groups.length; k += 3) {
     const first = Math.max(groups[k], c0);
     const end = Math.min(groups[k + 1], c1);
@@ -31,6 +33,7 @@ export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Floa
         const i0 = nIdx[p], i1 = nIdx[p + 1];
         const v0 = nVal[p], v1 = nVal[p + 1];
         const s = v0 * g[i0] + v1 * g[i1];
+        squares += s * s;
         out[i0] += v0 * s;
         out[i1] += v1 * s;
       }
@@ -39,6 +42,7 @@ export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Floa
         const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2];
         const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2];
         const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2];
+        squares += s * s;
         out[i0] += v0 * s;
         out[i1] += v1 * s;
         out[i2] += v2 * s;
@@ -48,6 +52,7 @@ export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Floa
         const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3];
         const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3];
         const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3];
+        squares += s * s;
         out[i0] += v0 * s;
         out[i1] += v1 * s;
         out[i2] += v2 * s;
@@ -58,6 +63,7 @@ export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Floa
         const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3], i4 = nIdx[p + 4];
         const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3], v4 = nVal[p + 4];
         const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3] + v4 * g[i4];
+        squares += s * s;
         out[i0] += v0 * s;
         out[i1] += v1 * s;
         out[i2] += v2 * s;
@@ -69,6 +75,7 @@ export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Floa
         const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3], i4 = nIdx[p + 4], i5 = nIdx[p + 5];
         const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3], v4 = nVal[p + 4], v5 = nVal[p + 5];
         const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3] + v4 * g[i4] + v5 * g[i5];
+        squares += s * s;
         out[i0] += v0 * s;
         out[i1] += v1 * s;
         out[i2] += v2 * s;
@@ -81,6 +88,7 @@ export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Floa
         const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3], i4 = nIdx[p + 4], i5 = nIdx[p + 5], i6 = nIdx[p + 6];
         const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3], v4 = nVal[p + 4], v5 = nVal[p + 5], v6 = nVal[p + 6];
         const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3] + v4 * g[i4] + v5 * g[i5] + v6 * g[i6];
+        squares += s * s;
         out[i0] += v0 * s;
         out[i1] += v1 * s;
         out[i2] += v2 * s;
@@ -94,6 +102,7 @@ export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Floa
         const i0 = nIdx[p], i1 = nIdx[p + 1], i2 = nIdx[p + 2], i3 = nIdx[p + 3], i4 = nIdx[p + 4], i5 = nIdx[p + 5], i6 = nIdx[p + 6], i7 = nIdx[p + 7];
         const v0 = nVal[p], v1 = nVal[p + 1], v2 = nVal[p + 2], v3 = nVal[p + 3], v4 = nVal[p + 4], v5 = nVal[p + 5], v6 = nVal[p + 6], v7 = nVal[p + 7];
         const s = v0 * g[i0] + v1 * g[i1] + v2 * g[i2] + v3 * g[i3] + v4 * g[i4] + v5 * g[i5] + v6 * g[i6] + v7 * g[i7];
+        squares += s * s;
         out[i0] += v0 * s;
         out[i1] += v1 * s;
         out[i2] += v2 * s;
@@ -109,9 +118,11 @@ export function addColumnProducts(nPtr: Int32Array, nIdx: Int32Array, nVal: Floa
         const p1 = nPtr[c + 1];
         let s = 0;
         for (let q = p0; q < p1; q++) s += nVal[q] * g[nIdx[q]];
+        squares += s * s;
         for (let q = p0; q < p1; q++) out[nIdx[q]] += nVal[q] * s;
       }
   }
+  return squares;
 }
 
 /** the longest columns addColumnProducts writes out; longer ones form one group of mixed lengths */
@@ -128,8 +139,9 @@ export interface ColumnProductSession {
   nVal: Float64Array;
   nGroups: Int32Array;
   g: Float64Array;
-  /** the helper's own result (zeroed by it before each product) */
+  /** the helper's own result (zeroed by it before each product), and its share's Σ (ñ_cᵀ g)² in squares[0] */
   out: Float64Array;
+  squares: Float64Array;
   c0: number;
   c1: number;
   /** spins before sleeping, and how long a sleep may last before the session is given up (ms) */
@@ -157,7 +169,7 @@ export function serveColumnProducts(s: ColumnProductSession, product: typeof add
     seen = asked;
     try {
       s.out.fill(0);
-      product(s.nPtr, s.nIdx, s.nVal, s.nGroups, s.g, s.out, s.c0, s.c1);
+      s.squares[0] = product(s.nPtr, s.nIdx, s.nVal, s.nGroups, s.g, s.out, s.c0, s.c1);
       Atomics.store(fl, 1, asked);
     } catch {
       Atomics.store(fl, 1, -asked);

@@ -95,6 +95,7 @@ export class SplitSystem {
   // the helper thread's share of Ñ's product: its columns cut.., and its result
   private helper: ColumnProductHelper | null = null;
   private helperOut: Float64Array | null = null;
+  private helperSquares: Float64Array | null = null;
   private cut = 0;
   /** nonzeros a product touches (for the solver's work count) */
   nonzeros = 0;
@@ -231,29 +232,15 @@ export class SplitSystem {
 
   /** out ← (I + W Wᵀ) x, x and out by row; returns xᵀ out */
   apply(x: Float64Array, out: Float64Array): number {
-    const { m, g, nDiag, invSqrtBasic, invDiag, scale } = this;
-    // g = B⁻ᵀ Θ_B^{-1/2} x = Pᵀ L⁻ᵀ Ũ⁻ᵀ D⁻¹ E⁻ᵀ Θ_B^{-1/2} x
+    const { m, g, invSqrtBasic, invDiag, scale } = this;
+    // g = D⁻¹ E⁻ᵀ Θ_B^{-1/2} x
     if (this.updates.count > 0) {
       for (let i = 0; i < m; i++) g[i] = x[i] * invSqrtBasic[i];
       applyUpdatesTransposed(this.updates, g);
       for (let i = 0; i < m; i++) g[i] *= invDiag[i];
     } else for (let i = 0; i < m; i++) g[i] = x[i] * scale[i];
-    this.solveUnitUpperTransposed(g);
-    this.solveLowerTransposed(g);
-    // out = N Θ_N Nᵀ g, the helper taking its share of Ñ's columns
-    const { nPtr, nIdx, nVal } = this;
-    for (let i = 0; i < m; i++) out[i] = nDiag[i] * g[i];
-    const columns = nPtr.length - 1;
-    const helper = this.helper?.inSession && this.cut < columns ? this.helper : null;
-    helper?.ask();
-    addColumnProducts(nPtr, nIdx, nVal, this.nGroups, g, out, 0, helper ? this.cut : columns);
-    if (helper && helper.wait()) {
-      const helperOut = this.helperOut!;
-      for (let i = 0; i < m; i++) out[i] += helperOut[i];
-    } else if (helper) addColumnProducts(nPtr, nIdx, nVal, this.nGroups, g, out, this.cut, columns); // it failed on the way
-    // out = x + Θ_B^{-1/2} E⁻¹ D⁻¹ Ũ⁻¹ L⁻¹ out
-    this.solveLower(out);
-    this.solveUnitUpper(out);
+    this.applyInner(out);
+    // out = x + Θ_B^{-1/2} E⁻¹ D⁻¹ out
     let xOut = 0;
     if (this.updates.count > 0) {
       for (let i = 0; i < m; i++) out[i] *= invDiag[i];
@@ -273,12 +260,63 @@ export class SplitSystem {
   }
 
   /**
+   * The product taken apart, for a caller that folds its ends into its own vector passes
+   * (krylov.ts): with no updates pending, (I + W Wᵀ) x = x + s ∘ R(s ∘ x) for s = fusedScale and
+   * R = Ũ⁻¹ L⁻¹ N Θ_N Nᵀ L⁻ᵀ Ũ⁻ᵀ. The caller writes s ∘ x into `input`; applyToInput(out) leaves
+   * R(s ∘ x) in out and returns (s ∘ x)ᵀ R (s ∘ x) = xᵀ(I + W Wᵀ)x − xᵀx. Null while updates are
+   * pending (apply() then serves).
+   */
+  get fusedScale(): Float64Array | null {
+    return this.updates.count > 0 ? null : this.scale;
+  }
+
+  /** where the caller of applyToInput puts s ∘ x */
+  get input(): Float64Array {
+    return this.g as Float64Array;
+  }
+
+  /** out ← R(input), destroying input; returns inputᵀ R input (see fusedScale) */
+  applyToInput(out: Float64Array): number {
+    return this.applyInner(out);
+  }
+
+  /**
+   * The middle of the product: g ← L⁻ᵀ Ũ⁻ᵀ g, out = N Θ_N Nᵀ g (the helper
+   * taking its share of Ñ's columns), out ← Ũ⁻¹ L⁻¹ out; returns gᵀ N Θ_N Nᵀ g (the diagonal's
+   * part and Σ (ñ_cᵀ g)² from the column products)
+   */
+  private applyInner(out: Float64Array): number {
+    const { m, g, nDiag } = this;
+    this.solveUnitUpperTransposed(g);
+    this.solveLowerTransposed(g);
+    const { nPtr, nIdx, nVal } = this;
+    const columns = nPtr.length - 1;
+    const helper = this.helper?.inSession && this.cut < columns ? this.helper : null;
+    helper?.ask();
+    let squares = 0;
+    for (let i = 0; i < m; i++) {
+      const d = nDiag[i] * g[i];
+      out[i] = d;
+      squares += d * g[i];
+    }
+    squares += addColumnProducts(nPtr, nIdx, nVal, this.nGroups, g, out, 0, helper ? this.cut : columns);
+    if (helper && helper.wait()) {
+      const helperOut = this.helperOut!;
+      for (let i = 0; i < m; i++) out[i] += helperOut[i];
+      squares += this.helperSquares![0];
+    } else if (helper) squares += addColumnProducts(nPtr, nIdx, nVal, this.nGroups, g, out, this.cut, columns); // it failed on the way
+    this.solveLower(out);
+    this.solveUnitUpper(out);
+    return squares;
+  }
+
+  /**
    * Brackets a run of products (one conjugate-gradient solve): the helper thread, if it takes a
    * share, spins between the products while the run lasts. end() must follow begin().
    */
   begin(): void {
     if (this.cut < this.nPtr.length - 1 && this.helper && this.helperOut) {
-      this.helper.begin({ nPtr: this.nPtr, nIdx: this.nIdx, nVal: this.nVal, nGroups: this.nGroups, g: this.g, out: this.helperOut }, this.cut, this.nPtr.length - 1);
+      this.helper.begin({ nPtr: this.nPtr, nIdx: this.nIdx, nVal: this.nVal, nGroups: this.nGroups, g: this.g, out: this.helperOut, squares: this.helperSquares! }, this.cut, this.nPtr.length - 1);
     }
   }
 
@@ -293,6 +331,7 @@ export class SplitSystem {
       if (!this.helper) return false;
       this.g = sharedFloat64(this.m);
       this.helperOut = sharedFloat64(this.m);
+      this.helperSquares = sharedFloat64(1);
     }
     return true;
   }
