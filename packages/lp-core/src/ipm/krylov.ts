@@ -185,8 +185,9 @@ export function conjugateResiduals(
   const startNorm = startingResidual(x, b, apply, warm, work);
   if (!(startNorm > stop.target)) return 0;
   const best = new BestIterate(startNorm, work);
+  // taken apart only while the product has a scale to hand
   const scale = scaled?.fusedScale ?? null;
-  const input = scaled ? scaled.input : null;
+  const input = scale ? scaled!.input : null;
   p.set(r);
   let rMr = apply(r, mr);
   mp.set(mr);
@@ -199,26 +200,18 @@ export function conjugateResiduals(
     const alpha = rMr / mpmp;
     // a breakdown leaves x as it was (and the best iterate recoverable from it)
     if (!(mpmp > 0) || !(rMr > 0) || !Number.isFinite(alpha)) break;
+    // one pass: the update, ‖r‖∞, rᵀr, and (taken apart) the product's input s ∘ r
     let norm = 0;
     let rr = 0;
-    if (scale && input)
-      for (let i = 0; i < m; i++) {
-        x[i] += alpha * p[i];
-        const ri = r[i] - alpha * mp[i];
-        r[i] = ri;
-        input[i] = scale[i] * ri;
-        const a = Math.abs(ri);
-        if (a > norm) norm = a;
-        rr += ri * ri;
-      }
-    else
-      for (let i = 0; i < m; i++) {
-        x[i] += alpha * p[i];
-        const ri = r[i] - alpha * mp[i];
-        r[i] = ri;
-        const a = Math.abs(ri);
-        if (a > norm) norm = a;
-      }
+    for (let i = 0; i < m; i++) {
+      x[i] += alpha * p[i];
+      const ri = r[i] - alpha * mp[i];
+      r[i] = ri;
+      if (input) input[i] = scale![i] * ri;
+      const a = Math.abs(ri);
+      if (a > norm) norm = a;
+      rr += ri * ri;
+    }
     if (!(norm < Infinity) || !(rr < Infinity)) norm = Infinity;
     best.record(norm, x, alpha);
     if (norm <= stop.target) {
@@ -227,28 +220,17 @@ export function conjugateResiduals(
     }
     if (steps === stop.limit || ((steps & 63) === 0 && performance.now() > stop.deadline)) break;
     // the next step's product: M r of the new residual
+    const rMrNext = input ? rr + scaled!.applyToInput(mr) : apply(r, mr);
+    const beta = rMrNext / rMr;
+    rMr = rMrNext;
+    // one pass: p and M p (M r = r + s ∘ R(s ∘ r) when taken apart), and (M p)ᵀ(M p)
     mpmp = 0;
-    if (scale && scaled) {
-      const rMrNext = rr + scaled.applyToInput(mr);
-      const beta = rMrNext / rMr;
-      rMr = rMrNext;
-      for (let i = 0; i < m; i++) {
-        const ri = r[i];
-        p[i] = ri + beta * p[i];
-        const v = ri + scale[i] * mr[i] + beta * mp[i];
-        mp[i] = v;
-        mpmp += v * v;
-      }
-    } else {
-      const rMrNext = apply(r, mr);
-      const beta = rMrNext / rMr;
-      rMr = rMrNext;
-      for (let i = 0; i < m; i++) {
-        p[i] = r[i] + beta * p[i];
-        const v = mr[i] + beta * mp[i];
-        mp[i] = v;
-        mpmp += v * v;
-      }
+    for (let i = 0; i < m; i++) {
+      const ri = r[i];
+      p[i] = ri + beta * p[i];
+      const v = (input ? ri + scale![i] * mr[i] : mr[i]) + beta * mp[i];
+      mp[i] = v;
+      mpmp += v * v;
     }
   }
   best.restore(x);
